@@ -1,0 +1,90 @@
+/**
+ * Shared public types of exactdraw.
+ *
+ * @packageDocumentation
+ */
+
+/**
+ * A source of uniform random numbers on the half-open interval [0, 1).
+ *
+ * @remarks
+ * Any function with this signature can be injected into a sampler through
+ * {@link SamplerOptions.uniform}. The default source is {@link mersenneTwister}.
+ */
+export type Uniform = () => number;
+
+/**
+ * A distribution to draw from, described by its (possibly unnormalized)
+ * log-density.
+ *
+ * @remarks
+ * Only {@link Target.logDensity} is required. The other members are hints
+ * that methods use when present: `dLogDensity` enables tangent hulls, `mode`
+ * speeds up bound and start-point searches, `cdf` is used by the checks only.
+ */
+export interface Target {
+  /** Unnormalized log-density; must return `-Infinity` outside the support and never `NaN` or `+Infinity`. */
+  logDensity(x: number): number;
+  /** Optional derivative of {@link Target.logDensity}, used by tangent-based envelopes. */
+  dLogDensity?(x: number): number;
+  /** Support `[lower, upper]`; defaults to `[-Infinity, Infinity]`. */
+  readonly support?: readonly [number, number];
+  /** Optional location of the mode (a hint; it is verified where it matters). */
+  readonly mode?: number;
+  /** Optional normalized cumulative distribution function, used by checks only. */
+  cdf?(x: number): number;
+}
+
+/**
+ * Counters kept by every sampler. Read through {@link Sampler.stats}, which
+ * returns a fresh snapshot on each access.
+ */
+export interface SamplerStats {
+  /** Draws returned. */
+  samples: number;
+  /** Candidates generated (accepted or not). */
+  proposals: number;
+  /** Calls of `logDensity` made while sampling. */
+  densityEvaluations: number;
+  /** Calls of `logDensity` made while building the envelope. */
+  setupEvaluations: number;
+  /** `samples / proposals` (0 before the first proposal). */
+  acceptanceRate: number;
+}
+
+/**
+ * An exact random variate generator.
+ */
+export interface Sampler {
+  /** Returns one draw from the target. */
+  sample(): number;
+  /** Fills `out` with independent draws and returns it. This is the fast path. */
+  fill(out: Float64Array): Float64Array;
+  /** Live snapshot of the sampler's counters. */
+  readonly stats: SamplerStats;
+}
+
+/**
+ * Options shared by every sampler factory.
+ */
+export interface SamplerOptions {
+  /**
+   * Seed of the default MT19937 source. Ignored when `uniform` is given.
+   * @defaultValue a fixed default seed (5489, the MT19937 reference seed), so runs are reproducible by default
+   */
+  seed?: number;
+  /** A uniform source on [0, 1) to use instead of the default MT19937. */
+  uniform?: Uniform;
+}
+
+/**
+ * An easy-to-sample proposal distribution for rejection sampling.
+ */
+export interface Proposal {
+  /** Draws one value using only the injected uniform source. */
+  sample(u: Uniform): number;
+  /** Normalized log-density of the proposal (`-Infinity` outside its support). */
+  logDensity(x: number): number;
+  /** Support `[lower, upper]` of the proposal. */
+  readonly support: readonly [number, number];
+}

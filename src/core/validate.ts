@@ -1,0 +1,116 @@
+/**
+ * Input validation shared by all methods. @internal
+ *
+ * @packageDocumentation
+ */
+import { InvalidTargetError, NonFiniteDensityError } from './errors.js';
+import type { Target } from './types.js';
+
+/** A target whose optional members have been checked. @internal */
+export interface CheckedTarget {
+  readonly logDensity: (x: number) => number;
+  readonly dLogDensity: ((x: number) => number) | undefined;
+  readonly lower: number;
+  readonly upper: number;
+  readonly mode: number | undefined;
+}
+
+/**
+ * Validates a target: `logDensity` is a function, `dLogDensity` (if any) is a
+ * function, the support is `[lower, upper]` with `lower < upper` and no NaN,
+ * and the mode hint (if any) is a finite number inside the support.
+ * @internal
+ */
+export function checkTarget(api: string, target: Target): CheckedTarget {
+  if (target === null || typeof target !== 'object') {
+    throw new InvalidTargetError(`${api}: target must be an object with a logDensity function, got ${target === null ? 'null' : typeof target}`);
+  }
+  if (typeof target.logDensity !== 'function') {
+    throw new InvalidTargetError(`${api}: target.logDensity must be a function, got ${typeof target.logDensity}`);
+  }
+  if (target.dLogDensity !== undefined && typeof target.dLogDensity !== 'function') {
+    throw new InvalidTargetError(`${api}: target.dLogDensity must be a function when given, got ${typeof target.dLogDensity}`);
+  }
+  const [lower, upper] = checkSupport(api, 'target.support', target.support);
+  let mode = target.mode;
+  if (mode !== undefined) {
+    if (typeof mode !== 'number' || !Number.isFinite(mode)) {
+      throw new InvalidTargetError(`${api}: target.mode must be a finite number when given, got ${String(mode)}`);
+    }
+    if (mode < lower || mode > upper) {
+      throw new InvalidTargetError(`${api}: target.mode = ${mode} lies outside the support [${lower}, ${upper}]`);
+    }
+  }
+  const ld = target.logDensity.bind(target);
+  const dld = target.dLogDensity !== undefined ? target.dLogDensity.bind(target) : undefined;
+  mode = mode === undefined ? undefined : mode;
+  return { logDensity: ld, dLogDensity: dld, lower, upper, mode };
+}
+
+/** Validates a support pair. @internal */
+export function checkSupport(api: string, name: string, support: readonly [number, number] | undefined): [number, number] {
+  if (support === undefined) return [-Infinity, Infinity];
+  if (!Array.isArray(support) || support.length !== 2) {
+    throw new InvalidTargetError(`${api}: ${name} must be a pair [lower, upper], got ${String(support)}`);
+  }
+  const lower = support[0] as unknown;
+  const upper = support[1] as unknown;
+  if (typeof lower !== 'number' || typeof upper !== 'number' || Number.isNaN(lower) || Number.isNaN(upper)) {
+    throw new InvalidTargetError(`${api}: ${name} bounds must be numbers (not NaN), got [${String(lower)}, ${String(upper)}]`);
+  }
+  if (!(lower < upper)) {
+    throw new InvalidTargetError(`${api}: ${name} must have lower < upper, got [${lower}, ${upper}]`);
+  }
+  if (lower === Infinity || upper === -Infinity) {
+    throw new InvalidTargetError(`${api}: ${name} is empty, got [${lower}, ${upper}]`);
+  }
+  return [lower, upper];
+}
+
+/**
+ * Evaluates `logDensity(x)` and throws {@link NonFiniteDensityError} on `NaN`
+ * or `+Infinity`. Use in setup code; kernels inline the same test.
+ * @internal
+ */
+export function evalLog(api: string, logDensity: (x: number) => number, x: number): number {
+  const v = logDensity(x);
+  if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(api, x, v);
+  return v;
+}
+
+/** Throws unless `v` is a finite number. @internal */
+export function checkFinite(api: string, name: string, v: unknown): number {
+  if (typeof v !== 'number' || !Number.isFinite(v)) {
+    throw new InvalidTargetError(`${api}: ${name} must be a finite number, got ${String(v)}`);
+  }
+  return v;
+}
+
+/** Throws unless `v` is a finite number > 0. @internal */
+export function checkPositive(api: string, name: string, v: unknown): number {
+  if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) {
+    throw new InvalidTargetError(`${api}: ${name} must be a finite number > 0, got ${String(v)}`);
+  }
+  return v;
+}
+
+/** Throws unless `v` is an integer in `[min, max]`. @internal */
+export function checkInteger(api: string, name: string, v: unknown, min: number, max: number): number {
+  if (typeof v !== 'number' || !Number.isInteger(v) || v < min || v > max) {
+    throw new InvalidTargetError(`${api}: ${name} must be an integer in [${min}, ${max}], got ${String(v)}`);
+  }
+  return v;
+}
+
+/** Throws if the options object has keys the API does not know (catches typos). @internal */
+export function checkOptionKeys(api: string, opts: object | undefined, known: readonly string[]): void {
+  if (opts === undefined) return;
+  if (opts === null || typeof opts !== 'object') {
+    throw new InvalidTargetError(`${api}: options must be an object, got ${opts === null ? 'null' : typeof opts}`);
+  }
+  for (const k of Object.keys(opts)) {
+    if (!known.includes(k)) {
+      throw new InvalidTargetError(`${api}: unknown option '${k}' (known: ${known.join(', ')})`);
+    }
+  }
+}

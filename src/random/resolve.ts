@@ -1,0 +1,43 @@
+/**
+ * Resolution of the uniform source of a sampler. @internal
+ *
+ * @packageDocumentation
+ */
+import { InvalidTargetError } from '../core/errors.js';
+import type { SamplerOptions, Uniform } from '../core/types.js';
+import { DEFAULT_SEED, mersenneTwister } from './mersenne-twister.js';
+
+/**
+ * Returns the uniform source selected by `opts`: the injected `uniform`
+ * (wrapped so that a value outside [0, 1) throws instead of biasing draws), or
+ * a fresh MT19937 seeded with `opts.seed`.
+ * @internal
+ */
+export function resolveUniform(api: string, opts: SamplerOptions | undefined): Uniform {
+  const given = opts?.uniform;
+  if (given !== undefined) {
+    if (typeof given !== 'function') {
+      throw new InvalidTargetError(`${api}: options.uniform must be a function returning numbers in [0, 1), got ${typeof given}`);
+    }
+    if (opts?.seed !== undefined) {
+      throw new InvalidTargetError(`${api}: give either options.seed or options.uniform, not both (seed = ${String(opts.seed)})`);
+    }
+    return checkedUniform(api, given);
+  }
+  const seed = opts?.seed ?? DEFAULT_SEED;
+  if (typeof seed !== 'number' || !Number.isInteger(seed) || seed < 0 || seed > Number.MAX_SAFE_INTEGER) {
+    throw new InvalidTargetError(`${api}: options.seed must be an integer in [0, 2^53 - 1], got ${String(seed)}`);
+  }
+  return mersenneTwister(seed);
+}
+
+/** Wraps an injected uniform so that values outside [0, 1) throw. @internal */
+export function checkedUniform(api: string, u: Uniform): Uniform {
+  return () => {
+    const v = u();
+    if (!(v >= 0 && v < 1)) {
+      throw new InvalidTargetError(`${api}: options.uniform returned ${String(v)}; it must return numbers in [0, 1)`);
+    }
+    return v;
+  };
+}

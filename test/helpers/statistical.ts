@@ -1,0 +1,59 @@
+/**
+ * Shared statistical test helpers. Every distributional test in the suite goes
+ * through these so that significance, seeds and biased twins are uniform.
+ */
+import { expect } from 'vitest';
+import { andersonDarlingCheck } from '../../src/checks/anderson-darling.js';
+import { ksCheck } from '../../src/checks/ks.js';
+import type { Sampler } from '../../src/core/types.js';
+
+/** Significance level of every statistical test in this suite (project policy: 1e-4 or below). */
+export const ALPHA = 1e-4;
+
+/** Draws n values with `fill`. */
+export function draw(sampler: Sampler, n: number): Float64Array {
+  return sampler.fill(new Float64Array(n));
+}
+
+/** Asserts that KS and Anderson–Darling both accept `draws` against `cdf` at ALPHA. */
+export function expectFits(draws: Float64Array, cdf: (x: number) => number, label = ''): void {
+  const ks = ksCheck(draws, cdf);
+  const ad = andersonDarlingCheck(draws, cdf);
+  expect(ks.pValue, `${label} KS p-value (D = ${ks.statistic})`).toBeGreaterThan(ALPHA);
+  expect(ad.pValue, `${label} AD p-value (A2 = ${ad.statistic})`).toBeGreaterThan(ALPHA);
+}
+
+/**
+ * The biased twin: asserts that at least one of KS and Anderson–Darling rejects
+ * `draws` against `cdf` at ALPHA (the checks have power at this n).
+ */
+export function expectRejects(draws: Float64Array, cdf: (x: number) => number, label = ''): void {
+  const ks = ksCheck(draws, cdf);
+  const ad = andersonDarlingCheck(draws, cdf);
+  expect(Math.min(ks.pValue, ad.pValue), `${label} min(KS, AD) p-value`).toBeLessThan(ALPHA);
+}
+
+/** Binomial acceptance interval: |k/n − p| within z·sqrt(p(1−p)/n); z = 4.4 ≈ two-sided 1e-5. */
+export function expectRate(k: number, n: number, p: number, label = '', z = 4.4): void {
+  const sd = Math.sqrt((p * (1 - p)) / n);
+  expect(Math.abs(k / n - p), `${label} rate ${k / n} vs ${p} (sd ${sd})`).toBeLessThan(z * sd);
+}
+
+/** Samples every draw must respect. */
+export function expectInSupport(draws: Float64Array, lower: number, upper: number): void {
+  for (let i = 0; i < draws.length; i++) {
+    const x = draws[i];
+    if (!(x >= lower && x <= upper)) {
+      expect.fail(`draw ${i} = ${x} outside support [${lower}, ${upper}]`);
+    }
+  }
+}
+
+/** Same seed, same draws; different seed, different draws. */
+export function expectReproducible(make: (seed: number) => Sampler, n = 200): void {
+  const a = draw(make(11), n);
+  const b = draw(make(11), n);
+  const c = draw(make(12), n);
+  expect(Array.from(a)).toEqual(Array.from(b));
+  expect(Array.from(a)).not.toEqual(Array.from(c));
+}
