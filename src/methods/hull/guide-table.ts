@@ -1,0 +1,77 @@
+/**
+ * Guide table for O(1) expected-time selection of a piece with probability
+ * proportional to its area (Chen & Asau 1974; Devroye 1986, III.2.4). @internal
+ *
+ * @packageDocumentation
+ */
+
+/**
+ * Cumulative areas plus a guide: `guide[g]` is the first piece whose
+ * cumulative area exceeds `g/size` of the total. A lookup with a uniform u
+ * starts at `guide[floor(u·size)]` and walks forward while
+ * `cum[j] ≤ u·total`. With as many guide entries as pieces the expected walk
+ * is below 2 steps (Devroye 1986, III.2.4), whatever the number of pieces.
+ *
+ * The cumulative entry of the last piece with positive area is set to
+ * `+Infinity`, a sentinel that ends every walk without a bounds test (and
+ * absorbs rounding in u·total); pieces of zero area are never selected.
+ * @internal
+ */
+export class GuideTable {
+  /** Cumulative areas (with the sentinel). */
+  cum: Float64Array;
+  /** Guide entries. */
+  guide: Int32Array;
+  /** Number of guide entries in use. */
+  size = 0;
+  /** Sum of the areas. */
+  total = 0;
+
+  /** @param capacity - maximum number of pieces */
+  constructor(capacity: number) {
+    this.cum = new Float64Array(capacity);
+    this.guide = new Int32Array(capacity);
+  }
+
+  /** Reallocates for a larger number of pieces (setup only). */
+  grow(capacity: number): void {
+    this.cum = new Float64Array(capacity);
+    this.guide = new Int32Array(capacity);
+  }
+
+  /**
+   * Rebuilds the table from `area[0..n)` (non-negative, finite, not all 0).
+   * Returns the total.
+   */
+  build(area: Float64Array, n: number): number {
+    const cum = this.cum;
+    let s = 0;
+    let last = -1;
+    for (let j = 0; j < n; j++) {
+      const a = area[j];
+      s += a;
+      cum[j] = s;
+      if (a > 0) last = j;
+    }
+    for (let j = last < 0 ? 0 : last; j < n; j++) cum[j] = Infinity;
+    this.total = s;
+    const guide = this.guide;
+    let j = 0;
+    for (let g = 0; g < n; g++) {
+      const v = (s * g) / n;
+      while (cum[j] <= v) j++;
+      guide[g] = j;
+    }
+    this.size = n;
+    return s;
+  }
+
+  /** Index of the piece selected by the uniform `u` in [0, 1) (the kernel inlines this). */
+  lookup(u: number): number {
+    const cum = this.cum;
+    const v = u * this.total;
+    let j = this.guide[(u * this.size) | 0];
+    while (cum[j] <= v) j++;
+    return j;
+  }
+}

@@ -1,0 +1,136 @@
+/**
+ * The sampling kernel of the hull engine. @internal
+ *
+ * @packageDocumentation
+ */
+import type { Counters } from '../../core/counters.js';
+import { EnvelopeViolationError, NonFiniteDensityError, StalledSamplerError } from '../../core/errors.js';
+import type { Uniform } from '../../core/types.js';
+import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE, nonFiniteDerivative } from './hull.js';
+import type { Hull } from './hull.js';
+import { T_LOG } from './transforms.js';
+
+/**
+ * Fills `out[0..n)` with draws from the target under the hull `h`.
+ *
+ * @remarks
+ * Per proposal the kernel consumes exactly three uniforms: u1 selects a
+ * piece through the guide table, u2 inverts the piece's envelope cdf, u3 is
+ * the acceptance variable. The candidate is accepted without evaluating the
+ * target when u3 < squeeze/envelope (strict, so that u3 = 0 under a zero
+ * squeeze still evaluates). Otherwise logDensity is evaluated (and counted),
+ * checked for NaN/+Infinity, against the envelope and against the squeeze
+ * (both within the hull tolerance), and the candidate is accepted when
+ * u3 < f/envelope. A rejected candidate becomes a touch point while the hull
+ * has room (see {@link Hull.insert}); a rejected candidate where the density
+ * is 0 outside the touch points shrinks the effective support instead. No
+ * allocation happens here; the guide table is rebuilt lazily after insertions.
+ * @internal
+ */
+export function hullFill(
+  h: Hull,
+  out: Float64Array,
+  n: number,
+  counters: Counters,
+  uniform: Uniform,
+  maxRejections: number,
+): void {
+  const api = h.api;
+  const lo = h.lo;
+  const hi = h.hi;
+  const ax = h.ax;
+  const at = h.at;
+  const sl = h.sl;
+  const sqx = h.sqx;
+  const sqt = h.sqt;
+  const sqs = h.sqs;
+  const hx = h.hx;
+  const dir = h.dir;
+  const wd = h.wd;
+  const sig = h.sig;
+  const pq = h.pq;
+  const gt = h.guideTable;
+  const cum = gt.cum;
+  const guide = gt.guide;
+  const isLog = h.kind === T_LOG;
+  const logf = h.target.logDensity;
+  const ref = h.ref;
+  const tolBase = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(ref);
+  for (let i = 0; i < n; i++) {
+    let rejections = 0;
+    for (;;) {
+      if (h.dirty) h.buildGuide();
+      counters.proposals++;
+      const u1 = uniform();
+      let j = guide[(u1 * gt.size) | 0];
+      const v = u1 * gt.total;
+      while (cum[j] <= v) j++;
+      const u2 = uniform();
+      const w = wd[j];
+      const q = pq[j];
+      let d: number;
+      if (isLog) d = q === 0 ? u2 * w : -Math.log1p(-u2 * q) / sig[j];
+      else d = w === Infinity ? u2 / ((1 - u2) * q) : (u2 * w) / (1 + (1 - u2) * q * w);
+      if (d > w) d = w;
+      let x = hx[j] + dir[j] * d;
+      if (x < lo[j]) x = lo[j];
+      else if (x > hi[j]) x = hi[j];
+      const t = at[j] + sl[j] * (x - ax[j]);
+      const sv = sqt[j];
+      const c = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqx[j]);
+      const u3 = uniform();
+      let lenv: number;
+      let lsq: number;
+      if (isLog) {
+        if (u3 < Math.exp(c - t)) {
+          out[i] = x;
+          break;
+        }
+        lenv = t;
+        lsq = c;
+      } else {
+        const r = t / c;
+        if (u3 < r * r) {
+          out[i] = x;
+          break;
+        }
+        lenv = -2 * Math.log(-t);
+        lsq = c === -Infinity ? -Infinity : -2 * Math.log(-c);
+      }
+      const lf = logf(x);
+      counters.densityEvaluations++;
+      if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(api, x, lf);
+      const lr = lf - ref;
+      const tol = tolBase + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(lr === -Infinity ? 0 : lr);
+      if (lr > lenv + tol) throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');
+      if (lr < lsq - tol) throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
+      if (u3 < Math.exp(lr - lenv)) {
+        out[i] = x;
+        break;
+      }
+      adapt(h, x, lf);
+      if (++rejections >= maxRejections) {
+        throw new StalledSamplerError(api, rejections, counters.samples, counters.proposals);
+      }
+    }
+    counters.samples++;
+  }
+}
+
+/** Inserts a rejected candidate as a touch point (evaluating the derivative when the hull uses tangents). */
+function adapt(h: Hull, x: number, lf: number): void {
+  if (lf === -Infinity) {
+    h.insert(x, lf, NaN, false);
+    return;
+  }
+  if (h.k >= h.maxK) return;
+  let g = NaN;
+  if (h.tangent) {
+    const dl = h.target.dLogDensity as (x: number) => number;
+    g = dl(x);
+    h.derivativeEvaluations++;
+    if (g !== g || typeof g !== 'number') nonFiniteDerivative(h.api, x, g);
+    if (g === Infinity || g === -Infinity) return;
+  }
+  h.insert(x, lf, g, false);
+}
