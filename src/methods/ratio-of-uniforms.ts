@@ -24,7 +24,9 @@ export interface RatioOfUniformsOptions extends SamplerOptions {
   /**
    * The shift s: candidates are x = v/u^r + s. Any finite value gives exact
    * draws; the mode gives a small rectangle.
-   * @defaultValue the target's mode hint (verified to be a mode), else the maximiser of logDensity found numerically
+   * @defaultValue the target's mode hint, else the maximiser of logDensity found numerically. A
+   * mode hint used as the shift is verified: if the search finds logDensity larger than at the
+   * hint by more than 1e-6·(1 + |sup log f|), the factory throws {@link InvalidTargetError}.
    */
   shift?: number;
   /**
@@ -129,8 +131,13 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'uniform'] 
  * Setup: the three suprema are found in log space by a robust global search
  * (geometric probes, a mapped grid and golden-section refinement, a few
  * thousand evaluations of logDensity, counted in `stats.setupEvaluations`)
- * on f / M with M its sup, so 1e-300 densities work. Each located sup is
- * enlarged by a relative 1e-9 (safety margin). On a finite support the
+ * on f / M with M its sup, so 1e-300 densities work; each located maximiser
+ * is then polished by scanning the doubles within about ±32 ulps of it. Each
+ * located sup b (a log) is enlarged to b + 1e-9 + 1e-12·|b|, i.e. each side of
+ * the rectangle by a relative 1e-9 (safety margin). At a finite end of the
+ * support, log f is probed at distances shrinking by factors of 256 down to
+ * the closest representable one; if it is still rising there (by more than
+ * 1e-3 per step, not shrinking) the density is unbounded. On a finite support the
  * v-bounds are also capped by (upper − s) and (s − lower). When a bound is
  * infinite the factory throws instead of sampling: a density unbounded at an
  * end of the support (sup f infinite for every r; e.g. gamma(0.5) or
@@ -145,6 +152,13 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'uniform'] 
  * that |x − s|·(f(x)/M)^(r/(r+1)) is within the v-bound of its side (the
  * rectangle contains the region's slice at x); a violation throws
  * {@link EnvelopeViolationError} — it means a sup was underestimated.
+ * The equivalent dominating function is exposed as `logEnvelope(x)`.
+ *
+ * Squeeze: none is built in, because no squeeze inside the region is valid
+ * for every target (an inscribed polygon needs the region to be convex,
+ * which holds only for special shapes and cannot be verified from point
+ * evaluations); a user-supplied lower bound of logDensity can be given as
+ * `squeeze`.
  *
  * @param target - the target (unnormalized log-density; bounded density)
  * @param options - power, shift, optional squeeze and uniform source
@@ -164,7 +178,6 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'uniform'] 
  * const cauchy = { logDensity: (x: number) => -Math.log1p(x * x) };
  * ratioOfUniformsSampler(cauchy, { power: 1, seed: 1 }).sample();
  * ```
- * @remarks Since 0.1.0
  */
 export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsOptions = {}): RatioOfUniformsSampler {
   const api = 'ratioOfUniformsSampler';

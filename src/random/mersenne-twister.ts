@@ -62,7 +62,7 @@ function wrap(prng: StdlibPrng): MersenneTwister {
 /** Splits a safe integer seed into MT19937 seed material. @internal */
 export function seedWords(seed: number): number | number[] {
   if (seed >= 1 && seed < TWO32) return seed;
-  if (seed === 0) return [0];
+  if (seed === 0) return [0, 0]; // [0] alone is refused by @stdlib; no other seed maps to [0, 0]
   return [seed % TWO32, Math.floor(seed / TWO32)];
 }
 

@@ -257,14 +257,16 @@ describe('ratioOfUniformsSampler: densities unbounded at an end are refused (no 
     expectRejects(twin.map(Math.exp), cdf, 'beta(0.77, 3) vs beta(0.7, 3)');
   });
 
-  it('beta(1, 3) and beta(3, 1) (finite maximum at an end) are sampled, within [0, 1]', () => {
-    for (const [a, b] of [
-      [1, 3],
-      [3, 1],
+  it('beta(1, 3) and beta(3, 1) (finite maximum at an end) are sampled, within [0, 1]; shape 3.3 twins are not', () => {
+    for (const [a, b, ta, tb] of [
+      [1, 3, 1, 3.3],
+      [3, 1, 3.3, 1],
     ] as const) {
+      const cdf = (x: number) => betaCdf(x, a, b);
       const xs = draw(ratioOfUniformsSampler(betaTarget(a, b), { seed: 433 }), N);
       expectInSupport(xs, 0, 1);
-      expectFits(xs, (x) => betaCdf(x, a, b), `beta(${a}, ${b})`);
+      expectFits(xs, cdf, `beta(${a}, ${b})`);
+      expectRejects(draw(ratioOfUniformsSampler(betaTarget(ta, tb), { seed: 433 }), N), cdf, `beta(${ta}, ${tb}) vs beta(${a}, ${b})`);
     }
   });
 });
@@ -286,8 +288,10 @@ describe('ratioOfUniformsSampler: tails too heavy for the power', () => {
     expect(msg).toMatch(/choose power >= 1\/\(α − 1\) ≈ 1\.00/);
   });
 
-  it('Cauchy with power 2 is exact (larger r bounds heavier tails)', () => {
+  it('Cauchy with power 2 is exact (larger r bounds heavier tails); scale 1.1 is rejected', () => {
     expectFits(draw(ratioOfUniformsSampler(cauchy, { power: 2, seed: 441 }), N), cauchyCdf, 'Cauchy r=2');
+    const wide: Target = { logDensity: (x: number) => -Math.log1p((x / 1.1) ** 2) };
+    expectRejects(draw(ratioOfUniformsSampler(wide, { power: 2, seed: 441 }), N), cauchyCdf, 'Cauchy scale 1.1, r=2');
   });
 
   it('a lower tail too heavy is named as such', () => {
@@ -434,16 +438,20 @@ describe('ratioOfUniformsSampler: evaluation-time checks', () => {
   });
 
   it('a valid squeeze saves density evaluations and keeps the draws exact', () => {
-    // e^t ≥ 1 + t gives φ(x) ≥ φ(0)·(1 − x²/2) for |x| < √2 (common practice).
-    const n = normalTarget(0, 1);
-    const c = n.logDensity(0);
-    const squeeze = (x: number) => (x * x < 2 ? c + Math.log1p(-0.5 * x * x) : -Infinity);
-    const s = ratioOfUniformsSampler(n, { squeeze, seed: 464 });
-    const xs = draw(s, N);
-    expectFits(xs, (x) => normalCdf(x, 0, 1), 'normal with squeeze');
+    // e^t ≥ 1 + t gives φ_sd(x) ≥ φ_sd(0)·(1 − x²/(2sd²)) for |x| < √2·sd (common practice).
+    const withSqueeze = (sd: number, seed: number) => {
+      const n = normalTarget(0, sd);
+      const c = n.logDensity(0);
+      const squeeze = (x: number) => (x * x < 2 * sd * sd ? c + Math.log1p((-0.5 * x * x) / (sd * sd)) : -Infinity);
+      return ratioOfUniformsSampler(n, { squeeze, seed });
+    };
+    const cdf = (x: number) => normalCdf(x, 0, 1);
+    const s = withSqueeze(1, 464);
+    expectFits(draw(s, N), cdf, 'normal with squeeze');
     const st = s.stats;
     expect(st.densityEvaluations).toBeLessThan(0.6 * st.proposals);
     expectRate(st.samples, st.proposals, 0.73057, 'squeeze does not change acceptance'); // √(πe)/4, REFERENCES.md
+    expectRejects(draw(withSqueeze(1.08, 464), N), cdf, 'normal sd 1.08 with squeeze');
   });
 
   it('a squeeze above the target throws EnvelopeViolationError (squeeze)', () => {
@@ -529,6 +537,12 @@ describe('ratioOfUniformsSampler: bad inputs give typed errors, never draws', ()
       }
     });
   }
+
+  it('a wrong mode hint is accepted when options.shift is given (the hint is then not used as the shift)', () => {
+    const s = ratioOfUniformsSampler({ ...n, mode: 1 }, { shift: 1, seed: 5 });
+    expect(s.region.shift).toBe(1);
+    expect(s.region.logDensityMax).toBe(n.logDensity(0));
+  });
 
   it('a uniform source returning 1 throws at draw time instead of drawing', () => {
     const s = ratioOfUniformsSampler(n, { uniform: () => 1 });

@@ -109,6 +109,8 @@ export class Hull {
   setupScale = 1;
   private leftStep = 0;
   private rightStep = 0;
+  private leftGrowth = 2;
+  private rightGrowth = 2;
 
   // touch points
   tx!: Float64Array; // x
@@ -222,29 +224,41 @@ export class Hull {
     return this.k >= 2 ? this.chord(this.k - 2) : NaN;
   }
 
-  private setPiece(j: number, lo: number, hi: number, ax: number, at: number, sl: number, sqx: number, sqt: number, sqs: number): void {
+  /**
+   * Sets piece j on [lo, hi] with a line of slope `sl` whose values at the
+   * two ends are `vLo` and `vHi` (computed by the caller in the
+   * best-conditioned way). The line is stored anchored at its high end, so
+   * that the kernel evaluates `tHigh − |sl|·distance` — two terms of the same
+   * sign, without cancellation even when a steep line falls from a huge
+   * transformed value. The squeeze chord is given the same way, anchored at
+   * its higher touch point.
+   */
+  private setPiece(j: number, lo: number, hi: number, sl: number, vLo: number, vHi: number, sqx: number, sqt: number, sqs: number): void {
+    let hx: number;
+    let dir: number;
+    let th: number;
+    if (sl > 0) {
+      hx = hi;
+      dir = -1;
+      th = vHi;
+    } else {
+      hx = lo;
+      dir = 1;
+      th = vLo;
+    }
+    // a line rising towards an infinite end (or flat on an infinite piece) is not integrable
+    if (hx === Infinity || hx === -Infinity || !(sl === sl) || !(th === th)) th = Infinity;
+    const w = hi - lo;
+    const s = Math.abs(sl);
+    const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
     this.lo[j] = lo;
     this.hi[j] = hi;
-    this.ax[j] = ax;
-    this.at[j] = at;
+    this.ax[j] = hx;
+    this.at[j] = th;
     this.sl[j] = sl;
     this.sqx[j] = sqx;
     this.sqt[j] = sqt;
     this.sqs[j] = sqs;
-    let hx: number;
-    let dir: number;
-    if (sl > 0) {
-      hx = hi;
-      dir = -1;
-    } else {
-      hx = lo;
-      dir = 1;
-    }
-    const w = hi - lo;
-    const s = Math.abs(sl);
-    // a line rising towards an infinite end (or flat on an infinite piece) is not integrable
-    const th = hx === Infinity || hx === -Infinity || !(sl === sl) ? Infinity : at + sl * (hx - ax);
-    const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
     this.hx[j] = hx;
     this.dir[j] = dir;
     this.wd[j] = w;
@@ -256,9 +270,14 @@ export class Hull {
   }
 
   private setInvalid(j: number, lo: number, hi: number): void {
-    this.setPiece(j, lo, hi, lo, Infinity, NaN, lo, -Infinity, 0);
-    this.logArea[j] = Infinity;
-    this.area[j] = Infinity;
+    this.setPiece(j, lo, hi, NaN, Infinity, Infinity, lo, -Infinity, 0);
+  }
+
+  /** Value at z of two lines through (a, ya) with slope sa and (b, yb) with slope sb: the evaluation with the smaller rounding bound. */
+  private static meet(a: number, ya: number, sa: number, b: number, yb: number, sb: number, z: number): number {
+    const da = sa * (z - a);
+    const db = sb * (b - z);
+    return Math.abs(ya) + Math.abs(da) <= Math.abs(yb) + Math.abs(db) ? ya + da : yb - db;
   }
 
   /** Rebuilds the two pieces of interval i (touch points i and i + 1). */
@@ -267,10 +286,15 @@ export class Hull {
     const ty = this.ty;
     const a = tx[i];
     const b = tx[i + 1];
+    const ya = ty[i];
+    const yb = ty[i + 1];
     const w = b - a;
     const mi = this.chord(i);
     const jA = 1 + 2 * i;
     const jB = jA + 1;
+    // squeeze: the chord, anchored at its higher end
+    const sqx = ya >= yb ? a : b;
+    const sqt = ya >= yb ? ya : yb;
     if (this.tangent) {
       const s0 = this.ts[i];
       const s1 = this.ts[i + 1];
@@ -279,8 +303,9 @@ export class Hull {
       else if (f > 1) f = 1;
       let z = a + f * w;
       if (z > b) z = b;
-      this.setPiece(jA, a, z, a, ty[i], s0, a, ty[i], mi);
-      this.setPiece(jB, z, b, b, ty[i + 1], s1, a, ty[i], mi);
+      const tz = Hull.meet(a, ya, s0, b, yb, s1, z);
+      this.setPiece(jA, a, z, s0, ya, tz, sqx, sqt, mi);
+      this.setPiece(jB, z, b, s1, tz, yb, sqx, sqt, mi);
       return;
     }
     const k = this.k;
@@ -294,18 +319,23 @@ export class Hull {
       else if (f > 1) f = 1;
       let z = a + f * w;
       if (z > b) z = b;
-      this.setPiece(jA, a, z, a, ty[i], mL, a, ty[i], mi);
-      this.setPiece(jB, z, b, b, ty[i + 1], mR, a, ty[i], mi);
+      const tz = Hull.meet(a, ya, mL, b, yb, mR, z);
+      this.setPiece(jA, a, z, mL, ya, tz, sqx, sqt, mi);
+      this.setPiece(jB, z, b, mR, tz, yb, sqx, sqt, mi);
     } else if (hasR) {
+      // only the chord on the right, extended backwards through b
       const mR = this.chord(i + 1);
       const z = a + 0.5 * w;
-      this.setPiece(jA, a, z, b, ty[i + 1], mR, a, ty[i], mi);
-      this.setPiece(jB, z, b, b, ty[i + 1], mR, a, ty[i], mi);
+      const vz = yb - mR * (b - z);
+      this.setPiece(jA, a, z, mR, yb - mR * w, vz, sqx, sqt, mi);
+      this.setPiece(jB, z, b, mR, vz, yb, sqx, sqt, mi);
     } else if (hasL) {
+      // only the chord on the left, extended forwards through a
       const mL = this.chord(i - 1);
       const z = a + 0.5 * w;
-      this.setPiece(jA, a, z, a, ty[i], mL, a, ty[i], mi);
-      this.setPiece(jB, z, b, a, ty[i], mL, a, ty[i], mi);
+      const vz = ya + mL * (z - a);
+      this.setPiece(jA, a, z, mL, ya, vz, sqx, sqt, mi);
+      this.setPiece(jB, z, b, mL, vz, ya + mL * w, sqx, sqt, mi);
     } else {
       // two secant points bound nothing between them
       this.setInvalid(jA, a, a + 0.5 * w);
@@ -321,10 +351,14 @@ export class Hull {
     const last = 2 * k - 1;
     const sL = this.leftTailSlope();
     const sR = this.rightTailSlope();
-    if (sL === sL) this.setPiece(0, this.lower, tx[0], tx[0], ty[0], sL, 0, -Infinity, 0);
-    else this.setInvalid(0, this.lower, tx[0]);
-    if (sR === sR) this.setPiece(last, tx[k - 1], this.upper, tx[k - 1], ty[k - 1], sR, 0, -Infinity, 0);
-    else this.setInvalid(last, tx[k - 1], this.upper);
+    const lower = this.lower;
+    const upper = this.upper;
+    const x0 = tx[0];
+    const x1 = tx[k - 1];
+    if (sL === sL) this.setPiece(0, lower, x0, sL, lower === -Infinity ? -Infinity : ty[0] + sL * (lower - x0), ty[0], 0, -Infinity, 0);
+    else this.setInvalid(0, lower, x0);
+    if (sR === sR) this.setPiece(last, x1, upper, sR, ty[k - 1], upper === Infinity ? -Infinity : ty[k - 1] + sR * (upper - x1), 0, -Infinity, 0);
+    else this.setInvalid(last, x1, upper);
     this.dirty = true;
   }
 
@@ -356,7 +390,10 @@ export class Hull {
     return 0.5 * Math.max(-ya, -yb) * tolL;
   }
 
+  private context = '';
+
   private shapeError(detail: string, a: number, b: number): never {
+    if (this.context !== '') detail = `${this.context}; ${detail}`;
     const hint = this.kind === T_LOG
       ? " (for heavier tails try transform: 'inverse-sqrt'; for several modes use piecewiseSampler)"
       : ' (for several modes use piecewiseSampler)';
@@ -392,6 +429,55 @@ export class Hull {
         x0,
         x2,
       );
+    }
+  }
+
+  /**
+   * Called by the kernel when the target at x was found above the envelope
+   * or below the squeeze. Checks (x, logf(x)) against the neighbouring touch
+   * points with the value-only concavity tests (no derivative needed) and
+   * throws {@link ShapeViolationError} naming the interval when they fail —
+   * which they do whenever the hull was built from correct values, since the
+   * envelope at x is made of the neighbours' tangents or chord extensions and
+   * the squeeze of their chord. Returns when they pass, so that the caller
+   * reports an {@link EnvelopeViolationError}.
+   * @param context - what was found, for the message
+   */
+  explainViolation(x: number, l: number, context: string): void {
+    const k = this.k;
+    const tx = this.tx;
+    const ty = this.ty;
+    const tl = this.tl;
+    let p = 0;
+    while (p < k && tx[p] <= x) p++;
+    this.context = context;
+    try {
+      if (l === -Infinity) {
+        if (p >= 1 && p < k) {
+          this.shapeError(`logDensity(${x}) is -Infinity between touch points of finite log-density, so the support is not an interval`, tx[p - 1], tx[p]);
+        }
+        return;
+      }
+      const y = transformValue(this.kind, l - this.ref);
+      if (p >= 2) this.checkSecantTriple(tx[p - 2], ty[p - 2], tl[p - 2], tx[p - 1], ty[p - 1], tl[p - 1], x, y, l);
+      if (p >= 1 && p < k) this.checkSecantTriple(tx[p - 1], ty[p - 1], tl[p - 1], x, y, l, tx[p], ty[p], tl[p]);
+      if (p + 1 < k) this.checkSecantTriple(x, y, l, tx[p], ty[p], tl[p], tx[p + 1], ty[p + 1], tl[p + 1]);
+      if (this.tangent) {
+        for (let i = p - 1; i <= p; i++) {
+          if (i < 0 || i >= k) continue;
+          const tan = ty[i] + this.ts[i] * (x - tx[i]);
+          const tol = this.tolY(tl[i], l, ty[i], y) + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(this.ts[i] * (x - tx[i]));
+          if (!(tan >= y - tol)) {
+            this.shapeError(
+              `the target lies above the tangent of the transformed density at the touch point ${tx[i]} (slope ${this.ts[i]}, log-density ${tl[i]}, derivative ${this.tg[i]}) at x = ${x} (log-density ${l}); a T-concave target lies below all its tangents (or dLogDensity is wrong)`,
+              Math.min(tx[i], x),
+              Math.max(tx[i], x),
+            );
+          }
+        }
+      }
+    } finally {
+      this.context = '';
     }
   }
 
@@ -551,12 +637,23 @@ export class Hull {
   private outward(side: number, base: number): number {
     const k = this.k;
     if (side < 0) {
-      this.leftStep = this.leftStep > 0 ? 2 * this.leftStep : base;
+      // accelerating steps (×2, ×4, ×8, …): a tail that never decays reaches 1e300 in a few dozen probes
+      if (this.leftStep > 0) {
+        this.leftStep *= this.leftGrowth;
+        this.leftGrowth *= 2;
+      } else {
+        this.leftStep = base;
+      }
       const x = this.tx[0] - this.leftStep;
       if (!(x > -1e300)) this.improper(-1);
       return x > this.lower ? x : this.tx[0] - 0.5 * (this.tx[0] - this.lower);
     }
-    this.rightStep = this.rightStep > 0 ? 2 * this.rightStep : base;
+    if (this.rightStep > 0) {
+      this.rightStep *= this.rightGrowth;
+      this.rightGrowth *= 2;
+    } else {
+      this.rightStep = base;
+    }
     const x = this.tx[k - 1] + this.rightStep;
     if (!(x < 1e300)) this.improper(1);
     return x < this.upper ? x : this.tx[k - 1] + 0.5 * (this.upper - this.tx[k - 1]);

@@ -21,9 +21,10 @@ import { T_LOG } from './transforms.js';
  * squeeze still evaluates). Otherwise logDensity is evaluated (and counted),
  * checked for NaN/+Infinity, against the envelope and against the squeeze
  * (both within the hull tolerance), and the candidate is accepted when
- * u3 < f/envelope. A rejected candidate becomes a touch point while the hull
- * has room (see {@link Hull.insert}); a rejected candidate where the density
- * is 0 outside the touch points shrinks the effective support instead. No
+ * u3 < f/envelope. Every evaluated candidate, accepted or not, becomes a
+ * touch point while the hull has room (the updating step of Gilks & Wild
+ * 1992; see {@link Hull.insert}); one where the density is 0 outside the
+ * touch points shrinks the effective support instead. No
  * allocation happens here; the guide table is rebuilt lazily after insertions.
  * @internal
  */
@@ -102,13 +103,20 @@ export function hullFill(
       if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(api, x, lf);
       const lr = lf - ref;
       const tol = tolBase + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(lr === -Infinity ? 0 : lr);
-      if (lr > lenv + tol) throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');
-      if (lr < lsq - tol) throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
+      if (lr > lenv + tol) {
+        h.explainViolation(x, lf, `target is above the envelope at x = ${x} (log target ${lf}, log envelope ${lenv + ref})`);
+        throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');
+      }
+      if (lr < lsq - tol) {
+        h.explainViolation(x, lf, `target is below the squeeze at x = ${x} (log target ${lf}, log squeeze ${lsq + ref})`);
+        throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
+      }
+      // updating step (Gilks & Wild 1992): every evaluated candidate becomes a touch point
+      adapt(h, x, lf);
       if (u3 < Math.exp(lr - lenv)) {
         out[i] = x;
         break;
       }
-      adapt(h, x, lf);
       if (++rejections >= maxRejections) {
         throw new StalledSamplerError(api, rejections, counters.samples, counters.proposals);
       }
@@ -117,7 +125,7 @@ export function hullFill(
   }
 }
 
-/** Inserts a rejected candidate as a touch point (evaluating the derivative when the hull uses tangents). */
+/** Inserts an evaluated candidate as a touch point (evaluating the derivative when the hull uses tangents). */
 function adapt(h: Hull, x: number, lf: number): void {
   if (lf === -Infinity) {
     h.insert(x, lf, NaN, false);

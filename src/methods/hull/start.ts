@@ -153,7 +153,7 @@ export function automaticStartPoints(s: StartSearch, lower: number, upper: numbe
       const drop = lm === lm ? lm - p.l : useD ? -(p.g - (gm === gm ? gm : 0)) * (x - m) * 0.5 : NaN;
       if (drop >= SIDE_DROP_MIN && drop <= SIDE_DROP_MAX) return;
       let f = drop > 0 ? Math.sqrt(0.5 / drop) : 16;
-      if (f > 16) f = 16;
+      if (f > 1e8) f = 1e8;
       d = dist * f;
       if (!(d > 0)) return;
     }
@@ -251,7 +251,7 @@ function searchWithDerivative(s: StartSearch, probe: (x: number) => Probe, lo: n
           if (newton > 0 && newton < Infinity) step = newton;
         }
       }
-      h = Math.max(4 * h, step);
+      h = Math.max(it < 30 ? 4 * h : h * Math.pow(2, Math.min(it - 28, 60)), step);
       x = p.x + dir * step;
       const bnd = dir > 0 ? hi : lo;
       if (dir > 0 ? !(x < bnd) : !(x > bnd)) {
@@ -276,6 +276,7 @@ function searchWithDerivative(s: StartSearch, probe: (x: number) => Probe, lo: n
       continue;
     }
     if (classify(q)) return done(q, h0);
+    if (it === MODE_SEARCH_MAX_STEPS - 1 && (a === undefined || b === undefined)) improperClimb(s, q, a !== undefined ? 1 : -1);
     if (a !== undefined && b !== undefined) {
       // converged when the Newton correction at q is under half a scale
       const other = q.g > 0 ? b : a;
@@ -320,7 +321,7 @@ function searchWithValues(s: StartSearch, probe: (x: number) => Probe, lo: numbe
   }
   // expand in the ascent direction
   for (let it = 0; it < MODE_SEARCH_MAX_STEPS; it++) {
-    const step = 2 * Math.abs(pB.x - pA.x);
+    const step = Math.abs(pB.x - pA.x) * (it < 30 ? 2 : Math.pow(2, Math.min(it - 28, 60)));
     const bnd = dir > 0 ? hi : lo;
     let x = pB.x + dir * step;
     if (dir > 0 ? !(x < bnd) : !(x > bnd)) {
@@ -344,7 +345,7 @@ function searchWithValues(s: StartSearch, probe: (x: number) => Probe, lo: numbe
     }
     return dir > 0 ? refine(pA, pB, pC) : refine(pC, pB, pA);
   }
-  return done(pB, h0, lo, hi);
+  return improperClimb(s, pB, dir);
 
   function refine(a0: Probe, b0: Probe, c0: Probe): Located {
     let a = a0;

@@ -140,13 +140,13 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     throw new NonFiniteDensityError(api, infiniteAt, Infinity);
   }
 
-  // 2. The mode hint, when given, must be a mode (it becomes the default shift).
+  // 2. The mode hint, when it becomes the shift, must be a mode (within a relative 1e-6 in log f).
   if (t.mode !== undefined) {
     let lm = lf(t.mode);
     const ev = endValue.get(t.mode);
     if (ev !== undefined && ev > lm) lm = ev;
     const tol = 1e-6 * (1 + Math.abs(L));
-    if (!(L - lm <= tol)) {
+    if (shiftOption === undefined && !(L - lm <= tol)) {
       throw new InvalidTargetError(
         `${api}: target.mode = ${t.mode} is not a mode: logDensity there is ${lm}, but logDensity(${argmax}) = ${L} is larger by ${L - lm}; fix the hint, or pass options.shift to choose the shift explicitly`,
       );

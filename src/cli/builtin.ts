@@ -1,0 +1,107 @@
+/**
+ * The built-in benchmark / check suite: exactdraw samplers for common targets
+ * next to @stdlib peers, all drawing from the same kind of MT19937 source.
+ *
+ * @packageDocumentation
+ */
+import ziggurat from '@stdlib/random-base-improved-ziggurat';
+import stdlibGamma from '@stdlib/random-base-gamma';
+import * as ed from '../index.js';
+import type { Sampler, SamplerStats, Uniform } from '../core/types.js';
+import type { SuiteEntry } from './suite.js';
+
+/** A suite entry that is a peer generator, not an exactdraw sampler. */
+export interface BuiltinEntry extends SuiteEntry {
+  /** True for peers (their acceptance and evaluation counts are not reported). */
+  peer?: boolean;
+}
+
+/** Wraps a plain generator function as a Sampler (peers have no rejection counts). */
+function peerSampler(next: () => number): Sampler {
+  let samples = 0;
+  return {
+    sample: () => { samples++; return next(); },
+    fill(out: Float64Array): Float64Array {
+      for (let i = 0; i < out.length; i++) out[i] = next();
+      samples += out.length;
+      return out;
+    },
+    get stats(): SamplerStats {
+      return { samples, proposals: samples, densityEvaluations: 0, setupEvaluations: 0, acceptanceRate: 1 };
+    },
+  };
+}
+
+/** Names of the built-in peers. */
+export const PEERS = {
+  uniform: 'mt19937 uniform (raw)',
+  normal: '@stdlib improved-ziggurat normal',
+  gamma: '@stdlib gamma(2.5)',
+} as const;
+
+/** Worked example: a multimodal unnormalized log-density used across the suite. */
+export function multimodalLogDensity(x: number): number {
+  const s6 = Math.sin(6 * x);
+  const c1 = Math.cos(x);
+  const s4 = Math.sin(4 * x);
+  return -0.5 * x * x + Math.log(s6 * s6 + 3 * c1 * c1 * s4 * s4 + 1);
+}
+
+/** The built-in suite. Entries for methods not in this build are left out. */
+export function builtinSuite(): BuiltinEntry[] {
+  const normal = ed.normalTarget(0, 1);
+  const gamma = ed.gammaTarget(2.5, 1);
+  const list: BuiltinEntry[] = [
+    { name: PEERS.uniform, peer: true, create: (u: Uniform) => peerSampler(u), cdf: (x) => (x <= 0 ? 0 : x >= 1 ? 1 : x) },
+    {
+      name: PEERS.normal,
+      peer: true,
+      create: (u: Uniform) => peerSampler(ziggurat.factory({ prng: u })),
+      cdf: (x) => normal.cdf!(x),
+    },
+    {
+      name: PEERS.gamma,
+      peer: true,
+      create: (u: Uniform) => peerSampler(stdlibGamma.factory(2.5, 1, { prng: u })),
+      cdf: (x) => gamma.cdf!(x),
+    },
+    {
+      name: 'rejection normal / cauchy proposal',
+      reference: PEERS.normal,
+      create: (uniform) => ed.rejectionSampler(normal, { proposal: ed.cauchyProposal(0, 1), uniform }),
+      cdf: (x) => normal.cdf!(x),
+    },
+    {
+      name: 'rejection multimodal / U(-3,3), C = 25',
+      reference: PEERS.uniform,
+      create: (uniform) =>
+        ed.rejectionSampler(
+          { logDensity: (x: number) => (x >= -3 && x <= 3 ? multimodalLogDensity(x) : -Infinity), support: [-3, 3] },
+          { proposal: ed.uniformProposal(-3, 3), logBound: Math.log(25), uniform },
+        ),
+    },
+    {
+      name: 'rejection multimodal / N(0,1), C = 11',
+      reference: PEERS.uniform,
+      create: (uniform) =>
+        ed.rejectionSampler({ logDensity: multimodalLogDensity }, { proposal: ed.normalProposal(0, 1), logBound: Math.log(11), uniform }),
+    },
+  ];
+  const lib = ed as unknown as Record<string, unknown>;
+  const ars = lib['adaptiveRejectionSampler'] as ((t: ed.Target, o: { uniform: Uniform }) => Sampler) | undefined;
+  if (typeof ars === 'function') {
+    list.push(
+      { name: 'adaptive hull normal', reference: PEERS.normal, create: (uniform) => ars(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
+      { name: 'adaptive hull gamma(2.5)', reference: PEERS.gamma, create: (uniform) => ars(gamma, { uniform }), cdf: (x) => gamma.cdf!(x) },
+    );
+  }
+  const rou = lib['ratioOfUniformsSampler'] as ((t: ed.Target, o: { uniform: Uniform }) => Sampler) | undefined;
+  if (typeof rou === 'function') {
+    const t5 = ed.studentTTarget(5);
+    list.push(
+      { name: 'ratio-of-uniforms normal', reference: PEERS.normal, create: (uniform) => rou(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
+      { name: 'ratio-of-uniforms student-t(5)', reference: PEERS.uniform, create: (uniform) => rou(t5, { uniform }), cdf: (x) => t5.cdf!(x) },
+    );
+  }
+  return list;
+}

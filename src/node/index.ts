@@ -1,0 +1,10 @@
+/**
+ * Node-only entry `exactdraw/node`: parallel fills over worker threads and the
+ * sampler-suite module format shared with the `exactdraw` command.
+ *
+ * @packageDocumentation
+ */
+export { fillParallel } from './fill-parallel.js';
+export type { ParallelSamplerSpec, FillParallelOptions } from './fill-parallel.js';
+export { loadSuite, validateSuite } from '../cli/suite.js';
+export type { SuiteEntry } from '../cli/suite.js';

@@ -1,0 +1,52 @@
+/**
+ * Partitioned fills: the substream scheme that makes parallel and distributed
+ * runs reproducible.
+ *
+ * @packageDocumentation
+ */
+import { InvalidTargetError } from '../core/errors.js';
+import type { Sampler, Uniform } from '../core/types.js';
+import { substream } from './substream.js';
+
+/**
+ * Index range `[start, end)` of part `part` when `length` draws are split into
+ * `parts` contiguous parts: `start = floor(part·length/parts)`.
+ *
+ * @param length - total number of draws
+ * @param parts - number of parts (workers, processes, machines)
+ * @param part - index of the part, 0-based
+ */
+export function partRange(length: number, parts: number, part: number): [number, number] {
+  return [Math.floor((part * length) / parts), Math.floor(((part + 1) * length) / parts)];
+}
+
+/**
+ * Fills `out` in `parts` contiguous parts, part k drawn by a fresh sampler
+ * `create(substream(seed, k))`. This is, by definition, the result that
+ * `fillParallel` from `exactdraw/node` returns for the same seed and worker
+ * count, so a parallel run can be checked or replayed in one thread.
+ *
+ * @remarks
+ * The same scheme partitions work across processes or machines in any job
+ * engine: job k of K computes `partRange(n, K, k)`, builds its sampler on
+ * `substream(seed, k)` and fills its range; concatenating the parts in order
+ * gives the same array as a single `partitionedFill(create, out, K, seed)`.
+ * The result depends on (seed, parts), not on scheduling.
+ *
+ * @param create - builds a sampler from a uniform source
+ * @param out - array to fill
+ * @param parts - number of parts (integer ≥ 1)
+ * @param seed - integer seed in [0, 2^53 − 1]
+ * @returns `out`
+ * @throws {@link InvalidTargetError} for bad arguments
+ */
+export function partitionedFill(create: (uniform: Uniform) => Sampler, out: Float64Array, parts: number, seed: number): Float64Array {
+  if (typeof create !== 'function') throw new InvalidTargetError(`partitionedFill: create must be a function (uniform) => Sampler, got ${typeof create}`);
+  if (!(out instanceof Float64Array)) throw new InvalidTargetError('partitionedFill: out must be a Float64Array');
+  if (!Number.isInteger(parts) || parts < 1) throw new InvalidTargetError(`partitionedFill: parts must be an integer >= 1, got ${String(parts)}`);
+  for (let k = 0; k < parts; k++) {
+    const [a, b] = partRange(out.length, parts, k);
+    if (b > a) create(substream(seed, k)).fill(out.subarray(a, b));
+  }
+  return out;
+}
