@@ -24,14 +24,15 @@ import type { TransformName } from './hull/transforms.js';
  * @remarks
  * The envelope has two pieces per touch point. With tangents the area
  * between envelope and target shrinks roughly like 1/k² in the number k of
- * well-placed touch points (common practice; Gilks & Wild 1992 report a few
- * evaluations per draw from k ≈ 5 on), so that past a few dozen points
+ * well-placed touch points (common practice: the error of piecewise-linear
+ * approximation of a smooth concave function), so that past a few dozen points
  * almost every draw is accepted under the squeeze; the cap bounds the memory
- * (about 17 numbers per piece) and the O(pieces) work each insertion costs
+ * (about 20 numbers per piece) and the O(pieces) work each insertion costs
  * (shifting the arrays and rebuilding the guide table) for samplers that run
- * for millions of draws. After 10,000 standard normal draws the sampler has
- * well under 50 touch points and evaluates the target at well under 2 % of
- * draws (see the tests).
+ * for millions of draws. A standard normal sampler reaches the 50 touch
+ * points within its first 10,000 draws and from then on evaluates the target
+ * at about 0.3 % of draws (measured in the tests: 0.6 % over the first
+ * 10,000 draws, 0.3 % over the next 10,000).
  */
 export const DEFAULT_MAX_PIECES = 100;
 
@@ -49,7 +50,7 @@ export interface AdaptiveRejectionOptions extends SamplerOptions {
    */
   startPoints?: readonly number[];
   /**
-   * Number of envelope pieces (two per touch point) after which rejected
+   * Number of envelope pieces (two per touch point) after which evaluated
    * candidates stop being added as touch points. Setup may exceed it when
    * the target needs more points for a valid envelope; adaptation then stops.
    * @defaultValue {@link DEFAULT_MAX_PIECES} (100)
@@ -95,21 +96,33 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  * for `'inverse-sqrt'` (also Student-t with df ≥ 1). The envelope is built
  * from tangents of T(f) when the target has `dLogDensity` (and
  * `derivativeFree` is not set), from secants otherwise; the squeeze from the
- * chords between touch points (none on the tails). A candidate under the
- * squeeze is accepted without evaluating the target; every evaluated
- * candidate is checked against the envelope and the squeeze (tolerance
- * {@link HULL_LOG_TOLERANCE_ABSOLUTE}), and every rejected one becomes a new
- * touch point until `maxPieces`, rebuilding only the neighbouring pieces.
- * Every touch point is checked against its neighbours: slopes of T(f) must not
- * increase, else {@link ShapeViolationError} names the interval.
+ * chords between touch points (none on the tails).
+ *
+ * Drawing: a candidate under the squeeze is accepted without evaluating the
+ * target. Every evaluated candidate is checked for NaN/+Infinity, against
+ * the envelope and against the squeeze (tolerance
+ * {@link HULL_LOG_TOLERANCE_ABSOLUTE}), and — accepted or not — becomes a new
+ * touch point (the updating step of Gilks & Wild 1992) until `maxPieces`;
+ * only the neighbouring pieces are rebuilt. Every new touch point is checked
+ * against its neighbours: the slopes of T(f) must not increase, otherwise
+ * {@link ShapeViolationError} names the interval. A target found above the
+ * envelope or below the squeeze is reported as {@link ShapeViolationError}
+ * when that point, together with its neighbouring touch points, proves the
+ * shape assumption wrong (the usual cause, since the hull is built from the
+ * target's own values), and as {@link EnvelopeViolationError} otherwise.
+ *
+ * Setup: start points come from `startPoints`, or from the mode hint and a
+ * curvature-scaled placement on both sides, or from a search when there is no
+ * hint; points are added until the envelope is integrable (tails that never
+ * decay throw {@link ImproperDensityError}).
  *
  * Stream: each candidate consumes three uniforms (piece, position in the
  * piece, acceptance). Counts: `stats.setupEvaluations` counts `logDensity`
  * calls of the setup, `stats.densityEvaluations` those while sampling;
  * `dLogDensity` calls are reported in `envelope.derivativeEvaluations`.
  * After a {@link ShapeViolationError}, {@link EnvelopeViolationError} or
- * {@link NonFiniteDensityError} the sampler is unusable: every later call
- * throws the same error.
+ * {@link NonFiniteDensityError} while drawing, the sampler is unusable: every
+ * later call throws the same error. Since 0.1.0.
  *
  * @param target - a T-concave target
  * @param options - start points, piece cap, construction, transform, uniform source
@@ -118,15 +131,14 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  * @throws {@link ShapeViolationError} when setup (or, later, adaptation) proves the target not T-concave
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity (or dLogDensity NaN)
- * @throws {@link EnvelopeViolationError} at draw time, when the target is found above the envelope or below the squeeze
+ * @throws {@link EnvelopeViolationError} at draw time, when the target is found above the envelope or below the squeeze without a shape explanation
  * @throws {@link StalledSamplerError} after `maxRejections` consecutive rejections
  * @example
  * ```ts
  * const s = adaptiveRejectionSampler(gammaTarget(2.5), { seed: 1 });
  * const xs = s.fill(new Float64Array(10_000));
- * s.envelope.touchPoints.length; // grows with the first rejections, then stays
+ * s.envelope.touchPoints.length; // grows with the first evaluations, then stays
  * ```
- * @remarks Since 0.1.0
  */
 export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejectionOptions): AdaptiveRejectionSampler {
   const api = 'adaptiveRejectionSampler';

@@ -39,7 +39,7 @@ export const HULL_LOG_TOLERANCE_RELATIVE = 1e-12;
  */
 export const INV_SQRT_MIN_RELATIVE_LOG_HEIGHT = -600;
 
-/** Largest relative log height accepted for the hull during setup before a point is added where it peaks. @internal */
+/** How far (in log units) the hull may rise above the highest touch point during setup before a point is added where it peaks. @internal */
 export const SETUP_MAX_RELATIVE_HEIGHT = 600;
 
 /** Result codes of {@link Hull.insert}. @internal */
@@ -225,36 +225,36 @@ export class Hull {
   }
 
   /**
-   * Sets piece j on [lo, hi] with a line of slope `sl` whose values at the
-   * two ends are `vLo` and `vHi` (computed by the caller in the
-   * best-conditioned way). The line is stored anchored at its high end, so
-   * that the kernel evaluates `tHigh − |sl|·distance` — two terms of the same
-   * sign, without cancellation even when a steep line falls from a huge
-   * transformed value. The squeeze chord is given the same way, anchored at
-   * its higher touch point.
+   * Sets piece j on [lo, hi] with the line `at + sl·(x − ax)`, anchored at
+   * the touch point the line belongs to (its tangent point, or the chord's
+   * end point). Keeping the exact line — rather than re-anchoring it at the
+   * rounded intersection z with its neighbour — matters: with sd 1e-6 at
+   * location 1e6 the rounding of z (1.2e-10) times a tangent slope of 5e6
+   * would shift the line by 6e-4 in log units at its own touch point, where
+   * it must touch the target. The value at the high end, used for the area
+   * and the inversion, comes from the same line. The squeeze chord is given
+   * anchored at its higher touch point.
    */
-  private setPiece(j: number, lo: number, hi: number, sl: number, vLo: number, vHi: number, sqx: number, sqt: number, sqs: number): void {
+  private setPiece(j: number, lo: number, hi: number, ax: number, at: number, sl: number, sqx: number, sqt: number, sqs: number): void {
     let hx: number;
     let dir: number;
-    let th: number;
     if (sl > 0) {
       hx = hi;
       dir = -1;
-      th = vHi;
     } else {
       hx = lo;
       dir = 1;
-      th = vLo;
     }
-    // a line rising towards an infinite end (or flat on an infinite piece) is not integrable
-    if (hx === Infinity || hx === -Infinity || !(sl === sl) || !(th === th)) th = Infinity;
     const w = hi - lo;
     const s = Math.abs(sl);
+    // a line rising towards an infinite end (or flat on an infinite piece) is not integrable
+    let th = hx === Infinity || hx === -Infinity || !(sl === sl) ? Infinity : at + sl * (hx - ax);
+    if (!(th === th)) th = Infinity;
     const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
     this.lo[j] = lo;
     this.hi[j] = hi;
-    this.ax[j] = hx;
-    this.at[j] = th;
+    this.ax[j] = ax;
+    this.at[j] = at;
     this.sl[j] = sl;
     this.sqx[j] = sqx;
     this.sqt[j] = sqt;
@@ -270,14 +270,40 @@ export class Hull {
   }
 
   private setInvalid(j: number, lo: number, hi: number): void {
-    this.setPiece(j, lo, hi, NaN, Infinity, Infinity, lo, -Infinity, 0);
+    this.setPiece(j, lo, hi, lo, Infinity, NaN, lo, -Infinity, 0);
   }
 
-  /** Value at z of two lines through (a, ya) with slope sa and (b, yb) with slope sb: the evaluation with the smaller rounding bound. */
-  private static meet(a: number, ya: number, sa: number, b: number, yb: number, sb: number, z: number): number {
-    const da = sa * (z - a);
-    const db = sb * (b - z);
-    return Math.abs(ya) + Math.abs(da) <= Math.abs(yb) + Math.abs(db) ? ya + da : yb - db;
+  /**
+   * Where the envelope switches from the line through (a, ya) with slope sa
+   * to the line through (b, yb) with slope sb, given the crossing fraction f
+   * of [a, b]. Under T(f) = −1/√f a line that rises steeply from a very low
+   * touch point reaches values near 0 only through cancellation
+   * (−1e25 + 1e25), so each line is kept within its "safe reach", where
+   * |t| ≥ 1e-4·|y| at its touch point (and |t| exceeds the line's change
+   * over 8 ulps of x): its own evaluation then keeps a relative precision of
+   * about 1e-12. Any split point gives a valid
+   * envelope (each line lies above the target everywhere); moving it off the
+   * crossing only loosens the envelope slightly.
+   */
+  private split(a: number, ya: number, sa: number, b: number, yb: number, sb: number, f: number): number {
+    let z = a + f * (b - a);
+    if (z > b) z = b;
+    if (this.kind !== T_LOG) {
+      // keep |t| above 1e-4·|y| and above the change of the line over 8 ulps of x
+      const ulp = Math.max(Math.abs(a), Math.abs(b)) * 2.220446049250313e-16;
+      let reachA = Infinity;
+      if (sa > 0) {
+        const keep = Math.max(1e-4 * -ya, 8 * sa * ulp);
+        reachA = a + Math.max(0, (-ya - keep) / sa);
+        if (z > reachA) z = reachA;
+      }
+      if (sb < 0) {
+        const keep = Math.max(1e-4 * -yb, 8 * -sb * ulp);
+        const reachB = b - Math.max(0, (-yb - keep) / -sb);
+        if (z < reachB && reachB <= reachA) z = reachB;
+      }
+    }
+    return z;
   }
 
   /** Rebuilds the two pieces of interval i (touch points i and i + 1). */
@@ -295,17 +321,25 @@ export class Hull {
     // squeeze: the chord, anchored at its higher end
     const sqx = ya >= yb ? a : b;
     const sqt = ya >= yb ? ya : yb;
+    const mid = a + 0.5 * w;
+    if (mid === a || mid === b) {
+      // a and b are adjacent doubles: every candidate in [a, b] rounds to a or
+      // b, so a flat line at the higher of the two values bounds the target at
+      // every point the sampler can return (a target whose scale is below the
+      // resolution of doubles, e.g. sd 1e-9 at 1e9, lives on such intervals)
+      this.setPiece(jA, a, b, sqx, sqt, 0, sqx, sqt, mi);
+      this.setPiece(jB, b, b, b, yb, 0, sqx, sqt, mi);
+      return;
+    }
     if (this.tangent) {
       const s0 = this.ts[i];
       const s1 = this.ts[i + 1];
       let f = s0 - s1 > 0 ? (mi - s1) / (s0 - s1) : 0.5;
       if (!(f >= 0)) f = f < 0 ? 0 : 0.5;
       else if (f > 1) f = 1;
-      let z = a + f * w;
-      if (z > b) z = b;
-      const tz = Hull.meet(a, ya, s0, b, yb, s1, z);
-      this.setPiece(jA, a, z, s0, ya, tz, sqx, sqt, mi);
-      this.setPiece(jB, z, b, s1, tz, yb, sqx, sqt, mi);
+      const z = this.split(a, ya, s0, b, yb, s1, f);
+      this.setPiece(jA, a, z, a, ya, s0, sqx, sqt, mi);
+      this.setPiece(jB, z, b, b, yb, s1, sqx, sqt, mi);
       return;
     }
     const k = this.k;
@@ -317,25 +351,21 @@ export class Hull {
       let f = mL - mR > 0 ? (mi - mR) / (mL - mR) : 0.5;
       if (!(f >= 0)) f = f < 0 ? 0 : 0.5;
       else if (f > 1) f = 1;
-      let z = a + f * w;
-      if (z > b) z = b;
-      const tz = Hull.meet(a, ya, mL, b, yb, mR, z);
-      this.setPiece(jA, a, z, mL, ya, tz, sqx, sqt, mi);
-      this.setPiece(jB, z, b, mR, tz, yb, sqx, sqt, mi);
+      const z = this.split(a, ya, mL, b, yb, mR, f);
+      this.setPiece(jA, a, z, a, ya, mL, sqx, sqt, mi);
+      this.setPiece(jB, z, b, b, yb, mR, sqx, sqt, mi);
     } else if (hasR) {
       // only the chord on the right, extended backwards through b
       const mR = this.chord(i + 1);
       const z = a + 0.5 * w;
-      const vz = yb - mR * (b - z);
-      this.setPiece(jA, a, z, mR, yb - mR * w, vz, sqx, sqt, mi);
-      this.setPiece(jB, z, b, mR, vz, yb, sqx, sqt, mi);
+      this.setPiece(jA, a, z, b, yb, mR, sqx, sqt, mi);
+      this.setPiece(jB, z, b, b, yb, mR, sqx, sqt, mi);
     } else if (hasL) {
       // only the chord on the left, extended forwards through a
       const mL = this.chord(i - 1);
       const z = a + 0.5 * w;
-      const vz = ya + mL * (z - a);
-      this.setPiece(jA, a, z, mL, ya, vz, sqx, sqt, mi);
-      this.setPiece(jB, z, b, mL, vz, ya + mL * w, sqx, sqt, mi);
+      this.setPiece(jA, a, z, a, ya, mL, sqx, sqt, mi);
+      this.setPiece(jB, z, b, a, ya, mL, sqx, sqt, mi);
     } else {
       // two secant points bound nothing between them
       this.setInvalid(jA, a, a + 0.5 * w);
@@ -351,14 +381,10 @@ export class Hull {
     const last = 2 * k - 1;
     const sL = this.leftTailSlope();
     const sR = this.rightTailSlope();
-    const lower = this.lower;
-    const upper = this.upper;
-    const x0 = tx[0];
-    const x1 = tx[k - 1];
-    if (sL === sL) this.setPiece(0, lower, x0, sL, lower === -Infinity ? -Infinity : ty[0] + sL * (lower - x0), ty[0], 0, -Infinity, 0);
-    else this.setInvalid(0, lower, x0);
-    if (sR === sR) this.setPiece(last, x1, upper, sR, ty[k - 1], upper === Infinity ? -Infinity : ty[k - 1] + sR * (upper - x1), 0, -Infinity, 0);
-    else this.setInvalid(last, x1, upper);
+    if (sL === sL) this.setPiece(0, this.lower, tx[0], tx[0], ty[0], sL, 0, -Infinity, 0);
+    else this.setInvalid(0, this.lower, tx[0]);
+    if (sR === sR) this.setPiece(last, tx[k - 1], this.upper, tx[k - 1], ty[k - 1], sR, 0, -Infinity, 0);
+    else this.setInvalid(last, tx[k - 1], this.upper);
     this.dirty = true;
   }
 
@@ -608,8 +634,10 @@ export class Hull {
       return this.towardBound(1);
     }
     // the hull must not rise far above the touch points
+    let topTouch = -Infinity;
+    for (let i = 0; i < k; i++) if (this.tl[i] > topTouch) topTouch = this.tl[i];
     let worst = -1;
-    let worstH = SETUP_MAX_RELATIVE_HEIGHT;
+    let worstH = topTouch - this.ref + SETUP_MAX_RELATIVE_HEIGHT;
     const last = 2 * k - 1;
     for (let j = 0; j <= last; j++) {
       if (!(this.wd[j] > 0)) continue;

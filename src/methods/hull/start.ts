@@ -119,12 +119,14 @@ export function automaticStartPoints(s: StartSearch, lower: number, upper: numbe
     hi = r.hi;
   }
 
+  let lastDist = NaN;
   const side = (dir: number): void => {
     if (dir > 0 ? !(m < hi) : !(m > lo)) return;
     let d = scale;
     const atEnd = m === lower || m === upper;
     if (atEnd && gm === gm && gm * dir < 0 && Number.isFinite(gm)) d = 1 / Math.abs(gm);
     let lastX = NaN;
+    let climbs = 0;
     for (let it = 0; it < SIDE_MAX_STEPS; it++) {
       const bnd = dir > 0 ? hi : lo;
       let x = m + dir * d;
@@ -143,13 +145,18 @@ export function automaticStartPoints(s: StartSearch, lower: number, upper: numbe
       }
       const climbing = useD ? p.g * dir > 0 : lm === lm ? p.l > lm : false;
       if (climbing) {
+        // the mode lies further out: move the estimate, with accelerating steps
+        if (!(Math.abs(x) < FAR)) improperClimb(s, p, dir);
         m = x;
         lm = p.l;
         gm = p.g;
-        d *= 2;
+        climbs++;
+        d *= climbs < 30 ? 2 : Math.pow(2, Math.min(climbs - 28, 60));
+        if (it === SIDE_MAX_STEPS - 1) improperClimb(s, p, dir);
         continue;
       }
       const dist = Math.abs(x - m);
+      lastDist = dist;
       const drop = lm === lm ? lm - p.l : useD ? -(p.g - (gm === gm ? gm : 0)) * (x - m) * 0.5 : NaN;
       if (drop >= SIDE_DROP_MIN && drop <= SIDE_DROP_MAX) return;
       let f = drop > 0 ? Math.sqrt(0.5 / drop) : 16;
@@ -159,6 +166,8 @@ export function automaticStartPoints(s: StartSearch, lower: number, upper: numbe
     }
   };
   side(1);
+  // the other side starts from the distance found on this one
+  if (lastDist > 0 && lastDist < Infinity) scale = lastDist;
   side(-1);
   return { probes, scale };
 }

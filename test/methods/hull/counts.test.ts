@@ -1,0 +1,49 @@
+/**
+ * Counts, not times: density evaluations per draw at steady state, and the
+ * Gibbs-style workload of fresh targets taking one draw each.
+ */
+import { describe, expect, it } from 'vitest';
+import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
+import { mersenneTwister } from '../../../src/random/mersenne-twister.js';
+import { gammaTarget } from '../../../src/targets/gamma.js';
+import { normalTarget } from '../../../src/targets/normal.js';
+
+describe('adaptiveRejectionSampler evaluation counts', () => {
+  it('adaptiveRejectionSampler(normal(0, 1)): after 10,000 draws fewer than 0.02 density evaluations per draw', () => {
+    const s = adaptiveRejectionSampler(normalTarget(0, 1), { seed: 1 });
+    s.fill(new Float64Array(10_000));
+    const a = s.stats;
+    s.fill(new Float64Array(10_000));
+    const b = s.stats;
+    const overall = a.densityEvaluations / a.samples; // draws 1..10,000, adaptation included
+    const steady = (b.densityEvaluations - a.densityEvaluations) / (b.samples - a.samples); // draws 10,001..20,000
+    console.log(
+      `normal(0,1): evaluations per draw over the first 10,000 draws ${overall.toFixed(5)}, over draws 10,001-20,000 ${steady.toFixed(5)}; setup ${a.setupEvaluations}; touch points ${s.envelope.touchPoints.length}`,
+    );
+    expect(overall).toBeLessThan(0.02);
+    expect(steady).toBeLessThan(0.02);
+  });
+
+  it('adaptiveRejectionSampler(gamma): 1,000 fresh targets (shapes in [1, 50]) taking one draw each cost at most 6 evaluations per draw, setup included', () => {
+    const u = mersenneTwister(2024);
+    const fresh = (derivativeFree: boolean): { evals: number; derivatives: number } => {
+      let evals = 0;
+      let derivatives = 0;
+      for (let i = 0; i < 1000; i++) {
+        const shape = 1 + 49 * u();
+        const s = adaptiveRejectionSampler(gammaTarget(shape, 1), { seed: i + 1, derivativeFree });
+        s.sample();
+        const st = s.stats;
+        evals += st.setupEvaluations + st.densityEvaluations;
+        derivatives += s.envelope.derivativeEvaluations;
+      }
+      return { evals: evals / 1000, derivatives: derivatives / 1000 };
+    };
+    const tangent = fresh(false);
+    const secant = fresh(true);
+    console.log(
+      `Gibbs-style gamma workload: logDensity calls per fresh draw ${tangent.evals.toFixed(3)} with tangents (plus ${tangent.derivatives.toFixed(3)} dLogDensity calls), ${secant.evals.toFixed(3)} derivative-free`,
+    );
+    expect(tangent.evals).toBeLessThanOrEqual(6);
+  });
+});
