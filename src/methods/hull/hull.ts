@@ -476,6 +476,8 @@ export class Hull {
     const tl = this.tl;
     let p = 0;
     while (p < k && tx[p] <= x) p++;
+    // at a touch point the target disagrees with its own earlier value: not a shape question
+    if (p >= 1 && tx[p - 1] === x) return;
     this.context = context;
     try {
       if (l === -Infinity) {

@@ -154,3 +154,28 @@ describe('adaptiveRejectionSampler envelope properties (fast-check)', () => {
     property(studentCase, { transform: 'inverse-sqrt', derivativeFree: true }, 107);
   });
 });
+
+/** The same target without its mode hint, so that setup has to search for the mode. */
+function withoutHint(make: (u: readonly number[]) => { t: Target; points: number[] }): (u: readonly number[]) => { t: Target; points: number[] } {
+  return (u) => {
+    const { t, points } = make(u);
+    const bare: Target = { logDensity: (x) => t.logDensity(x), support: t.support };
+    if (t.dLogDensity !== undefined) {
+      const d = t.dLogDensity.bind(t);
+      return { t: { ...bare, dLogDensity: d }, points };
+    }
+    return { t: bare, points };
+  };
+}
+
+describe('adaptiveRejectionSampler envelope properties without a mode hint (fast-check)', () => {
+  for (const derivativeFree of [false, true]) {
+    const label = derivativeFree ? 'secant' : 'tangent';
+    it(`adaptiveRejectionSampler(normal, gamma, beta, truncations; no mode hint) envelope >= target >= squeeze (${label})`, () => {
+      property(withoutHint(normalCase), { derivativeFree }, 201);
+      property(withoutHint(gammaCase), { derivativeFree }, 202);
+      property(withoutHint(betaCase), { derivativeFree, transform: 'inverse-sqrt' }, 203);
+      property(withoutHint(truncatedCase), { derivativeFree }, 204);
+    });
+  }
+});

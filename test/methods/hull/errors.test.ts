@@ -201,3 +201,32 @@ describe('adaptiveRejectionSampler bad inputs', () => {
     expect(() => s.sample()).toThrow(StalledSamplerError);
   });
 });
+
+describe('adaptiveRejectionSampler envelope violations', () => {
+  it('adaptiveRejectionSampler throws EnvelopeViolationError when the target changes its value at a touch point', () => {
+    // a target that rises by 1 after setup; the injected uniforms pick the right tail
+    // (u1 near 1), put the candidate on its touch point (u2 = 0) and do not accept (u3 = 0.5)
+    let calls = 0;
+    let setup = Infinity;
+    const t: Target = {
+      logDensity: (x) => (calls++ >= setup ? 1 : 0) - 0.5 * x * x,
+      dLogDensity: (x) => -x,
+      mode: 0,
+    };
+    const seq = [0.999999, 0, 0.5];
+    let i = 0;
+    const s = adaptiveRejectionSampler(t, { uniform: () => seq[i++ % 3] });
+    setup = calls;
+    let err: unknown;
+    try {
+      s.sample();
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(EnvelopeViolationError);
+    const ev = err as EnvelopeViolationError;
+    expect(ev.x).toBe(s.envelope.touchPoints[s.envelope.touchPoints.length - 1]);
+    expect(ev.logTarget).toBeGreaterThan(ev.logEnvelope);
+    expect(ev.message).toContain('above the envelope');
+  });
+});
