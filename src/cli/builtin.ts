@@ -87,21 +87,19 @@ export function builtinSuite(): BuiltinEntry[] {
         ed.rejectionSampler({ logDensity: multimodalLogDensity }, { proposal: ed.normalProposal(0, 1), logBound: Math.log(11), uniform }),
     },
   ];
-  const lib = ed as unknown as Record<string, unknown>;
-  const ars = lib['adaptiveRejectionSampler'] as ((t: ed.Target, o: { uniform: Uniform }) => Sampler) | undefined;
-  if (typeof ars === 'function') {
-    list.push(
-      { name: 'adaptive hull normal', reference: PEERS.normal, create: (uniform) => ars(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
-      { name: 'adaptive hull gamma(2.5)', reference: PEERS.gamma, create: (uniform) => ars(gamma, { uniform }), cdf: (x) => gamma.cdf!(x) },
-    );
-  }
-  const rou = lib['ratioOfUniformsSampler'] as ((t: ed.Target, o: { uniform: Uniform }) => Sampler) | undefined;
-  if (typeof rou === 'function') {
-    const t5 = ed.studentTTarget(5);
-    list.push(
-      { name: 'ratio-of-uniforms normal', reference: PEERS.normal, create: (uniform) => rou(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
-      { name: 'ratio-of-uniforms student-t(5)', reference: PEERS.uniform, create: (uniform) => rou(t5, { uniform }), cdf: (x) => t5.cdf!(x) },
-    );
-  }
+  const t5 = ed.studentTTarget(5);
+  const t3 = ed.studentTTarget(3);
+  list.push(
+    { name: 'adaptive hull normal', reference: PEERS.normal, create: (uniform) => ed.adaptiveRejectionSampler(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
+    { name: 'adaptive hull gamma(2.5)', reference: PEERS.gamma, create: (uniform) => ed.adaptiveRejectionSampler(gamma, { uniform }), cdf: (x) => gamma.cdf!(x) },
+    {
+      name: 'adaptive hull student-t(3), inverse-sqrt',
+      reference: PEERS.uniform,
+      create: (uniform) => ed.adaptiveRejectionSampler(t3, { uniform, transform: 'inverse-sqrt' }),
+      cdf: (x) => t3.cdf!(x),
+    },
+    { name: 'ratio-of-uniforms normal', reference: PEERS.normal, create: (uniform) => ed.ratioOfUniformsSampler(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
+    { name: 'ratio-of-uniforms student-t(5)', reference: PEERS.uniform, create: (uniform) => ed.ratioOfUniformsSampler(t5, { uniform }), cdf: (x) => t5.cdf!(x) },
+  );
   return list;
 }

@@ -49,8 +49,9 @@ interface StdlibPrng {
 }
 
 function wrap(prng: StdlibPrng): MersenneTwister {
-  const normalized = prng.normalized;
-  const u = (() => normalized()) as MersenneTwister;
+  // The stdlib generator function itself is the uniform (no extra call per
+  // draw); the exactdraw members are attached to it.
+  const u = prng.normalized as unknown as MersenneTwister;
   Object.defineProperty(u, 'uint32', { value: () => prng(), enumerable: true });
   Object.defineProperty(u, 'saveState', {
     value: (): MersenneTwisterState => ({ format: STATE_FORMAT, version: 1, words: Array.from(prng.state) }),
