@@ -43,7 +43,7 @@ export interface FillParallelOptions {
  * @param out - array to fill
  * @param opts - worker count and seed
  * @returns a promise of `out`
- * @throws {@link InvalidTargetError} for bad arguments; a worker's error rejects the promise
+ * @throws InvalidTargetError (from `exactdraw`) for bad arguments; a worker's error rejects the promise
  */
 export async function fillParallel(spec: ParallelSamplerSpec, out: Float64Array, opts: FillParallelOptions = {}): Promise<Float64Array> {
   const api = 'fillParallel';
