@@ -83,23 +83,37 @@ export interface ScanResult {
   core: [number, number];
 }
 
-/** Doublings of a ray beyond which a ray stops as soon as the density decreases (2^64 units). */
+/**
+ * Doublings of a ray (of 2^−40·max(1, |centre|)) beyond which it stops as
+ * soon as the density has decreased three times in a row: the rays reach
+ * 2^64·max(1, |centre|) ≈ 1.8e19·max(1, |centre|) on both sides, so a second
+ * mode far from the first is still seen (as a rise between two probes).
+ */
 const RAY_SOFT_STEPS = 104;
 /** Hard bound on the doublings of a ray (beyond it x overflows anyway). */
 const RAY_HARD_STEPS = 1200;
-/** A ray stops once the log-density is this far below the maximum and still decreasing. */
-const RAY_DROP = 1000;
-/** The uniform grid covers the window where ray probes are within this of the maximum (or rising). */
-const CORE_DROP = 40;
+/** Probes per doubling of a ray (ratio √2 between consecutive distances). */
+const RAY_PER_OCTAVE = 2;
+/**
+ * The uniform grids: one per level, each over the window where ray probes
+ * are within e^drop of the maximum (or rising), with an equal share of the
+ * scan points. Nested windows give fine resolution near the mass whatever
+ * the tails: for a Gaussian body they are all a few sd wide, for a Cauchy
+ * body the inner ones are.
+ */
+const CORE_DROPS = [5, 10, 20, 40, 80] as const;
 /** Geometric probes towards a finite end of the support. */
 const APPROACH_STEPS = 64;
 
 /**
  * Scans the target: a centre (the mode hint or a global maximisation),
- * geometric rays from it to both ends (which see features at every scale
- * and the decay of the tails), geometric approaches to finite ends (which
- * reveal a density unbounded there), a uniform grid of `corePoints` points
- * over the window holding the visible mass, and the caller's extra points.
+ * geometric rays from it to both ends with two probes per doubling of the
+ * distance (which see features at every scale and the decay of the tails),
+ * geometric approaches to finite ends (which reveal a density unbounded
+ * there), uniform grids sharing `corePoints` points over nested windows
+ * holding the visible mass (each twice as far from the centre as the
+ * outermost ray probe within e^5, e^10, e^20, e^40, e^80 of the maximum or
+ * above its predecessor), and the caller's extra points.
  * @internal
  */
 export function scanTarget(
@@ -150,8 +164,8 @@ export function scanTarget(
     let dec = 0;
     let zeros = 0;
     let stopped = false;
-    for (let k = 0; k <= RAY_HARD_STEPS; k++) {
-      const x = centre + dir * unit * Math.pow(2, k);
+    for (let k = 0; k <= RAY_HARD_STEPS * RAY_PER_OCTAVE; k++) {
+      const x = centre + dir * unit * Math.pow(2, k / RAY_PER_OCTAVE);
       if (!Number.isFinite(x)) break;
       if (dir > 0 ? x >= end : x <= end) break;
       if (x === prevX) continue;
@@ -165,8 +179,7 @@ export function scanTarget(
       prevX = x;
       if (l > -Infinity) prevL = l;
       if (zeros >= 3) { stopped = true; break; }
-      if (l > -Infinity && l < logMax - RAY_DROP && dec >= 3) { stopped = true; break; }
-      if (k >= RAY_SOFT_STEPS && dec >= 3) { stopped = true; break; }
+      if (k >= RAY_SOFT_STEPS * RAY_PER_OCTAVE && dec >= 3) { stopped = true; break; }
     }
     if (Number.isFinite(end)) {
       // Approach the finite end geometrically, then the end itself.
@@ -199,38 +212,51 @@ export function scanTarget(
     return out;
   }
 
-  // The window that gets the uniform grid: up to one probe beyond the outermost
-  // probe that is within CORE_DROP of the maximum or higher than the probe before it.
-  const coreUp = coreEnd(rayUp, upper);
-  const coreDown = coreEnd(rayDown, lower);
-  function coreEnd(r: ScanPoint[], end: number): number {
+  // The windows that get uniform grids: twice the distance from the centre to
+  // the outermost ray probe that is within e^drop of the maximum or higher
+  // than the probe before it (within the support).
+  function coreEnd(r: ScanPoint[], end: number, dir: 1 | -1, drop: number): number {
     let j = -1;
     let prev = lc;
     for (let i = 0; i < r.length; i++) {
       const l = r[i].l;
-      if (l >= logMax - CORE_DROP || l > prev) j = i;
+      if (l >= logMax - drop || l > prev) j = i;
       prev = l;
     }
-    if (j + 1 < r.length) return r[j + 1].x;
-    return r.length > 0 ? r[r.length - 1].x : Number.isFinite(end) ? end : centre;
+    const d = j >= 0 ? Math.abs(r[j].x - centre) : r.length > 0 ? Math.abs(r[0].x - centre) : 0;
+    const x = centre + dir * 2 * d;
+    if (Number.isFinite(end) && (dir > 0 ? x > end : x < end)) return end;
+    return Number.isFinite(x) ? x : dir * Number.MAX_VALUE;
   }
   for (const p of rayUp) all.push(p);
   for (const p of rayDown) all.push(p);
-  const a = coreDown;
-  const b = coreUp;
-  if (b > a) {
-    for (let i = 1; i <= corePoints; i++) {
-      const s = i / (corePoints + 1);
-      const x = a * (1 - s) + b * s;
-      if (x > a && x < b) all.push({ x, l: ev.l(x), g: NaN });
+  const levels = CORE_DROPS.length;
+  let a = Infinity;
+  let b = -Infinity;
+  for (let k = 0; k < levels; k++) {
+    const lo = coreEnd(rayDown, lower, -1, CORE_DROPS[k]);
+    const hi = coreEnd(rayUp, upper, +1, CORE_DROPS[k]);
+    if (lo < a) a = lo;
+    if (hi > b) b = hi;
+    if (!(hi > lo)) continue;
+    const m = Math.floor(corePoints / levels) + (k < corePoints % levels ? 1 : 0);
+    // offsets k/levels interleave the grids of coinciding windows
+    for (let i = 0; i < m; i++) {
+      const t = (i + (k + 1) / (levels + 1)) / m;
+      const x = lo * (1 - t) + hi * t;
+      if (x > lo && x < hi) all.push({ x, l: ev.l(x), g: NaN });
     }
   }
   for (const x of extra) all.push({ x, l: ev.l(x), g: NaN });
   for (const p of all) if (p.l > logMax) logMax = p.l;
 
   all.sort((p, q) => p.x - q.x);
+  // merge points within 1024 ulps of each other (their chords would be mostly rounding)
   const pts: ScanPoint[] = [];
-  for (const p of all) if (pts.length === 0 || pts[pts.length - 1].x !== p.x) pts.push(p);
+  for (const p of all) {
+    const q = pts[pts.length - 1];
+    if (q === undefined || !(p.x - q.x <= 1024 * ulp(p.x)) || p.x === upper) pts.push(p);
+  }
 
   // Effective support: leading and trailing runs of zero density are cut down to one point.
   let first = 0;
@@ -242,6 +268,11 @@ export function scanTarget(
   const effUpper = kept[kept.length - 1].l === -Infinity || Number.isFinite(upper) ? kept[kept.length - 1].x : Infinity;
   if (useDerivative) for (const p of kept) p.g = ev.g(p.x, p.l);
   return { points: kept, lower: effLower, upper: effUpper, centre, logMax, core: [a, b] };
+}
+
+/** Spacing of the doubles at x (2^−52·|x|, at least the smallest normal). */
+function ulp(x: number): number {
+  return Math.max(Math.abs(x) * Math.pow(2, -52), Math.pow(2, -1022));
 }
 
 /**

@@ -1,0 +1,355 @@
+/**
+ * exactSampler(): picks a method from what the target offers and what each
+ * method can check.
+ *
+ * @packageDocumentation
+ */
+import { ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
+import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
+import { checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import type { CheckedTarget } from '../core/validate.js';
+import { adaptiveRejectionSampler } from './adaptive-rejection.js';
+import { piecewiseSampler } from './piecewise.js';
+import { NOISE } from './piecewise/grid.js';
+import { Evaluator, scanTarget } from './piecewise/scan.js';
+import type { ScanPoint } from './piecewise/scan.js';
+import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
+
+/** Options of {@link exactSampler}: the uniform source and the rejection bound, passed to the chosen method. */
+export interface ExactSamplerOptions extends SamplerOptions {
+  /**
+   * Consecutive rejections before {@link StalledSamplerError} (passed on).
+   * @defaultValue 1,000,000
+   */
+  maxRejections?: number;
+}
+
+/** Names of the methods {@link exactSampler} can choose. */
+export type ExactMethod = 'adaptive-rejection' | 'piecewise' | 'ratio-of-uniforms';
+
+/** What the shape scan of {@link exactSampler} saw. */
+export interface ShapeScan {
+  /** Scan points with a positive density. */
+  readonly points: number;
+  /** logDensity evaluations of the scan. */
+  readonly evaluations: number;
+  /** No scan triple has a second divided difference of log f above rounding. */
+  readonly logConcave: boolean;
+  /** The scan point nearest the centre where log f was seen convex, or a zero of the density inside its support (NaN when log-concave). */
+  readonly convexAt: number;
+  /** No scan triple has a second divided difference of T(f) = −1/√f above rounding. */
+  readonly tConcave: boolean;
+  /** The scan point nearest the centre where −1/√f was seen convex (NaN when T-concave). */
+  readonly tConvexAt: number;
+  /** Tail exponent α estimated where a tail is neither log- nor T-concave (f ~ |x|^−α), else NaN. */
+  readonly heavyTailExponent: number;
+}
+
+/** A method that {@link exactSampler} tried and that refused the target at construction. */
+export interface RefusedMethod {
+  /** The method (with its transform, for the hull). */
+  readonly method: string;
+  /** The message of the {@link ShapeViolationError} it threw. */
+  readonly error: string;
+}
+
+/** The method an {@link ExactSampler} uses, and why. */
+export interface ExactChoice {
+  /** The method doing the work. */
+  readonly method: ExactMethod;
+  /** The transform, for `'adaptive-rejection'`. */
+  readonly transform: 'log' | 'inverse-sqrt' | undefined;
+  /** The power r, for `'ratio-of-uniforms'`. */
+  readonly power: number | undefined;
+  /** Why this method: what the scan saw and what the method needs. */
+  readonly reason: string;
+  /** Methods tried first and refused by their own checks at construction (with the error message). */
+  readonly rejected: readonly RefusedMethod[];
+  /** The shape scan. */
+  readonly scan: ShapeScan;
+}
+
+/** A sampler built by {@link exactSampler}. */
+export interface ExactSampler extends Sampler {
+  /** Which method was chosen, and why (read-only). */
+  readonly choice: ExactChoice;
+  /** The chosen method's sampler (with its own envelope or region description). */
+  readonly sampler: Sampler;
+}
+
+/** Scan points of the shape scan's uniform grids (the rays come on top). */
+const SHAPE_SCAN_POINTS = 128;
+
+/** Evaluation budget of the shape scan. */
+const SHAPE_SCAN_BUDGET = 100_000;
+
+/** Points more than this below the maximum log-density are left out of the T-concavity test (T would overflow). */
+const T_SCAN_DROP = 1200;
+
+const KNOWN = ['seed', 'uniform', 'maxRejections'] as const;
+
+/**
+ * An exact sampler for `target`, by a method chosen from what the target
+ * offers and what the methods can check.
+ *
+ * @remarks
+ * A shape scan (the piecewise method's scan with 128 grid points: a global
+ * maximisation unless `target.mode` is given, geometric rays to both ends,
+ * nested uniform grids; a few hundred to about 1,200 evaluations, counted in
+ * `stats.setupEvaluations`) computes the second divided differences of
+ * log f and of T(f) = −1/√f on all consecutive scan triples, with the same
+ * rounding allowance as the piecewise method. Then, in this order:
+ *
+ * 1. log f concave at every triple → {@link adaptiveRejectionSampler} with
+ *    `transform: 'log'` (Gilks & Wild 1992): the fewest evaluations and the
+ *    cheapest setup, and its own checks (tangent slopes must decrease) keep
+ *    watching the shape while it adapts.
+ * 2. else −1/√f concave at every triple → the same with
+ *    `transform: 'inverse-sqrt'` (Hörmann 1995): heavier tails such as
+ *    Student-t with df ≥ 1.
+ * 3. else, when a tail is neither log-concave nor T-concave (it decays
+ *    slower than |x|^−2, f ~ |x|^−α) → {@link ratioOfUniformsSampler} with
+ *    power r = max(1, 1.1/(α − 1)) (Wakefield, Gelfand & Smith 1991), which
+ *    needs only a bounded density with such tails, and checks its bounds.
+ * 4. else → {@link piecewiseSampler}: multimodal or otherwise non-concave
+ *    targets with light or T-concave tails.
+ *
+ * A method that refuses the target at construction with
+ * {@link ShapeViolationError} (its own check found a shape it cannot serve)
+ * is recorded in `choice.rejected` and the next one is tried (log hull →
+ * inverse-sqrt hull → piecewise → ratio-of-uniforms). Errors that describe
+ * the target rather than a method's shape needs are not retried: a tail that
+ * does not decay ({@link ImproperDensityError}, "no decay found"), a density
+ * unbounded at an end of the support ({@link InvalidTargetError}), NaN or
+ * +Infinity from logDensity ({@link NonFiniteDensityError}).
+ *
+ * The chosen sampler receives the options (`seed`, `uniform`,
+ * `maxRejections`), so its stream is that method's stream for the same
+ * seed. `stats` are the chosen sampler's, with `setupEvaluations` including
+ * the scan and any refused attempts. To skip the scan, call a method
+ * directly.
+ *
+ * @param target - the target
+ * @param options - uniform source and rejection bound for the chosen method
+ * @returns the sampler, with `choice` (method, reason, scan) and the chosen `sampler`
+ * @throws {@link InvalidTargetError} for bad inputs or a density unbounded at an end of the support
+ * @throws {@link ImproperDensityError} when a tail does not decay, or decays like |x|^−α with α ≤ 1
+ * @throws {@link ShapeViolationError} when every method refuses the target
+ * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
+ * @example
+ * ```ts
+ * const s = exactSampler(studentTTarget(3), { seed: 1 });
+ * s.choice.method;    // 'adaptive-rejection'
+ * s.choice.transform; // 'inverse-sqrt'
+ * s.choice.reason;    // why
+ * const xs = s.fill(new Float64Array(1000));
+ * ```
+ */
+export function exactSampler(target: Target, options?: ExactSamplerOptions): ExactSampler {
+  const api = 'exactSampler';
+  const t = checkTarget(api, target);
+  checkOptionKeys(api, options, KNOWN);
+  const opts: ExactSamplerOptions = options ?? {};
+  if (opts.maxRejections !== undefined) checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  // The chosen sampler's own counts start after construction; a counting
+  // wrapper measures the scan and every construction attempt.
+  let counted = 0;
+  const logf = t.logDensity;
+  const wrapped: Target = {
+    logDensity: (x: number): number => {
+      counted++;
+      return logf(x);
+    },
+    support: [t.lower, t.upper],
+  };
+  if (t.dLogDensity !== undefined) (wrapped as { dLogDensity?: (x: number) => number }).dLogDensity = t.dLogDensity;
+  if (t.mode !== undefined) (wrapped as { mode?: number }).mode = t.mode;
+
+  const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
+  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, [], false);
+  const scan = verdict(scanResult.points, scanResult.logMax, ev.evaluations, t, scanResult.centre);
+  if (scan.heavyTailExponent <= 1) {
+    throw new ImproperDensityError(
+      `${api}: a tail decays like |x|^(−${scan.heavyTailExponent.toPrecision(3)}); with an exponent ≤ 1 the mass is infinite`,
+    );
+  }
+
+  const rejected: { method: string; error: string }[] = [];
+  const pass = { seed: opts.seed, uniform: opts.uniform, maxRejections: opts.maxRejections };
+  const clean = <T extends object>(o: T): T => {
+    const out: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(o)) if (v !== undefined) out[k] = v;
+    return out as T;
+  };
+  const tryBuild = (name: string, build: () => Sampler): Sampler | undefined => {
+    try {
+      return build();
+    } catch (e) {
+      if (e instanceof ShapeViolationError) {
+        rejected.push({ method: name, error: e.message });
+        return undefined;
+      }
+      throw e;
+    }
+  };
+  const rouPower = Number.isFinite(scan.heavyTailExponent) ? Math.max(1, 1.1 / (scan.heavyTailExponent - 1)) : 1;
+  const convexWhere = `log f is convex near x = ${fmt(scan.convexAt)}`;
+  const tConvexWhere = `−1/√f is convex near x = ${fmt(scan.tConvexAt)}`;
+
+  type Plan = { method: ExactMethod; transform?: 'log' | 'inverse-sqrt'; power?: number; reason: string; build: () => Sampler };
+  const plans: Plan[] = [];
+  if (scan.logConcave) {
+    plans.push({
+      method: 'adaptive-rejection',
+      transform: 'log',
+      reason: `log-concave: log f is concave at all ${scan.points} scan points (no second divided difference above rounding), so tangents of log f bound it (Gilks & Wild 1992)`,
+      build: () => adaptiveRejectionSampler(wrapped, clean({ ...pass, transform: 'log' as const })),
+    });
+  }
+  if (scan.tConcave) {
+    plans.push({
+      method: 'adaptive-rejection',
+      transform: 'inverse-sqrt',
+      reason: `T-concave for T(f) = −1/√f at all ${scan.points} scan points${scan.logConcave ? '' : ` but not log-concave (${convexWhere})`}: tangents of −1/√f bound it, heavy tails included (Hörmann 1995)`,
+      build: () => adaptiveRejectionSampler(wrapped, clean({ ...pass, transform: 'inverse-sqrt' as const })),
+    });
+  }
+  const heavy = Number.isFinite(scan.heavyTailExponent);
+  const rouPlan: Plan = {
+    method: 'ratio-of-uniforms',
+    power: rouPower,
+    reason: heavy
+      ? `a tail decays like |x|^(−${scan.heavyTailExponent.toPrecision(3)}), slower than |x|^−2, so no hull bounds it; ratio-of-uniforms with power r = ${rouPower.toPrecision(3)} needs only a bounded density with such tails (Wakefield, Gelfand & Smith 1991)`
+      : `the other methods refused the target; ratio-of-uniforms needs only a bounded density with tails lighter than |x|^−2 (Kinderman & Monahan 1977)`,
+    build: () => ratioOfUniformsSampler(wrapped, clean({ ...pass, power: rouPower })),
+  };
+  const pwPlan: Plan = {
+    method: 'piecewise',
+    reason: `not log-concave (${convexWhere}) and not T-concave (${tConvexWhere}), e.g. multimodal: piecewise envelopes on cells of constant curvature`,
+    build: () => piecewiseSampler(wrapped, clean(pass)),
+  };
+  if (heavy) plans.push(rouPlan, pwPlan);
+  else plans.push(pwPlan, rouPlan);
+
+  for (const p of plans) {
+    const before = counted;
+    const s = tryBuild(p.transform === undefined ? p.method : `${p.method} (${p.transform})`, p.build);
+    if (s === undefined) continue;
+    const setupOther = scan.evaluations + before; // scan + refused attempts; the chosen method counts its own setup
+    const reason = rejected.length === 0 ? p.reason : `${p.reason}; tried first: ${rejected.map((r) => r.method).join(', ')}`;
+    const choice: ExactChoice = Object.freeze({
+      method: p.method,
+      transform: p.transform,
+      power: p.power,
+      reason,
+      rejected: Object.freeze(rejected.map((r) => Object.freeze({ ...r }))),
+      scan,
+    });
+    return {
+      choice,
+      sampler: s,
+      sample: () => s.sample(),
+      fill: (out: Float64Array) => s.fill(out),
+      get stats(): SamplerStats {
+        const st = s.stats;
+        return { ...st, setupEvaluations: st.setupEvaluations + setupOther };
+      },
+    };
+  }
+  throw new ShapeViolationError(
+    `${api}: no method can serve this target: ${rejected.map((r) => `${r.method}: ${r.error}`).join(' | ')}`,
+  );
+}
+
+function fmt(x: number): string {
+  return Number.isFinite(x) ? x.toPrecision(6) : String(x);
+}
+
+/** The shape verdict from the scan points (secant second differences with a rounding allowance). */
+function verdict(pts: readonly ScanPoint[], logMax: number, evaluations: number, t: CheckedTarget, centre: number): ShapeScan {
+  let finite = 0;
+  for (const p of pts) if (p.l > -Infinity) finite++;
+  let convexAt = NaN;
+  let tConvexAt = NaN;
+  // a zero of the density between points of positive density: the support is not an interval
+  let first = -1;
+  let last = -1;
+  for (let i = 0; i < pts.length; i++) if (pts[i].l > -Infinity) { if (first < 0) first = i; last = i; }
+  let zeroInside = false;
+  for (let i = first; i <= last && first >= 0; i++) {
+    if (pts[i].l === -Infinity) {
+      convexAt = pts[i].x;
+      tConvexAt = pts[i].x;
+      zeroInside = true;
+      break;
+    }
+  }
+  const tOf = (l: number): number => -Math.exp(-0.5 * (l - logMax));
+  for (let j = 1; j + 1 < pts.length; j++) {
+    const p = pts[j - 1];
+    const q = pts[j];
+    const r = pts[j + 1];
+    if (!(p.l > -Infinity && q.l > -Infinity && r.l > -Infinity)) continue;
+    const w0 = q.x - p.x;
+    const w1 = r.x - q.x;
+    const nearer = (old: number): boolean => old !== old || Math.abs(q.x - centre) < Math.abs(old - centre);
+    if (nearer(convexAt) && !zeroInside) {
+      const s0 = (q.l - p.l) / w0;
+      const s1 = (r.l - q.l) / w1;
+      const e = (NOISE * (Math.abs(p.l) + Math.abs(q.l) + 2)) / w0 + (NOISE * (Math.abs(q.l) + Math.abs(r.l) + 2)) / w1 + NOISE * (Math.abs(s0) + Math.abs(s1));
+      if (s1 - s0 > e) convexAt = q.x;
+    }
+    if (nearer(tConvexAt) && !zeroInside && p.l >= logMax - T_SCAN_DROP && q.l >= logMax - T_SCAN_DROP && r.l >= logMax - T_SCAN_DROP) {
+      const tp = tOf(p.l);
+      const tq = tOf(q.l);
+      const tr = tOf(r.l);
+      const s0 = (tq - tp) / w0;
+      const s1 = (tr - tq) / w1;
+      const ne = (v: number, l: number): number => Math.abs(v) * (Math.abs(l) + Math.abs(logMax) + 2);
+      const e = (NOISE * (ne(tp, p.l) + ne(tq, q.l))) / w0 + (NOISE * (ne(tq, q.l) + ne(tr, r.l))) / w1 + NOISE * (Math.abs(s0) + Math.abs(s1));
+      if (s1 - s0 > e) tConvexAt = q.x;
+    }
+  }
+  // Tails: the three outermost points of positive density on each infinite side.
+  let alpha = NaN;
+  const sides: [number, number][] = [];
+  if (t.upper === Infinity && last >= 2 && last === pts.length - 1) sides.push([last, -1]);
+  if (t.lower === -Infinity && first >= 0 && first === 0 && first + 2 < pts.length) sides.push([first, 1]);
+  for (const [k, step] of sides) {
+    const a = pts[k];
+    const b = pts[k + step];
+    const c = pts[k + 2 * step];
+    if (!(b.l > -Infinity && c.l > -Infinity)) continue;
+    // in increasing x: (lo, mid, hi)
+    const [lo, md, hi] = step < 0 ? [c, b, a] : [a, b, c];
+    const w0 = md.x - lo.x;
+    const w1 = hi.x - md.x;
+    const s0 = (md.l - lo.l) / w0;
+    const s1 = (hi.l - md.l) / w1;
+    const e = (NOISE * (Math.abs(lo.l) + Math.abs(md.l) + 2)) / w0 + (NOISE * (Math.abs(md.l) + Math.abs(hi.l) + 2)) / w1 + NOISE * (Math.abs(s0) + Math.abs(s1));
+    const logConvex = s1 - s0 > e;
+    if (!logConvex) continue;
+    // T relative to the outermost value (T(a) = −1), as the piecewise tails do
+    const T = (l: number): number => -Math.exp(-0.5 * (l - a.l));
+    const t0 = (T(md.l) - T(lo.l)) / w0;
+    const t1 = (T(hi.l) - T(md.l)) / w1;
+    const eT = NOISE * ((4 + Math.abs(T(lo.l)) + Math.abs(T(md.l)) + Math.abs(T(hi.l))) / Math.min(w0, w1) + Math.abs(t0) + Math.abs(t1));
+    if (t1 - t0 <= eT) continue;
+    const r0 = Math.log(Math.abs(b.x - centre));
+    const r1 = Math.log(Math.abs(a.x - centre));
+    const al = r1 > r0 ? -(a.l - b.l) / (r1 - r0) : NaN;
+    if (al === al && !(al >= alpha)) alpha = al;
+  }
+  if (finite < 3) {
+    throw new InvalidTargetError(`exactSampler: the scan found positive density at only ${finite} points; give target.mode or a narrower support`);
+  }
+  return Object.freeze({
+    points: finite,
+    evaluations,
+    logConcave: convexAt !== convexAt,
+    convexAt,
+    tConcave: tConvexAt !== tConvexAt,
+    tConvexAt,
+    heavyTailExponent: alpha,
+  });
+}
