@@ -8,6 +8,8 @@
 export interface HistogramFigure {
   draws: ArrayLike<number>;
   density: (x: number) => number;
+  /** Optional envelope curve (same scale as `density`), drawn dashed. */
+  envelope?: (x: number) => number;
   lower: number;
   upper: number;
   bins?: number;
@@ -32,7 +34,8 @@ export function histogramSvg(fig: HistogramFigure): string {
   const hist = Array.from(counts, (c) => c / (draws.length * w));
   const grid = Array.from({ length: 400 }, (_, i) => lower + ((i + 0.5) * (upper - lower)) / 400);
   const dens = grid.map(density);
-  const yMax = Math.max(...hist, ...dens) * 1.1;
+  const env = fig.envelope === undefined ? [] : grid.map(fig.envelope);
+  const yMax = Math.max(...hist, ...dens, ...env.filter((v) => Number.isFinite(v))) * 1.1;
   const m = { l: 56, r: 16, t: 36, b: 44 };
   const px = (x: number): number => m.l + ((x - lower) / (upper - lower)) * (width - m.l - m.r);
   const py = (y: number): number => height - m.b - (y / yMax) * (height - m.t - m.b);
@@ -52,11 +55,12 @@ export function histogramSvg(fig: HistogramFigure): string {
 <text x="${width / 2}" y="20" font-size="14" text-anchor="middle">${escapeXml(fig.title ?? '')}</text>
 ${bars}
 <path d="${path}" fill="none" stroke="#d62728" stroke-width="2"/>
+${env.length > 0 ? `<path d="${grid.map((x, i) => `${i === 0 ? 'M' : 'L'}${px(x).toFixed(2)},${py(Number.isFinite(env[i]) ? env[i] : 0).toFixed(2)}`).join('')}" fill="none" stroke="#2ca02c" stroke-width="1.2" stroke-dasharray="5,3"/>` : ''}
 <line x1="${m.l}" y1="${py(0)}" x2="${width - m.r}" y2="${py(0)}" stroke="black"/>
 <line x1="${m.l}" y1="${m.t}" x2="${m.l}" y2="${py(0)}" stroke="black"/>
 ${ticks}
 <text x="${width / 2}" y="${height - 8}" font-size="12" text-anchor="middle">${escapeXml(fig.xLabel ?? 'x')}</text>
-<text x="${width - m.r - 4}" y="${m.t + 4}" font-size="11" text-anchor="end">bars: ${draws.length} draws; red: target density</text>
+<text x="${width - m.r - 4}" y="${m.t + 4}" font-size="11" text-anchor="end">bars: ${draws.length} draws; red: target density${fig.envelope === undefined ? '' : '; green dashed: envelope'}</text>
 </svg>
 `;
 }
