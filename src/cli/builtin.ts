@@ -9,6 +9,7 @@ import stdlibGamma from '@stdlib/random-base-gamma';
 import * as ed from '../index.js';
 import type { Sampler, SamplerStats, Uniform } from '../core/types.js';
 import type { SuiteEntry } from './suite.js';
+import { quadratureCdf } from './demo.js';
 
 /** A suite entry that is a peer generator, not an exactdraw sampler. */
 export interface BuiltinEntry extends SuiteEntry {
@@ -45,6 +46,13 @@ export function multimodalLogDensity(x: number): number {
   const c1 = Math.cos(x);
   const s4 = Math.sin(4 * x);
   return -0.5 * x * x + Math.log(s6 * s6 + 3 * c1 * c1 * s4 * s4 + 1);
+}
+
+let cachedCdf: { cdf: (x: number) => number } | undefined;
+/** cdf of the multimodal example by Simpson quadrature on [-12, 12] (mass outside is below 1e-31). */
+function multimodalCdf(): { cdf: (x: number) => number } {
+  cachedCdf ??= quadratureCdf(multimodalLogDensity, -12, 12, 48_000);
+  return cachedCdf;
 }
 
 /** The built-in suite. Entries for methods not in this build are left out. */
@@ -97,6 +105,18 @@ export function builtinSuite(): BuiltinEntry[] {
       reference: PEERS.uniform,
       create: (uniform) => ed.adaptiveRejectionSampler(t3, { uniform, transform: 'inverse-sqrt' }),
       cdf: (x) => t3.cdf!(x),
+    },
+    {
+      name: 'exactSampler multimodal (line)',
+      reference: PEERS.uniform,
+      create: (uniform) => ed.exactSampler({ logDensity: multimodalLogDensity }, { uniform }),
+      cdf: (x) => multimodalCdf().cdf(x),
+    },
+    {
+      name: 'exactSampler multimodal on [-3,3]',
+      reference: PEERS.uniform,
+      create: (uniform) =>
+        ed.exactSampler({ logDensity: (x: number) => (x >= -3 && x <= 3 ? multimodalLogDensity(x) : -Infinity), support: [-3, 3] }, { uniform }),
     },
     { name: 'ratio-of-uniforms normal', reference: PEERS.normal, create: (uniform) => ed.ratioOfUniformsSampler(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
     { name: 'ratio-of-uniforms student-t(5)', reference: PEERS.uniform, create: (uniform) => ed.ratioOfUniformsSampler(t5, { uniform }), cdf: (x) => t5.cdf!(x) },
