@@ -49,3 +49,18 @@ export type { TransformName } from './methods/hull/transforms.js';
 export { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from './methods/hull/hull.js';
 export { envelopeSvg } from './checks/envelope-svg.js';
 export type { EnvelopeSvgOptions } from './checks/envelope-svg.js';
+export {
+  piecewiseSampler,
+  DEFAULT_TARGET_AREA_RATIO,
+  DEFAULT_SCAN_POINTS,
+  DEFAULT_PIECEWISE_MAX_PIECES,
+  PIECEWISE_SETUP_BUDGET,
+  MAX_ENVELOPE_REPAIRS,
+  PIECEWISE_NOISE,
+} from './methods/piecewise.js';
+export type { PiecewiseOptions, PiecewiseSampler, PiecewiseStats, PiecewiseEnvelope, PiecewisePiece, PiecewiseTails } from './methods/piecewise.js';
+export { exactSampler, FAST_PATH_MIN_DRAWS } from './methods/auto.js';
+export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, ShapeScan, RefusedMethod } from './methods/auto.js';
+export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './methods/table-sampler.js';
+export type { TableSamplerOptions, TableSampler } from './methods/table-sampler.js';
+export type { TableDescription } from './methods/table/describe.js';

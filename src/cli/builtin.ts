@@ -106,6 +106,15 @@ export function builtinSuite(): BuiltinEntry[] {
       create: (uniform) => ed.adaptiveRejectionSampler(t3, { uniform, transform: 'inverse-sqrt' }),
       cdf: (x) => t3.cdf!(x),
     },
+    // the table-driven fast path (tableSampler); the injected uniform is read one value at a time
+    { name: 'fast hull normal', reference: PEERS.normal, create: (uniform) => ed.tableSampler(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
+    { name: 'fast hull gamma(2.5)', reference: PEERS.gamma, create: (uniform) => ed.tableSampler(gamma, { uniform }), cdf: (x) => gamma.cdf!(x) },
+    {
+      name: 'fast hull student-t(3), inverse-sqrt',
+      reference: PEERS.uniform,
+      create: (uniform) => ed.tableSampler(t3, { uniform, transform: 'inverse-sqrt' }),
+      cdf: (x) => t3.cdf!(x),
+    },
     {
       name: 'exactSampler multimodal (line)',
       reference: PEERS.uniform,

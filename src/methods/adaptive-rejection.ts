@@ -3,41 +3,16 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
-import { ImproperDensityError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget, evalLog } from '../core/validate.js';
-import { resolveUniform } from '../random/resolve.js';
 import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './hull/describe.js';
-import { Hull, SKIPPED, nonFiniteDerivative } from './hull/hull.js';
 import { hullFill } from './hull/kernel.js';
-import { automaticStartPoints } from './hull/start.js';
-import type { Probe } from './hull/start.js';
-import { T_INV_SQRT, T_LOG } from './hull/transforms.js';
+import { setupHull } from './hull/setup.js';
 import type { TransformName } from './hull/transforms.js';
+import { createTableSampler } from './table-sampler.js';
 
-/**
- * Default of {@link AdaptiveRejectionOptions.maxPieces}: 100 pieces, i.e. 50
- * touch points.
- *
- * @remarks
- * The envelope has two pieces per touch point. With tangents the area
- * between envelope and target shrinks roughly like 1/k² in the number k of
- * well-placed touch points (common practice: the error of piecewise-linear
- * approximation of a smooth concave function), so that past a few dozen points
- * almost every draw is accepted under the squeeze; the cap bounds the memory
- * (about 20 numbers per piece) and the O(pieces) work each insertion costs
- * (shifting the arrays and rebuilding the guide table) for samplers that run
- * for millions of draws. A standard normal sampler reaches the 50 touch
- * points within its first 10,000 draws and from then on evaluates the target
- * at about 0.3 % of draws (measured in the tests: 0.6 % over the first
- * 10,000 draws, 0.3 % over the next 10,000).
- */
-export const DEFAULT_MAX_PIECES = 100;
-
-/** Refinement steps setup may take to make the envelope valid before giving up. */
-export const SETUP_MAX_REFINEMENTS = 200;
+export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
 
 /** Options of {@link adaptiveRejectionSampler}. */
 export interface AdaptiveRejectionOptions extends SamplerOptions {
@@ -74,6 +49,16 @@ export interface AdaptiveRejectionOptions extends SamplerOptions {
    * @defaultValue 1,000,000
    */
   maxRejections?: number;
+  /**
+   * Draw from a table built once from the hull instead of adapting it: the
+   * fast path for many draws from a fixed target. `adaptiveRejectionSampler(t,
+   * { fast: true, ...rest })` is {@link tableSampler}`(t, rest)` with its
+   * default strips and tail mass (see there for the method, the stream and
+   * the counts); `maxPieces` then has no effect, since the table sampler never
+   * adapts.
+   * @defaultValue false
+   */
+  fast?: boolean;
 }
 
 /** A sampler built on an adaptive hull; also describes its current envelope. */
@@ -82,7 +67,7 @@ export interface AdaptiveRejectionSampler extends Sampler {
   readonly envelope: EnvelopeDescription;
 }
 
-const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'seed', 'uniform'] as const;
+const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'seed', 'uniform'] as const;
 
 /**
  * Adaptive rejection sampling (Gilks & Wild 1992; derivative-free form
@@ -142,93 +127,13 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  */
 export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejectionOptions): AdaptiveRejectionSampler {
   const api = 'adaptiveRejectionSampler';
-  const t = checkTarget(api, target);
-  checkOptionKeys(api, options, KNOWN);
-  const opts: AdaptiveRejectionOptions = options ?? {};
-  const transform = opts.transform ?? 'log';
-  if (transform !== 'log' && transform !== 'inverse-sqrt') {
-    throw new InvalidTargetError(`${api}: options.transform must be 'log' or 'inverse-sqrt', got ${String(transform)}`);
+  const fast = options === null || typeof options !== 'object' ? undefined : options.fast;
+  if (fast !== undefined && typeof fast !== 'boolean') {
+    throw new InvalidTargetError(`${api}: options.fast must be a boolean, got ${String(fast)}`);
   }
-  const derivativeFree = opts.derivativeFree ?? false;
-  if (typeof derivativeFree !== 'boolean') {
-    throw new InvalidTargetError(`${api}: options.derivativeFree must be a boolean, got ${String(derivativeFree)}`);
-  }
-  const maxPieces = opts.maxPieces === undefined ? DEFAULT_MAX_PIECES : checkInteger(api, 'options.maxPieces', opts.maxPieces, 2, 1_000_000);
-  const maxRejections = opts.maxRejections === undefined
-    ? DEFAULT_MAX_REJECTIONS
-    : checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
-  const start = opts.startPoints === undefined ? undefined : checkStartPoints(api, opts.startPoints, t.lower, t.upper);
-  const uniform = resolveUniform(api, opts);
-  const kind = transform === 'log' ? T_LOG : T_INV_SQRT;
-  const tangent = t.dLogDensity !== undefined && !derivativeFree;
-  const counters = new Counters();
-  const logf = t.logDensity;
-  const dlogf = t.dLogDensity;
-  let derivativeCalls = 0;
-  const evaluate = (x: number): number => {
-    counters.setupEvaluations++;
-    return evalLog(api, logf, x);
-  };
-  const derivative = (x: number): number => {
-    derivativeCalls++;
-    const g = (dlogf as (y: number) => number)(x);
-    if (g !== g || typeof g !== 'number') nonFiniteDerivative(api, x, g);
-    return g;
-  };
-  const probe = (x: number): Probe => {
-    const l = evaluate(x);
-    const g = tangent && l > -Infinity ? derivative(x) : NaN;
-    return { x, l, g };
-  };
-
-  let probes: Probe[];
-  let scale: number;
-  if (start === undefined) {
-    const r = automaticStartPoints({ api, useDerivative: tangent, evaluate, derivative }, t.lower, t.upper, t.mode);
-    probes = r.probes;
-    scale = r.scale;
-  } else {
-    probes = start.map(probe);
-    scale = start.length > 1 ? start[start.length - 1] - start[0] : Math.max(1, Math.abs(start[0]) * 1e-8);
-  }
-  const usable = (p: Probe): boolean => p.l > -Infinity && (!tangent || Number.isFinite(p.g));
-  let ref = -Infinity;
-  let nUsable = 0;
-  for (const p of probes) {
-    if (usable(p) && p.l > ref) ref = p.l;
-    if (usable(p)) nUsable++;
-  }
-  if (nUsable === 0) {
-    throw new InvalidTargetError(
-      `${api}: no start point has a finite log-density${tangent ? ' and a finite derivative' : ''} (points tried: ${probes.map((p) => p.x).join(', ')}); give startPoints inside the support where the density is positive`,
-    );
-  }
-  const hull = new Hull(api, kind, tangent, { logDensity: logf, dLogDensity: dlogf }, t.lower, t.upper, ref, Math.max(Math.floor(maxPieces / 2), nUsable) + 4);
-  hull.setupScale = scale > 0 && scale < Infinity ? scale : 1;
-  for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true);
-  for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
-  let stuck = 0;
-  let refinements = 0;
-  for (;;) {
-    const x = hull.setupDeficiency();
-    if (x !== x) break;
-    if (++refinements > SETUP_MAX_REFINEMENTS) {
-      throw new ImproperDensityError(
-        `${api}: no integrable envelope after ${SETUP_MAX_REFINEMENTS} setup refinements on [${hull.lower}, ${hull.upper}] (${hull.k} touch points from ${hull.tx[0]} to ${hull.tx[hull.k - 1]}); the target may not be ${hull.shapeName()} or its tails may not decay`,
-      );
-    }
-    const p = probe(x);
-    if (tangent && p.l > -Infinity && !Number.isFinite(p.g)) {
-      if (++stuck > 20) break;
-      continue;
-    }
-    if (hull.insert(p.x, p.l, p.g, true) === SKIPPED && ++stuck > 20) break;
-  }
-  const top = hull.maxRelativeHeight();
-  if (top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);
-  hull.maxK = Math.max(Math.floor(maxPieces / 2), hull.k);
-  hull.derivativeEvaluations = derivativeCalls;
-  hull.buildGuide();
+  const setup = setupHull(api, target, options, KNOWN);
+  if (fast === true) return createTableSampler(api, setup, undefined);
+  const { hull, counters, uniform, maxRejections } = setup;
 
   let failure: unknown;
   const scratch = new Float64Array(1);
@@ -260,27 +165,4 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
       return describeHull(hull);
     },
   };
-}
-
-function checkStartPoints(api: string, pts: readonly number[], lower: number, upper: number): number[] {
-  if (!Array.isArray(pts)) {
-    throw new InvalidTargetError(`${api}: options.startPoints must be an array of numbers, got ${String(pts)}`);
-  }
-  if (pts.length === 0) throw new InvalidTargetError(`${api}: options.startPoints must not be empty`);
-  const out: number[] = [];
-  for (let i = 0; i < pts.length; i++) {
-    const x = pts[i] as unknown;
-    if (typeof x !== 'number' || !Number.isFinite(x)) {
-      throw new InvalidTargetError(`${api}: options.startPoints[${i}] must be a finite number, got ${String(x)}`);
-    }
-    if (x < lower || x > upper) {
-      throw new InvalidTargetError(`${api}: options.startPoints[${i}] = ${x} lies outside the support [${lower}, ${upper}]`);
-    }
-    out.push(x);
-  }
-  out.sort((a, b) => a - b);
-  for (let i = 1; i < out.length; i++) {
-    if (out[i] === out[i - 1]) throw new InvalidTargetError(`${api}: options.startPoints contains ${out[i]} twice`);
-  }
-  return out;
 }

@@ -7,6 +7,7 @@
 import { ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import { tableSampler } from './table-sampler.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { adaptiveRejectionSampler } from './adaptive-rejection.js';
 import { piecewiseSampler } from './piecewise.js';
@@ -17,6 +18,14 @@ import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
 
 /** Options of {@link exactSampler}: the uniform source and the rejection bound, passed to the chosen method. */
 export interface ExactSamplerOptions extends SamplerOptions {
+  /**
+   * How many draws you expect to take from this sampler. At
+   * {@link FAST_PATH_MIN_DRAWS} or more, hull-served targets use the
+   * table-driven fast path. It changes speed and the stream, never the
+   * distribution.
+   * @defaultValue 1 (a fresh target per draw, as in a Gibbs sampler)
+   */
+  expectedDraws?: number;
   /**
    * Consecutive rejections before {@link StalledSamplerError} (passed on).
    * @defaultValue 1,000,000
@@ -86,7 +95,17 @@ const SHAPE_SCAN_BUDGET = 100_000;
 /** Points more than this below the maximum log-density are left out of the T-concavity test (T would overflow). */
 const T_SCAN_DROP = 1200;
 
-const KNOWN = ['seed', 'uniform', 'maxRejections'] as const;
+const KNOWN = ['seed', 'uniform', 'maxRejections', 'expectedDraws'] as const;
+
+/**
+ * From this many expected draws on, {@link exactSampler} serves log-concave and
+ * T-concave targets with the table-driven fast path ({@link tableSampler})
+ * instead of the plain adaptive hull: its setup (about 500 strips) pays for
+ * itself within roughly 1,000–13,000 draws (bench/fast-path.mjs), so below
+ * 10,000 draws — e.g. a Gibbs step taking one draw from a fresh target — the
+ * plain hull is cheaper.
+ */
+export const FAST_PATH_MIN_DRAWS = 10_000;
 
 /**
  * An exact sampler for `target`, by a method chosen from what the target
@@ -151,6 +170,9 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   checkOptionKeys(api, options, KNOWN);
   const opts: ExactSamplerOptions = options ?? {};
   if (opts.maxRejections !== undefined) checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  if (opts.expectedDraws !== undefined) checkInteger(api, 'options.expectedDraws', opts.expectedDraws, 0, Number.MAX_SAFE_INTEGER);
+  const fast = (opts.expectedDraws ?? 1) >= FAST_PATH_MIN_DRAWS;
+  const fastNote = fast ? `; ${opts.expectedDraws} expected draws >= ${FAST_PATH_MIN_DRAWS}, so the table-driven fast path serves it` : '';
   // The chosen sampler's own counts start after construction; a counting
   // wrapper measures the scan and every construction attempt.
   let counted = 0;
@@ -202,16 +224,22 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
     plans.push({
       method: 'adaptive-rejection',
       transform: 'log',
-      reason: `log-concave: log f is concave at all ${scan.points} scan points (no second divided difference above rounding), so tangents of log f bound it (Gilks & Wild 1992)`,
-      build: () => adaptiveRejectionSampler(wrapped, clean({ ...pass, transform: 'log' as const })),
+      reason: `log-concave: log f is concave at all ${scan.points} scan points (no second divided difference above rounding), so tangents of log f bound it (Gilks & Wild 1992)${fastNote}`,
+      build: () =>
+        fast
+          ? tableSampler(wrapped, clean({ ...pass, transform: 'log' as const }))
+          : adaptiveRejectionSampler(wrapped, clean({ ...pass, transform: 'log' as const })),
     });
   }
   if (scan.tConcave) {
     plans.push({
       method: 'adaptive-rejection',
       transform: 'inverse-sqrt',
-      reason: `T-concave for T(f) = −1/√f at all ${scan.points} scan points${scan.logConcave ? '' : ` but not log-concave (${convexWhere})`}: tangents of −1/√f bound it, heavy tails included (Hörmann 1995)`,
-      build: () => adaptiveRejectionSampler(wrapped, clean({ ...pass, transform: 'inverse-sqrt' as const })),
+      reason: `T-concave for T(f) = −1/√f at all ${scan.points} scan points${scan.logConcave ? '' : ` but not log-concave (${convexWhere})`}: tangents of −1/√f bound it, heavy tails included (Hörmann 1995)${fastNote}`,
+      build: () =>
+        fast
+          ? tableSampler(wrapped, clean({ ...pass, transform: 'inverse-sqrt' as const }))
+          : adaptiveRejectionSampler(wrapped, clean({ ...pass, transform: 'inverse-sqrt' as const })),
     });
   }
   const heavy = Number.isFinite(scan.heavyTailExponent);

@@ -55,7 +55,7 @@ export interface EnvelopeDescription {
   readonly touchPoints: readonly number[];
   /** logDensity at the touch points. */
   readonly touchLogDensities: readonly number[];
-  /** Pieces, left to right (two per touch point; some may be empty). */
+  /** Pieces, left to right (some may be empty): two per touch point for an adaptive hull; for a {@link TableSampler} the left tail, one per strip and the right tail. */
   readonly pieces: readonly EnvelopePiece[];
   /** log of the envelope's total area. */
   readonly logEnvelopeArea: number;

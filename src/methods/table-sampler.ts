@@ -1,0 +1,241 @@
+/**
+ * The table-driven fast path: a strip table built once from the hull of a
+ * fixed T-concave target.
+ *
+ * @packageDocumentation
+ */
+import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import type { SamplerOptions, SamplerStats, Target } from '../core/types.js';
+import { checkInteger } from '../core/validate.js';
+import type { AdaptiveRejectionSampler } from './adaptive-rejection.js';
+import type { EnvelopeDescription } from './hull/describe.js';
+import { setupHull } from './hull/setup.js';
+import type { HullSetup } from './hull/setup.js';
+import type { TransformName } from './hull/transforms.js';
+import { buildAliasCells } from './table/alias.js';
+import { buildStripTable } from './table/build.js';
+import { describeTable, describeTableEnvelope } from './table/describe.js';
+import type { TableDescription } from './table/describe.js';
+import { tableFill } from './table/kernel.js';
+import { UniformBlock } from '../random/uniform-block.js';
+import type { MersenneTwister } from '../random/mersenne-twister.js';
+import type { TableState } from './table/kernel.js';
+
+/**
+ * Default of {@link TableSamplerOptions.strips}.
+ *
+ * @remarks
+ * With n strips (three quarters placed at equal mass of √f), the caps — the
+ * part of the table that needs a second uniform — take about 7/n of the
+ * area of a standard normal: 1.4 % at 500 strips; the target is evaluated at
+ * a far smaller fraction of draws (about 8e-5 per draw for the normal, 8e-4
+ * for gamma(2.5); see the fast-path count tests), since the caps have their
+ * own chord squeeze and upper lines. 500 strips give at most 1,002 regions,
+ * so the alias table has 1,024 cells of 40 bytes (40 KB, about a core's L1
+ * data cache). More strips lower the cap share (1,000: 0.7 %) at no
+ * measurable change of the time per draw up to a few thousand strips, but
+ * setup costs about one logDensity call and a few microseconds of
+ * unoptimized code per strip (measured: bench/fast-path.mjs).
+ */
+export const DEFAULT_TABLE_STRIPS = 500;
+
+/** Largest accepted {@link TableSamplerOptions.strips}. */
+export const MAX_TABLE_STRIPS = 1 << 20;
+
+/**
+ * Default of {@link TableSamplerOptions.tailMass}: the body of the table
+ * covers the target's mass but about 1e-6 on each side (estimated from a
+ * coarse look at the target); draws beyond it come from the exact tails,
+ * which evaluate the target.
+ */
+export const DEFAULT_TABLE_TAIL_MASS = 1e-6;
+
+/** Options of {@link tableSampler}. */
+export interface TableSamplerOptions extends SamplerOptions {
+  /**
+   * Start points of the hull the table is planned from (see
+   * {@link AdaptiveRejectionOptions.startPoints}).
+   */
+  startPoints?: readonly number[];
+  /**
+   * Build the planning hull from secants even when the target has
+   * `dLogDensity` (the table itself never uses derivatives).
+   * @defaultValue false
+   */
+  derivativeFree?: boolean;
+  /**
+   * The transform T under which the target is concave: `'log'` (log-concave
+   * targets) or `'inverse-sqrt'` (T(f) = −1/√f, Hörmann 1995: heavier tails
+   * such as Student-t with df ≥ 1). It decides the shape assumption behind
+   * every bound of the table and the form of the tails.
+   * @defaultValue 'log'
+   */
+  transform?: TransformName;
+  /**
+   * Consecutive rejections before {@link StalledSamplerError}.
+   * @defaultValue 1,000,000
+   */
+  maxRejections?: number;
+  /**
+   * Number of strips of the body (an integer in [2, 2^20]); fewer may be
+   * used when the target's scale is close to the resolution of doubles.
+   * @defaultValue {@link DEFAULT_TABLE_STRIPS} (500)
+   */
+  strips?: number;
+  /**
+   * Target mass left to each exact tail (a number in (0, 0.01]).
+   * @defaultValue {@link DEFAULT_TABLE_TAIL_MASS} (1e-6)
+   */
+  tailMass?: number;
+}
+
+/** A table-driven sampler; `envelope` describes the table as pieces (constant on strips), `table` the strips themselves. */
+export interface TableSampler extends AdaptiveRejectionSampler {
+  /** Snapshot of the strip table; fresh arrays on every access. */
+  readonly table: TableDescription;
+}
+
+const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 'strips', 'tailMass', 'seed', 'uniform'] as const;
+
+/**
+ * A table-driven exact sampler for a fixed T-concave target: after setup, a
+ * draw costs one uniform and a table lookup, and the target is almost never
+ * evaluated. The fast path of the hull engine (also reachable as
+ * `adaptiveRejectionSampler(target, { fast: true })`).
+ *
+ * @remarks
+ * Setup builds the hull of {@link adaptiveRejectionSampler}, uses it to plan
+ * a table of `strips` strips over the body of the target (the strip idea of
+ * the ziggurat, Marsaglia & Tsang 2000, with vertical strips), evaluates the
+ * target at the strip boundaries and derives for each strip a constant
+ * envelope value M ≥ f and a constant squeeze value m ≤ f on the strip from
+ * those values and T-concavity alone: m is the smaller end value, M the
+ * larger one on the strips where the values show f monotone, and around the
+ * mode the maximum of the neighbouring chords' extensions (Gilks 1992) or of
+ * the hull, whichever is lower. The setup also checks the boundary values
+ * for T-concavity ({@link ShapeViolationError} names the interval). The
+ * tails beyond the body are the extensions of the outermost chords, sampled
+ * exactly. The regions — the sure rectangle [x_i, x_{i+1}] × [0, m_i] of
+ * each strip, the cap above it up to M_i, and the two tails — are selected
+ * with probability proportional to their area through an alias table
+ * (Walker 1977; Vose 1991) of K = 2^b cells.
+ *
+ * Drawing: one 53-bit uniform u = k/2^53 gives everything. With K = 2^b
+ * cells (`table.indexBits` = b), t = u·K is exact, the cell is j = ⌊t⌋ —
+ * the top b bits of k — and v = t − j — the low 53 − b bits of k over
+ * 2^(53−b) — chooses between the cell's own region (v < P_j) and its alias
+ * and, rescaled, the position inside the region. Since k is uniform on
+ * [0, 2^53), its top and low bits are independent and uniform, so the
+ * region is selected with its exact probability (up to the 2^(b−53) grid of
+ * v, about 2^−43 at the default size) and the position is uniform on it,
+ * independent of the selection. From `@stdlib/random-base-mt19937`'s
+ * `normalized()`, k = (o₁ ≫ 5)·2^26 + (o₂ ≫ 6) for consecutive 32-bit outputs
+ * o₁, o₂: the cell comes from the top b bits of o₁, the position from the
+ * remaining 27 − b bits of o₁ and the top 26 bits of o₂. In a sure rectangle the draw is
+ * `x = B + v·S`, accepted at once — the overwhelmingly common case. In a
+ * cap a second uniform gives a height h on (m, M]: the candidate is accepted
+ * without evaluation when h lies under the strip's chord, rejected without
+ * evaluation when it lies above the neighbouring chords' extensions, and
+ * otherwise decided by evaluating the target (counted, checked for
+ * NaN/+Infinity, against M, the upper lines and the chord, with the hull
+ * tolerance). In a tail the candidate is drawn by inverting the tail piece
+ * and accepted with a second uniform after evaluating the target. A
+ * rejected candidate starts over with a fresh uniform (bounded by
+ * `maxRejections`). An evaluation above an envelope or below a squeeze
+ * contradicts T-concavity at that point and its neighbouring boundaries and
+ * throws {@link ShapeViolationError} (or {@link EnvelopeViolationError} when
+ * the points do not show it); after such an error, or a
+ * {@link NonFiniteDensityError}, every later call throws the same error.
+ *
+ * Stream: each candidate consumes one uniform, plus one more in a cap or a
+ * tail. The table never adapts: its draws do not depend on how they are
+ * split between `sample()` and `fill()` calls. With `seed` the sampler owns
+ * its MT19937 and reads it in blocks of 512 uniforms from a block generator
+ * started at the seeded state (the same values as calling the source one at
+ * a time, checked in the tests; it avoids a per-value call, which V8 makes
+ * markedly slower once several generators share the code); an injected
+ * `uniform` is called once per value, in order. Counts:
+ * `stats.setupEvaluations` counts the hull's setup, the placement (about
+ * 100) and the strip boundaries (`strips + 1`); `stats.densityEvaluations`
+ * the evaluations while drawing. Since 0.1.0.
+ *
+ * When to use it: for many draws from one target (simulation, fills of
+ * large arrays). For a target that changes every few draws (Gibbs full
+ * conditionals) {@link adaptiveRejectionSampler} is cheaper: its setup is a
+ * handful of evaluations.
+ *
+ * @param target - a T-concave target (log-concave for `transform: 'log'`)
+ * @param options - hull options, `strips`, `tailMass`, uniform source
+ * @returns the sampler, with `envelope` and `table` descriptions
+ * @throws {@link InvalidTargetError} for a malformed target or bad options
+ * @throws {@link ShapeViolationError} when setup (or a later evaluation) proves the target not T-concave
+ * @throws {@link ImproperDensityError} when a tail does not decay
+ * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
+ * @throws {@link EnvelopeViolationError} at draw time, when the target is found above an envelope or below a squeeze without a shape explanation
+ * @throws {@link StalledSamplerError} after `maxRejections` consecutive rejections
+ * @example
+ * ```ts
+ * const s = tableSampler(normalTarget(0, 1), { seed: 1 });
+ * const xs = s.fill(new Float64Array(1_000_000));
+ * s.stats.densityEvaluations / s.stats.samples; // about 1e-4 (target evaluations are rare)
+ * ```
+ */
+export function tableSampler(target: Target, options?: TableSamplerOptions): TableSampler {
+  const api = 'tableSampler';
+  const setup = setupHull(api, target, options, KNOWN);
+  return createTableSampler(api, setup, options);
+}
+
+/**
+ * Builds the table sampler from a hull after setup; `options` supplies
+ * `strips` and `tailMass` (defaults when undefined).
+ * @internal
+ */
+export function createTableSampler(api: string, setup: HullSetup, options: TableSamplerOptions | undefined): TableSampler {
+  const strips = options?.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', options.strips, 2, MAX_TABLE_STRIPS);
+  const tailMass = options?.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
+  if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
+    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
+  }
+  const { hull, counters, uniform, maxRejections } = setup;
+  const logDensity = setup.target.logDensity;
+  const table = buildStripTable({ api, hull, logDensity, counters, strips, tailMass });
+  const cells = buildAliasCells(table);
+  // the sampler's own MT19937 (from `seed`) is read in blocks; an injected uniform one value at a time
+  const blk = setup.ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const st: TableState = { table, cells, logDensity, accepted: false };
+  const derivativeEvaluations = hull.derivativeEvaluations;
+  let failure: unknown;
+  const scratch = new Float64Array(1);
+  const run = (out: Float64Array, n: number): void => {
+    if (failure !== undefined) throw failure;
+    try {
+      tableFill(st, out, n, counters, blk, maxRejections);
+    } catch (e) {
+      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) failure = e;
+      throw e;
+    }
+  };
+  return {
+    sample(): number {
+      run(scratch, 1);
+      return scratch[0];
+    },
+    fill(out: Float64Array): Float64Array {
+      if (!(out instanceof Float64Array)) {
+        throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
+      }
+      run(out, out.length);
+      return out;
+    },
+    get stats(): SamplerStats {
+      return counters.snapshot();
+    },
+    get envelope(): EnvelopeDescription {
+      return describeTableEnvelope(table, derivativeEvaluations);
+    },
+    get table(): TableDescription {
+      return describeTable(table, cells);
+    },
+  };
+}

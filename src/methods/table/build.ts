@@ -1,0 +1,608 @@
+/**
+ * Construction of the strip table of the fast path: placement of the strips
+ * from a coarse look at the target through its hull, evaluation at the strip
+ * boundaries, shape checks, provable constant bounds per strip, the exact
+ * tails, and the region list the alias table is built from. @internal
+ *
+ * @remarks
+ * Notation: the body [x_0, x_n] is cut into n strips [x_i, x_{i+1}]; l_i is
+ * logDensity(x_i), y_i = T(f(x_i)/e^ref) its transformed value (T = log or
+ * T(f) = −1/√f, relative to ref = max l_i), c_i the chord slope of strip i
+ * in transformed space. The target is assumed T-concave (the hull engine's
+ * assumption), so
+ *
+ * 1. f is unimodal (T is increasing and T(f) concave, hence unimodal);
+ * 2. on every strip f ≥ the back-transformed chord ≥ min(f(x_i), f(x_{i+1}))
+ *    (a concave function lies above its chords): this is the strip's
+ *    constant squeeze m_i;
+ * 3. outside a chord's interval T(f) lies below the chord's extension
+ *    (Gilks 1992): the chords of strips i − 1 and i + 1, extended over strip
+ *    i, bound T(f) from above there;
+ * 4. if f(x_{i−1}) > f(x_i), the mode lies left of x_i, so f is
+ *    non-increasing on strip i and sup f = f(x_i); if f(x_{i+2}) > f(x_{i+1}),
+ *    f is non-decreasing on strip i and sup f = f(x_{i+1}) (by 1).
+ *
+ * The constant envelope M_i of strip i is therefore the larger endpoint
+ * value where 4 applies (every strip but the one or two around the mode),
+ * and otherwise the maximum over the strip of the minimum of the lines of 3
+ * — a concave function, maximal at an end or where the lines cross — or of
+ * the hull's own envelope on the strip, whichever is lower (both are valid
+ * upper bounds). Every bound is thus derived from values of the target and
+ * T-concavity alone; a draw-time evaluation that contradicts one contradicts
+ * T-concavity at the evaluated point and its neighbouring boundaries, which is
+ * reported as a {@link ShapeViolationError}. The bounds carry no extra margin:
+ * like the hull's, they are exact up to the rounding of the target's own
+ * values, which the checks absorb with the hull tolerance
+ * ({@link HULL_LOG_TOLERANCE_ABSOLUTE}).
+ *
+ * The tails beyond the body are bounded by the extension of the outermost
+ * chords (3 again): exponential pieces (T = log) or 1/(a + b·d)² pieces
+ * (inverse-sqrt), sampled exactly by inversion and accepted by evaluating
+ * the target.
+ *
+ * Placement. A coarse grid (about 80 points at quantiles of the hull's
+ * envelope on a logistic scale, so that the tails get as many points as the
+ * body, plus the hull's touch points and finite support ends) gives a
+ * piecewise exponential model of f. The body is the range between the
+ * model's `tailMass` and 1 − `tailMass` quantiles (or a finite support end
+ * where the density is not negligible). Three quarters of the strips are
+ * placed at equal mass of √f: the area of the caps (between M_i and m_i) of
+ * a strip of width w is about w²·|f'|, and widths proportional to f^(−1/2)
+ * make the total about 4·√(max f)·∫√f / n (for a standard normal 5.7/n,
+ * against 7.8/n for equal widths; for Student-t(3) 8/n against 68/n). The
+ * other quarter of the boundaries go at equal mass of f, which keeps the
+ * core resolved when √f has heavy tails (for a Cauchy-like target ∫√f grows
+ * like the log of the body's width, and √f alone would spend most strips
+ * far out). Boundaries that coincide are merged. The placement only affects
+ * efficiency, never exactness.
+ *
+ * @packageDocumentation
+ */
+import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
+import { evalLog } from '../../core/validate.js';
+import type { Counters } from '../../core/counters.js';
+import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../hull/hull.js';
+import type { Hull } from '../hull/hull.js';
+import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea } from '../hull/transforms.js';
+
+/** Region types of the alias table. @internal */
+export const R_SURE = 0;
+/** A sure region at a finite support end: its draws are clamped into the strip. @internal */
+export const R_SURE_CLAMPED = 1;
+/** The cap of a strip, between its squeeze and its envelope. @internal */
+export const R_CAP = 2;
+/** The left tail. @internal */
+export const R_LEFT_TAIL = 3;
+/** The right tail. @internal */
+export const R_RIGHT_TAIL = 4;
+
+/** Number of quantiles of the hull's envelope in the coarse grid. @internal */
+export const COARSE_POINTS = 81;
+/** The coarse quantiles run from this probability to 1 minus it, on a logistic scale. @internal */
+export const COARSE_EDGE = 1e-10;
+
+/** A tail piece: the back-transform of a line on [lo, hi], sampled from its high end `hx`. @internal */
+export interface TailPiece {
+  lo: number;
+  hi: number;
+  /** Anchor of the line (an end of the body) and its transformed value there. */
+  ax: number;
+  ay: number;
+  /** Slope of the line in transformed space. */
+  slope: number;
+  hx: number;
+  dir: number;
+  w: number;
+  sig: number;
+  th: number;
+  q: number;
+  /** Relative log area (add ref). */
+  logArea: number;
+}
+
+/** The strip table (everything but the alias cells). @internal */
+export interface StripTable {
+  readonly api: string;
+  readonly kind: number;
+  /** Reference log height: relative values are those of f/e^ref. */
+  readonly ref: number;
+  /** Effective support. */
+  readonly lower: number;
+  readonly upper: number;
+  /** Number of strips. */
+  readonly n: number;
+  /** Boundaries x_0..x_n. */
+  readonly x: Float64Array;
+  /** logDensity at the boundaries. */
+  readonly l: Float64Array;
+  /** Transformed values at the boundaries (relative to ref). */
+  readonly y: Float64Array;
+  /** Chord slopes (NaN where an end has density 0). */
+  readonly c: Float64Array;
+  /** Per strip: log of the constant envelope M_i (absolute). */
+  readonly logUp: Float64Array;
+  /** Per strip: log of the constant squeeze m_i (absolute). */
+  readonly logLo: Float64Array;
+  /** Per strip: M_i/e^ref and m_i/e^ref. */
+  readonly up: Float64Array;
+  readonly lo: Float64Array;
+  /** Per strip: slopes of the left and right upper lines (chords of the neighbours; NaN when absent). */
+  readonly sL: Float64Array;
+  readonly sR: Float64Array;
+  /** Tails (null when empty). */
+  readonly left: TailPiece | null;
+  readonly right: TailPiece | null;
+  /** Regions: type, strip index, relative area. */
+  readonly regType: Int8Array;
+  readonly regStrip: Int32Array;
+  readonly regArea: Float64Array;
+  readonly regions: number;
+  /** Relative areas: sure rectangles, caps, tails. */
+  readonly sureArea: number;
+  readonly capArea: number;
+  readonly tailArea: number;
+}
+
+/** Tolerance in transformed units for comparisons of points with log-densities la, lb (the hull's formula). @internal */
+export function tolY(kind: number, la: number, lb: number, ya: number, yb: number): number {
+  const tolL = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(la) + Math.abs(lb));
+  if (kind === T_LOG) return tolL;
+  return 0.5 * Math.max(-ya, -yb) * tolL;
+}
+
+/**
+ * True when (x1, y1) lies below the chord of (x0, y0) and (x2, y2) by more
+ * than the tolerance: three points that no T-concave function passes through.
+ * @internal
+ */
+export function notConcave(kind: number, x0: number, y0: number, l0: number, x1: number, y1: number, l1: number, x2: number, y2: number, l2: number): boolean {
+  if (l0 === -Infinity || l2 === -Infinity) return false;
+  if (l1 === -Infinity) return true;
+  const interp = y0 + (y2 - y0) * ((x1 - x0) / (x2 - x0));
+  const tol = Math.max(tolY(kind, l0, l1, y0, y1), tolY(kind, l1, l2, y1, y2));
+  return !(y1 - interp >= -tol);
+}
+
+/** The shape error of the table, naming the interval. @internal */
+export function tableShapeError(api: string, kind: number, detail: string, a: number, b: number): ShapeViolationError {
+  const name = kind === T_LOG ? 'log-concave' : 'T-concave for T(f) = -1/sqrt(f)';
+  const hint = kind === T_LOG
+    ? " (for heavier tails try transform: 'inverse-sqrt'; for several modes use piecewiseSampler)"
+    : ' (for several modes use piecewiseSampler)';
+  return new ShapeViolationError(`${api}: target is not ${name} on [${a}, ${b}]: ${detail}${hint}`, [a, b]);
+}
+
+/** Inputs of {@link buildStripTable}. @internal */
+export interface StripTableInput {
+  readonly api: string;
+  readonly hull: Hull;
+  readonly logDensity: (x: number) => number;
+  readonly counters: Counters;
+  readonly strips: number;
+  readonly tailMass: number;
+}
+
+/** ∫_0^w exp(p·(A + (B − A)·t/w)) dt for relative log values A, B ≤ about 0 (−∞ allowed, treated as a steep drop). */
+function expLinearMass(A: number, B: number, w: number, p: number): number {
+  if (A === -Infinity && B === -Infinity) return 0;
+  if (A === -Infinity) A = B - 30;
+  else if (B === -Infinity) B = A - 30;
+  const a = p * A;
+  const d = p * (B - A);
+  if (Math.abs(d) < 1e-9) return w * Math.exp(a + 0.5 * d);
+  return (w * (Math.exp(a + d) - Math.exp(a))) / d;
+}
+
+/** The s in [0, w] where ∫_0^s exp(p·(A + (B − A)·t/w)) dt = m (the inverse of {@link expLinearMass}). */
+function expLinearInverse(A: number, B: number, w: number, p: number, m: number): number {
+  if (A === -Infinity) A = B - 30;
+  else if (B === -Infinity) B = A - 30;
+  const a = p * A;
+  const d = p * (B - A);
+  let s: number;
+  if (Math.abs(d) < 1e-9) s = m / Math.exp(a + 0.5 * d);
+  else s = (w / d) * Math.log1p((m * d) / (w * Math.exp(a)));
+  if (!(s >= 0)) s = s !== s ? 0.5 * w : 0;
+  return s > w ? w : s;
+}
+
+/** Quantiles of the hull's envelope at the increasing probabilities `ps`. */
+function hullQuantiles(h: Hull, ps: readonly number[]): number[] {
+  const n = 2 * h.k;
+  let total = 0;
+  for (let j = 0; j < n; j++) total += h.area[j];
+  const out: number[] = [];
+  let j = 0;
+  let before = 0;
+  for (const p of ps) {
+    const v = p * total;
+    while (j < n - 1 && before + h.area[j] <= v) {
+      before += h.area[j];
+      j++;
+    }
+    const a = h.area[j];
+    let frac = a > 0 ? (v - before) / a : 0.5;
+    // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
+    if (h.dir[j] < 0) frac = 1 - frac;
+    if (!(frac >= 0)) frac = 0;
+    if (frac >= 1) frac = 0.9999999999999999;
+    const w = h.wd[j];
+    if (!(w > 0) || !(a > 0)) {
+      out.push(h.lo[j]);
+      continue;
+    }
+    const d = invertPiece(h.kind, h.pq[j], h.sig[j], w, frac);
+    let x = h.hx[j] + h.dir[j] * d;
+    if (x < h.lo[j]) x = h.lo[j];
+    else if (x > h.hi[j]) x = h.hi[j];
+    out.push(x);
+  }
+  return out;
+}
+
+/** Maximum of the hull's envelope (log, absolute) over [a, b]. */
+function hullMaxLog(h: Hull, a: number, b: number): number {
+  let best = -Infinity;
+  for (let j = 0; j < 2 * h.k; j++) {
+    const lo = h.lo[j];
+    const hi = h.hi[j];
+    if (!(hi >= lo) || hi < a || lo > b) continue;
+    const p = a > lo ? a : lo;
+    const q = b < hi ? b : hi;
+    const sl = h.sl[j];
+    for (const z of [p, q]) {
+      let t = h.at[j] + sl * (z - h.ax[j]);
+      if (t !== t) t = Infinity;
+      const v = logHeight(h.kind, t);
+      if (v > best) best = v;
+    }
+  }
+  return best + h.ref;
+}
+
+function makeTail(kind: number, lo: number, hi: number, ax: number, ay: number, slope: number): TailPiece {
+  let hx: number;
+  let dir: number;
+  if (slope > 0) {
+    hx = hi;
+    dir = -1;
+  } else {
+    hx = lo;
+    dir = 1;
+  }
+  const w = hi - lo;
+  const sig = Math.abs(slope);
+  const th = hx === Infinity || hx === -Infinity ? Infinity : ay + slope * (hx - ax);
+  const logArea = th === Infinity || th !== th ? Infinity : pieceLogArea(kind, th, sig, w);
+  const q = logArea < Infinity ? pieceConstant(kind, th, sig, w) : NaN;
+  return { lo, hi, ax, ay, slope, hx, dir, w, sig, th, q, logArea };
+}
+
+/**
+ * Builds the strip table from a hull after setup (see the module remarks).
+ * @internal
+ */
+export function buildStripTable(inp: StripTableInput): StripTable {
+  const { api, hull: h, logDensity, counters } = inp;
+  const kind = h.kind;
+  const lower = h.lower;
+  const upper = h.upper;
+  const evaluate = (x: number): number => {
+    counters.setupEvaluations++;
+    return evalLog(api, logDensity, x);
+  };
+
+  // ----- coarse model ---------------------------------------------------------
+  const ps: number[] = [];
+  const S = Math.log((1 - COARSE_EDGE) / COARSE_EDGE);
+  for (let i = 0; i < COARSE_POINTS; i++) ps.push(1 / (1 + Math.exp(S - (2 * S * i) / (COARSE_POINTS - 1))));
+  const pts = new Map<number, number>();
+  for (let i = 0; i < h.k; i++) pts.set(h.tx[i], h.tl[i]);
+  const qs = hullQuantiles(h, ps);
+  if (lower > -Infinity) qs.push(lower);
+  if (upper < Infinity) qs.push(upper);
+  for (const x of qs) if (!pts.has(x) && x >= lower && x <= upper) pts.set(x, evaluate(x));
+  const cx = Array.from(pts.keys()).sort((a, b) => a - b);
+  const cl = cx.map((x) => pts.get(x) as number);
+  let ref0 = -Infinity;
+  for (const v of cl) if (v > ref0) ref0 = v;
+  const C = cx.length;
+  const rel = cl.map((v) => v - ref0);
+  const gapMass = (g: number, p: number): number => expLinearMass(rel[g], rel[g + 1], cx[g + 1] - cx[g], p);
+  let F = 0;
+  for (let g = 0; g + 1 < C; g++) F += gapMass(g, 1);
+  if (!(F > 0 && F < Infinity) || C < 2) {
+    throw new InvalidTargetError(`${api}: the table could not locate the target's mass from its hull (coarse mass ${F} on [${cx[0]}, ${cx[C - 1]}])`);
+  }
+  // point at model mass m from the left (p = 1), within gap g
+  const locate = (m: number, p: number, from: readonly number[], fromRel: readonly number[]): number => {
+    let acc = 0;
+    for (let g = 0; g + 1 < from.length; g++) {
+      const w = from[g + 1] - from[g];
+      const gm = expLinearMass(fromRel[g], fromRel[g + 1], w, p);
+      if (acc + gm >= m) {
+        const s = expLinearInverse(fromRel[g], fromRel[g + 1], w, p, m - acc);
+        const x = from[g] + s;
+        return x > from[g + 1] ? from[g + 1] : x;
+      }
+      acc += gm;
+    }
+    return from[from.length - 1];
+  };
+  const eps = inp.tailMass;
+  const negligible = Math.log(eps);
+  let L = locate(eps * F, 1, cx, rel);
+  let R: number;
+  {
+    // right quantile: from the right, by symmetry of the walk
+    const rx = cx.map((x) => -x).reverse();
+    const rr = rel.slice().reverse();
+    R = -locate(eps * F, 1, rx, rr);
+  }
+  if (lower > -Infinity && cx[0] === lower && rel[0] >= negligible) L = lower;
+  if (upper < Infinity && cx[C - 1] === upper && rel[C - 1] >= negligible) R = upper;
+  if (!(R > L)) {
+    // the mass sits on (nearly) one point: use the coarse range
+    L = cx[0];
+    R = cx[C - 1];
+  }
+  // model nodes on [L, R]
+  const interp = (x: number): number => {
+    let g = 0;
+    while (g + 2 < C && cx[g + 1] <= x) g++;
+    const w = cx[g + 1] - cx[g];
+    const A = rel[g];
+    const B = rel[g + 1];
+    if (A === -Infinity || B === -Infinity) return x === cx[g] ? A : x === cx[g + 1] ? B : Math.max(A, B) - 15;
+    return A + ((B - A) * (x - cx[g])) / w;
+  };
+  const nx: number[] = [L];
+  const nl: number[] = [interp(L)];
+  for (let g = 0; g < C; g++) {
+    if (cx[g] > L && cx[g] < R) {
+      nx.push(cx[g]);
+      nl.push(rel[g]);
+    }
+  }
+  nx.push(R);
+  nl.push(interp(R));
+
+  // ----- strip boundaries: equal mass of √f, refined by equal mass of f ----------
+  const want = inp.strips;
+  const nF = Math.floor(want / 4);
+  const interior = (p: number, count: number): number[] => {
+    const out: number[] = [];
+    if (count < 2) return out;
+    // per gap of the model: mass and the constants of its inverse (expLinearMass / expLinearInverse, inlined)
+    const ng = nx.length - 1;
+    const gmass = new Array<number>(ng);
+    const ga = new Array<number>(ng);
+    const gd = new Array<number>(ng);
+    let G = 0;
+    for (let g = 0; g < ng; g++) {
+      let A = nl[g];
+      let B = nl[g + 1];
+      if (A === -Infinity && B === -Infinity) {
+        gmass[g] = 0;
+        ga[g] = -Infinity;
+        gd[g] = 0;
+        continue;
+      }
+      if (A === -Infinity) A = B - 30;
+      else if (B === -Infinity) B = A - 30;
+      const w = nx[g + 1] - nx[g];
+      const av = p * A;
+      const d = p * (B - A);
+      ga[g] = av;
+      gd[g] = d;
+      gmass[g] = Math.abs(d) < 1e-9 ? w * Math.exp(av + 0.5 * d) : (w * (Math.exp(av + d) - Math.exp(av))) / d;
+      G += gmass[g];
+    }
+    let g = 0;
+    let acc = 0;
+    for (let i = 1; i < count; i++) {
+      const m = (G * i) / count;
+      while (g + 1 < ng && acc + gmass[g] < m) acc += gmass[g++];
+      const w = nx[g + 1] - nx[g];
+      const d = gd[g];
+      const rem = m - acc;
+      let sx = Math.abs(d) < 1e-9 ? rem / Math.exp(ga[g] + 0.5 * d) : (w / d) * Math.log1p((rem * d) / (w * Math.exp(ga[g])));
+      if (!(sx >= 0)) sx = sx !== sx ? 0.5 * w : 0;
+      const x = nx[g] + (sx > w ? w : sx);
+      if (x > L && x < R) out.push(x);
+    }
+    return out;
+  };
+
+  // both lists are increasing: merge them, dropping duplicates
+  const qa = interior(0.5, want - nF);
+  const qb = interior(1, nF);
+  const bx: number[] = [L];
+  for (let ia = 0, ib = 0; ia < qa.length || ib < qb.length; ) {
+    const x = ib >= qb.length || (ia < qa.length && qa[ia] <= qb[ib]) ? qa[ia++] : qb[ib++];
+    if (x > bx[bx.length - 1]) bx.push(x);
+  }
+  if (R > bx[bx.length - 1]) bx.push(R);
+  const n = bx.length - 1;
+  if (n < 1) throw new InvalidTargetError(`${api}: the table has no strip of positive width on [${L}, ${R}]`);
+
+  // ----- values, shape checks ---------------------------------------------------
+  const x = Float64Array.from(bx);
+  const l = new Float64Array(n + 1);
+  let ref = -Infinity;
+  // the ends may be coarse points already evaluated; inner boundaries are new points
+  // (the loop inlines evalLog: this is the one loop of setup that runs once per strip)
+  for (let i = 0; i <= n; i++) {
+    const xi = x[i];
+    let v: number;
+    if ((i === 0 || i === n) && pts.has(xi)) v = pts.get(xi) as number;
+    else {
+      v = logDensity(xi);
+      counters.setupEvaluations++;
+      if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(api, xi, v);
+    }
+    l[i] = v;
+    if (v > ref) ref = v;
+  }
+  if (ref === -Infinity) throw new InvalidTargetError(`${api}: logDensity is -Infinity at every strip boundary on [${L}, ${R}]`);
+  let f0 = 0;
+  while (l[f0] === -Infinity) f0++;
+  let f1 = n;
+  while (l[f1] === -Infinity) f1--;
+  for (let i = f0; i <= f1; i++) {
+    if (l[i] === -Infinity) {
+      throw tableShapeError(api, kind, `logDensity(${x[i]}) is -Infinity between points of finite log-density, so the support is not an interval`, x[i - 1], x[i + 1]);
+    }
+  }
+  const y = new Float64Array(n + 1);
+  const e = new Float64Array(n + 1); // f(x_i)/e^ref
+  const isLog = kind === T_LOG;
+  for (let i = 0; i <= n; i++) {
+    const d = l[i] - ref;
+    const ei = Math.exp(d);
+    e[i] = ei;
+    // transformValue inlined: log: d; inverse-sqrt: −e^(−d/2) = −1/√(e^d)
+    y[i] = isLog ? d : -Math.exp(-0.5 * d);
+  }
+  const c = new Float64Array(n);
+  for (let i = 0; i < n; i++) c[i] = l[i] > -Infinity && l[i + 1] > -Infinity ? (y[i + 1] - y[i]) / (x[i + 1] - x[i]) : NaN;
+  // T-concavity at every inner boundary: y_i not below the chord of its neighbours (notConcave, inlined
+  // with its tolerance; the exact test runs only where the quick one fails)
+  for (let i = f0 + 1; i < f1; i++) {
+    const interp = y[i - 1] + (y[i + 1] - y[i - 1]) * ((x[i] - x[i - 1]) / (x[i + 1] - x[i - 1]));
+    if (y[i] - interp >= 0) continue;
+    if (notConcave(kind, x[i - 1], y[i - 1], l[i - 1], x[i], y[i], l[i], x[i + 1], y[i + 1], l[i + 1])) {
+      throw tableShapeError(
+        api,
+        kind,
+        `the chord slopes of the transformed density must not increase, but they are ${c[i - 1]} on [${x[i - 1]}, ${x[i]}] and ${c[i]} on [${x[i]}, ${x[i + 1]}] (log-density ${l[i - 1]}, ${l[i]}, ${l[i + 1]})`,
+        x[i - 1],
+        x[i + 1],
+      );
+    }
+  }
+
+  // ----- bounds per strip -----------------------------------------------------------
+  const logUp = new Float64Array(n);
+  const logLo = new Float64Array(n);
+  const up = new Float64Array(n);
+  const lo = new Float64Array(n);
+  const sL = new Float64Array(n);
+  const sR = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const la = l[i];
+    const lb = l[i + 1];
+    sL[i] = i >= 1 ? c[i - 1] : NaN;
+    sR[i] = i + 1 < n ? c[i + 1] : NaN;
+    logLo[i] = la < lb ? la : lb;
+    lo[i] = la < lb ? e[i] : e[i + 1];
+    let u: number;
+    let ue = NaN;
+    if (la === -Infinity && lb === -Infinity) {
+      u = -Infinity;
+      ue = 0;
+    } else if (i >= 1 && l[i - 1] > la) {
+      u = la;
+      ue = e[i];
+    } else if (i + 2 <= n && l[i + 2] > lb) {
+      u = lb;
+      ue = e[i + 1];
+    } else {
+      // around the mode: the minimum of the neighbouring chords' extensions, maximised over the strip
+      const a = x[i];
+      const b = x[i + 1];
+      const hasL = sL[i] === sL[i];
+      const hasR = sR[i] === sR[i];
+      let t = Infinity;
+      if (hasL || hasR) {
+        const lineL = (z: number): number => (hasL ? y[i] + sL[i] * (z - a) : Infinity);
+        const lineR = (z: number): number => (hasR ? y[i + 1] + sR[i] * (z - b) : Infinity);
+        const env = (z: number): number => Math.min(lineL(z), lineR(z));
+        t = Math.max(env(a), env(b));
+        if (hasL && hasR && sL[i] > sR[i]) {
+          // crossing of the two lines
+          const z = (y[i + 1] - sR[i] * b - (y[i] - sL[i] * a)) / (sL[i] - sR[i]);
+          if (z > a && z < b) t = Math.max(t, env(z));
+        }
+      }
+      const secant = t !== t ? Infinity : logHeight(kind, t) + ref;
+      const hullBound = hullMaxLog(h, x[i], x[i + 1]);
+      u = Math.min(secant, hullBound);
+      const top = la > lb ? la : lb;
+      if (!(u >= top)) u = top; // rounding: the bound can never be below the values it bounds
+      if (!(u < Infinity)) {
+        throw new ImproperDensityError(`${api}: no finite envelope on the strip [${x[i]}, ${x[i + 1]}] (hull bound ${hullBound})`);
+      }
+    }
+    logUp[i] = u;
+    up[i] = ue === ue ? ue : Math.exp(u - ref);
+  }
+
+  // ----- tails --------------------------------------------------------------------------
+  let left: TailPiece | null = null;
+  let right: TailPiece | null = null;
+  if (lower < x[0] && l[0] > -Infinity) {
+    if (!(c[0] === c[0])) throw new ImproperDensityError(`${api}: cannot bound the left tail below ${x[0]}: the first strip has density 0 at one end`);
+    left = makeTail(kind, lower, x[0], x[0], y[0], c[0]);
+    if (!(left.logArea < Infinity)) {
+      throw new ImproperDensityError(`${api}: the left tail below ${x[0]} is not integrable under the first strip's chord (slope ${c[0]}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
+    }
+  }
+  if (upper > x[n] && l[n] > -Infinity) {
+    if (!(c[n - 1] === c[n - 1])) throw new ImproperDensityError(`${api}: cannot bound the right tail above ${x[n]}: the last strip has density 0 at one end`);
+    right = makeTail(kind, x[n], upper, x[n], y[n], c[n - 1]);
+    if (!(right.logArea < Infinity)) {
+      throw new ImproperDensityError(`${api}: the right tail above ${x[n]} is not integrable under the last strip's chord (slope ${c[n - 1]}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
+    }
+  }
+
+  // ----- regions ------------------------------------------------------------------------
+  const maxReg = 2 * n + 2;
+  const regType = new Int8Array(maxReg);
+  const regStrip = new Int32Array(maxReg);
+  const regArea = new Float64Array(maxReg);
+  let r = 0;
+  let sureArea = 0;
+  let capArea = 0;
+  let tailArea = 0;
+  for (let i = 0; i < n; i++) {
+    const w = x[i + 1] - x[i];
+    if (!(w > 0) || logUp[i] === -Infinity) continue;
+    const sa = w * lo[i];
+    // the cap's area by subtraction: an absolute error of about 1e-16·w·M, far below any effect on the draws
+    const ca = w * (up[i] - lo[i]);
+    if (sa > 0) {
+      const clamped = (i === 0 && x[0] === lower) || (i === n - 1 && x[n] === upper);
+      regType[r] = clamped ? R_SURE_CLAMPED : R_SURE;
+      regStrip[r] = i;
+      regArea[r] = sa;
+      sureArea += sa;
+      r++;
+    }
+    if (ca > 0) {
+      regType[r] = R_CAP;
+      regStrip[r] = i;
+      regArea[r] = ca;
+      capArea += ca;
+      r++;
+    }
+  }
+  for (const [tail, type] of [[left, R_LEFT_TAIL], [right, R_RIGHT_TAIL]] as const) {
+    if (tail === null) continue;
+    const a = Math.exp(tail.logArea);
+    if (!(a > 0)) continue;
+    regType[r] = type;
+    regStrip[r] = type === R_LEFT_TAIL ? -1 : n;
+    regArea[r] = a;
+    tailArea += a;
+    r++;
+  }
+  const total = sureArea + capArea + tailArea;
+  if (!(total > 0 && total < Infinity)) {
+    throw new ImproperDensityError(`${api}: the table's envelope area is ${total} (relative to e^${ref}) on [${lower}, ${upper}]`);
+  }
+  return {
+    api, kind, ref, lower, upper, n, x, l, y, c, logUp, logLo, up, lo, sL, sR, left, right,
+    regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea,
+  };
+}

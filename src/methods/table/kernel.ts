@@ -1,0 +1,215 @@
+/**
+ * The sampling kernel of the fast path. @internal
+ *
+ * @packageDocumentation
+ */
+import type { Counters } from '../../core/counters.js';
+import { EnvelopeViolationError, NonFiniteDensityError, StalledSamplerError } from '../../core/errors.js';
+import type { UniformBlock } from '../../random/uniform-block.js';
+import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../hull/hull.js';
+import { T_LOG, invertPiece, logHeight, transformValue } from '../hull/transforms.js';
+import type { AliasCells } from './alias.js';
+import { CELL_STRIDE } from './alias.js';
+import type { StripTable, TailPiece } from './build.js';
+import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL, notConcave, tableShapeError } from './build.js';
+
+/** The largest double below 1. */
+const BELOW_ONE = 0.9999999999999999;
+
+/** A strip table with its alias cells and target: the state of a table sampler. @internal */
+export interface TableState {
+  readonly table: StripTable;
+  readonly cells: AliasCells;
+  readonly logDensity: (x: number) => number;
+  /** Outcome of the last slow-path candidate: true when accepted. */
+  accepted: boolean;
+}
+
+/**
+ * Fills `out[0..n)` (see {@link tableSampler} for the method and the stream).
+ *
+ * @remarks
+ * The loop body of the common case is: one uniform, a multiply, a
+ * truncation, a subtraction, the cell's threshold, one multiply-add and a
+ * sign test; nothing is allocated and no function but the uniform is
+ * called. Counters are kept in locals and added on exit (also when an
+ * error is thrown).
+ * @internal
+ */
+export function tableFill(st: TableState, out: Float64Array, n: number, counters: Counters, blk: UniformBlock, maxRejections: number): void {
+  const tab = st.cells.tab;
+  const K = st.cells.K;
+  const buf = blk.buf;
+  let pos = blk.pos;
+  let len = blk.len;
+  let i = 0;
+  let rejected = 0;
+  let streak = 0;
+  let inFlight = 0;
+  try {
+    while (i < n) {
+      if (pos >= len) {
+        blk.refill();
+        pos = 0;
+        len = blk.len;
+      }
+      const t = buf[pos++] * K;
+      const j = t | 0;
+      const v = t - j;
+      const o = j * CELL_STRIDE;
+      // branch-free choice between the cell's own region (v < P) and its alias:
+      // the two are about equally likely in many cells, so a branch would be mispredicted
+      const k = o + 1 + 2 * +(v >= tab[o]);
+      const s = tab[k + 1];
+      let x = tab[k] + v * s;
+      if (s > 0) {
+        out[i++] = x;
+        continue;
+      }
+      inFlight = 1;
+      blk.pos = pos;
+      x = slowCandidate(st, counters, j, v, blk);
+      pos = blk.pos;
+      len = blk.len;
+      inFlight = 0;
+      if (st.accepted) {
+        out[i++] = x;
+        streak = 0;
+        continue;
+      }
+      rejected++;
+      if (++streak >= maxRejections) {
+        throw new StalledSamplerError(st.table.api, streak, counters.samples + i, counters.proposals + i + rejected);
+      }
+    }
+  } finally {
+    if (inFlight === 0) blk.pos = pos;
+    counters.samples += i;
+    counters.proposals += i + rejected + inFlight;
+  }
+}
+
+/** Log-units tolerance of a comparison with log-density lf (the hull's). */
+function tolLog(ref: number, lf: number): number {
+  const lr = lf - ref;
+  return HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(ref) + Math.abs(lr === -Infinity ? 0 : lr));
+}
+
+/**
+ * The rare path, for cell j and cell variable v whose region is a cap, a
+ * tail or a clamped sure rectangle. Sets `st.accepted` and returns the
+ * candidate.
+ */
+function slowCandidate(st: TableState, counters: Counters, j: number, v: number, blk: UniformBlock): number {
+  const tb = st.table;
+  const tab = st.cells.tab;
+  const o = j * CELL_STRIDE;
+  const own = v < tab[o];
+  const b = own ? tab[o + 1] : tab[o + 3];
+  const r = -(own ? tab[o + 2] : tab[o + 4]) - 1;
+  let pos = b + v * st.cells.invT[r];
+  pos = pos < 0 ? 0 : pos >= 1 ? BELOW_ONE : pos;
+  const type = tb.regType[r];
+  const api = tb.api;
+  const kind = tb.kind;
+  const ref = tb.ref;
+  if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
+    const p = (type === R_LEFT_TAIL ? tb.left : tb.right) as TailPiece;
+    const d = invertPiece(kind, p.q, p.sig, p.w, pos);
+    let x = p.hx + p.dir * d;
+    if (x < p.lo) x = p.lo;
+    else if (x > p.hi) x = p.hi;
+    const lenv = logHeight(kind, p.ay + p.slope * (x - p.ax));
+    const lf = evaluate(st, counters, x);
+    if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
+    const u = blk.next();
+    st.accepted = u < Math.exp(lf - ref - lenv);
+    return x;
+  }
+  const i = tb.regStrip[r];
+  const a = tb.x[i];
+  const bb = tb.x[i + 1];
+  let x = a + (bb - a) * pos;
+  if (x < a) x = a;
+  else if (x > bb) x = bb;
+  if (type !== R_CAP) {
+    st.accepted = true;
+    return x;
+  }
+  // cap: a height uniform on (m_i, M_i] (1 − u keeps it above m_i ≥ 0, so it never is 0)
+  const up = tb.up[i];
+  const lo = tb.lo[i];
+  const hv = up - blk.next() * (up - lo);
+  const th = kind === T_LOG ? Math.log(hv) : -1 / Math.sqrt(hv);
+  // chord squeeze, anchored at its higher end
+  const y = tb.y;
+  const ci = tb.c[i];
+  const sq = ci === ci ? (y[i] >= y[i + 1] ? y[i] + ci * (x - a) : y[i + 1] + ci * (x - bb)) : -Infinity;
+  if (th < sq) {
+    st.accepted = true;
+    return x;
+  }
+  const sl = tb.sL[i];
+  const sr = tb.sR[i];
+  const tl = sl === sl ? y[i] + sl * (x - a) : Infinity;
+  const tr = sr === sr ? y[i + 1] + sr * (x - bb) : Infinity;
+  const ul = tl < tr ? tl : tr;
+  if (th >= ul) {
+    st.accepted = false;
+    return x;
+  }
+  const lf = evaluate(st, counters, x);
+  const tol = tolLog(ref, lf);
+  if (lf > tb.logUp[i] + tol) violation(st, x, lf, tb.logUp[i], 'envelope', i);
+  const lul = logHeight(kind, ul) + ref;
+  if (lf > lul + tol) violation(st, x, lf, lul, 'envelope', i);
+  const lsq = sq === -Infinity ? -Infinity : logHeight(kind, sq) + ref;
+  if (lf < lsq - tol) violation(st, x, lf, lsq, 'squeeze', i);
+  st.accepted = th < transformValue(kind, lf - ref);
+  return x;
+}
+
+/** Evaluates the target at x while sampling: counted, checked for NaN and +Infinity. */
+function evaluate(st: TableState, counters: Counters, x: number): number {
+  const lf = st.logDensity(x);
+  counters.densityEvaluations++;
+  if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(st.table.api, x, lf);
+  return lf;
+}
+
+/**
+ * Reports the target found above an envelope (or below a squeeze) at x in
+ * strip i (−1: left tail, n: right tail): a ShapeViolationError when x and
+ * the neighbouring strip boundaries contradict T-concavity (the bounds are
+ * derived from those values and T-concavity alone, so this is the case for
+ * any deterministic target), an EnvelopeViolationError otherwise.
+ */
+function violation(st: TableState, x: number, lf: number, bound: number, what: 'envelope' | 'squeeze', i: number): never {
+  const tb = st.table;
+  const kind = tb.kind;
+  const xs = tb.x;
+  const ls = tb.l;
+  const ys = tb.y;
+  const n = tb.n;
+  const yx = transformValue(kind, lf - tb.ref);
+  // the boundaries around x: x lies between boundary p − 1 and p
+  const p = i + 1;
+  const triples: [number, number, number, number, number, number, number, number, number][] = [];
+  const at = (k: number): [number, number, number] => [xs[k], ys[k], ls[k]];
+  if (p - 2 >= 0 && p - 1 <= n) triples.push([...at(p - 2), ...at(p - 1), x, yx, lf]);
+  if (p - 1 >= 0 && p <= n) triples.push([...at(p - 1), x, yx, lf, ...at(p)]);
+  if (p >= 0 && p + 1 <= n) triples.push([x, yx, lf, ...at(p), ...at(p + 1)]);
+  const rel = what === 'envelope' ? 'above the envelope' : 'below the squeeze';
+  for (const q of triples) {
+    if (notConcave(kind, ...q)) {
+      throw tableShapeError(
+        tb.api,
+        kind,
+        `target is ${rel} at x = ${x} (log target ${lf}, log ${what} ${bound}): the points ${q[0]}, ${q[3]}, ${q[6]} (log-density ${q[2]}, ${q[5]}, ${q[8]}) have increasing chord slopes of the transformed density`,
+        Math.min(q[0], q[6]),
+        Math.max(q[0], q[6]),
+      );
+    }
+  }
+  throw new EnvelopeViolationError(tb.api, x, lf, bound, what);
+}
