@@ -114,3 +114,10 @@ export function checkOptionKeys(api: string, opts: object | undefined, known: re
     }
   }
 }
+
+/** Throws unless `out` is a Float64Array (the argument of every `fill`). @internal */
+export function checkFillArray(api: string, out: unknown): void {
+  if (!(out instanceof Float64Array)) {
+    throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
+  }
+}

@@ -3,6 +3,7 @@
  *
  * @packageDocumentation
  */
+import { checkFillArray } from '../core/validate.js';
 import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
@@ -152,9 +153,7 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
       return scratch[0];
     },
     fill(out: Float64Array): Float64Array {
-      if (!(out instanceof Float64Array)) {
-        throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-      }
+      checkFillArray(api, out);
       run(out, out.length);
       return out;
     },

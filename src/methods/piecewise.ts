@@ -6,7 +6,7 @@
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import { checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { GuideTable } from './hull/guide-table.js';
@@ -408,9 +408,7 @@ class Piecewise implements PiecewiseSampler {
   }
 
   fill(out: Float64Array): Float64Array {
-    if (!(out instanceof Float64Array)) {
-      throw new InvalidTargetError(`${this.api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-    }
+    checkFillArray(this.api, out);
     this.run(out, out.length);
     return out;
   }

@@ -7,7 +7,7 @@
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget } from '../core/validate.js';
+import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 
@@ -278,9 +278,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
   }
 
   fill(out: Float64Array): Float64Array {
-    if (!(out instanceof Float64Array)) {
-      throw new InvalidTargetError(`${this.api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-    }
+    checkFillArray(this.api, out);
     this.run(out, out.length);
     return out;
   }

@@ -8,7 +8,7 @@ import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import { checkFinite, checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 
 /** Options of {@link rejectionSampler}. */
@@ -144,9 +144,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   return {
     sample: one,
     fill(out: Float64Array): Float64Array {
-      if (!(out instanceof Float64Array)) {
-        throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-      }
+      checkFillArray(api, out);
       for (let i = 0; i < out.length; i++) out[i] = one();
       return out;
     },

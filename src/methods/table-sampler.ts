@@ -6,7 +6,7 @@
  */
 import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger } from '../core/validate.js';
+import { checkInteger, checkFillArray } from '../core/validate.js';
 import type { AdaptiveRejectionSampler } from './adaptive-rejection.js';
 import type { EnvelopeDescription } from './hull/describe.js';
 import { setupHull } from './hull/setup.js';
@@ -222,9 +222,7 @@ export function createTableSampler(api: string, setup: HullSetup, options: Table
       return scratch[0];
     },
     fill(out: Float64Array): Float64Array {
-      if (!(out instanceof Float64Array)) {
-        throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-      }
+      checkFillArray(api, out);
       run(out, out.length);
       return out;
     },
