@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-export type { Uniform, Target, SamplerStats, Sampler, SamplerOptions, Proposal } from './core/types.js';
+export type { Uniform, Target, SamplerStats, Sampler, SamplerOptions, OwnedStream, Proposal } from './core/types.js';
 export {
   ExactDrawError,
   InvalidTargetError,

@@ -55,7 +55,7 @@ export function runBench(entries: BuiltinEntry[], opts: BenchOptions): BenchRepo
   selected.forEach((e, k) => {
     const index = entries.indexOf(e);
     const t0 = performance.now();
-    const s = e.create(substream(opts.seed, index));
+    const s = e.create(substream(opts.seed, index), { seed: opts.seed, stream: index });
     const setupMs = performance.now() - t0;
     s.fill(out); // warm-up (also adapts adaptive samplers)
     s.fill(out);

@@ -52,7 +52,7 @@ export function runCheck(entries: SuiteEntry[], opts: CheckOptions): CheckReport
     const index = entries.indexOf(e);
     const cdf = e.cdf!.bind(e);
     try {
-      const s = e.create(substream(opts.seed, index));
+      const s = e.create(substream(opts.seed, index), { seed: opts.seed, stream: index });
       const x = s.fill(new Float64Array(opts.n));
       const ks = ksCheck(x, cdf);
       const ad = andersonDarlingCheck(x, cdf);

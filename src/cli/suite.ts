@@ -8,7 +8,7 @@
  *
  * ```js
  * // my-samplers.mjs
- * import { rejectionSampler, normalTarget, cauchyProposal } from 'exactdraw';
+ * import { rejectionSampler, tableSampler, normalTarget, cauchyProposal } from 'exactdraw';
  * export const samplers = [
  *   {
  *     name: 'service time',                       // unique, shown in reports
@@ -16,22 +16,36 @@
  *     cdf: (x) => normalTarget(0, 1).cdf(x),      // optional: enables `check`
  *     reference: 'normal (stdlib ziggurat)',     // optional: a peer name for ratios
  *   },
+ *   {
+ *     name: 'service time (fast path)',
+ *     // the second argument names the same stream: { seed, stream }
+ *     create: (uniform, own) => tableSampler(normalTarget(0, 1), { ...own }),
+ *   },
  * ];
  * ```
+ *
+ * `create(uniform, own)` receives the stream as a uniform source and as
+ * `own = { seed, stream }` (the `substream` that `uniform` is): a factory
+ * uses one of them. Both give the same draws.
  *
  * @packageDocumentation
  */
 import { pathToFileURL } from 'node:url';
 import { resolve as resolvePath } from 'node:path';
 import { InvalidTargetError } from '../core/errors.js';
-import type { Sampler, Uniform } from '../core/types.js';
+import type { OwnedStream, Sampler, Uniform } from '../core/types.js';
 
 /** One sampler of a suite module. */
 export interface SuiteEntry {
   /** Unique name shown in reports and used by `--baseline` matching. */
   name: string;
-  /** Builds a fresh sampler that draws from the given uniform source only. */
-  create(uniform: Uniform): Sampler;
+  /**
+   * Builds a fresh sampler that draws from the given stream only: either by
+   * calling `uniform`, or by passing `own` (`{ seed, stream }`, the same
+   * substream) as sampler options so that the sampler owns it — same draws;
+   * the table-driven fast path is faster on a stream it owns.
+   */
+  create(uniform: Uniform, own: OwnedStream): Sampler;
   /** Optional normalized cdf of the target; entries with one are checked by `exactdraw check`. */
   cdf?(x: number): number;
   /** Optional name of a peer (built-in or another entry) to report a time ratio against. */

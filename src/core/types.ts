@@ -73,8 +73,34 @@ export interface SamplerOptions {
    * @defaultValue a fixed default seed (5489, the MT19937 reference seed), so runs are reproducible by default
    */
   seed?: number;
+  /**
+   * Stream index: with it the sampler draws from its own
+   * `substream(seed, stream)` (seed defaulting as above) instead of
+   * `mersenneTwister(seed)`. The values are exactly those of
+   * `substream(seed, stream)` called in order, so
+   * `{ seed: s, stream: k }` and `{ uniform: substream(s, k) }` give the same
+   * draws; the difference is ownership: a sampler that owns its source (from
+   * `seed`, with or without `stream`) may read it in blocks, which is faster
+   * for the table-driven fast path. An integer in [0, 2^53 − 1]; not
+   * allowed together with `uniform`. Since 0.1.0.
+   */
+  stream?: number;
   /** A uniform source on [0, 1) to use instead of the default MT19937. */
   uniform?: Uniform;
+}
+
+/**
+ * The stream handed to a sampler factory by {@link partitionedFill}, by
+ * `fillParallel` and by the `exactdraw` command: the seed and stream index
+ * of the `substream` that the factory's `uniform` argument is. Spread it into
+ * a sampler's options (`{ ...own }`) to let the sampler own that stream
+ * instead of calling `uniform` (same draws, see {@link SamplerOptions.stream}).
+ */
+export interface OwnedStream {
+  /** Seed of the substream. */
+  readonly seed: number;
+  /** Index of the substream. */
+  readonly stream: number;
 }
 
 /**

@@ -68,7 +68,7 @@ export interface AdaptiveRejectionSampler extends Sampler {
   readonly envelope: EnvelopeDescription;
 }
 
-const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'seed', 'uniform'] as const;
+const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'seed', 'stream', 'uniform'] as const;
 
 /**
  * Adaptive rejection sampling (Gilks & Wild 1992; derivative-free form

@@ -95,7 +95,7 @@ const SHAPE_SCAN_BUDGET = 100_000;
 /** Points more than this below the maximum log-density are left out of the T-concavity test (T would overflow). */
 const T_SCAN_DROP = 1200;
 
-const KNOWN = ['seed', 'uniform', 'maxRejections', 'expectedDraws'] as const;
+const KNOWN = ['seed', 'stream', 'uniform', 'maxRejections', 'expectedDraws'] as const;
 
 /**
  * From this many expected draws on, {@link exactSampler} serves log-concave and
@@ -197,7 +197,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   }
 
   const rejected: { method: string; error: string }[] = [];
-  const pass = { seed: opts.seed, uniform: opts.uniform, maxRejections: opts.maxRejections };
+  const pass = { seed: opts.seed, stream: opts.stream, uniform: opts.uniform, maxRejections: opts.maxRejections };
   const clean = <T extends object>(o: T): T => {
     const out: Record<string, unknown> = {};
     for (const [k, v] of Object.entries(o)) if (v !== undefined) out[k] = v;

@@ -207,7 +207,7 @@ export interface PiecewiseSampler extends Sampler {
   logSqueeze(x: number): number;
 }
 
-const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'derivativeFree', 'adapt', 'maxRejections', 'seed', 'uniform'] as const;
+const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'derivativeFree', 'adapt', 'maxRejections', 'seed', 'stream', 'uniform'] as const;
 
 /**
  * Exact sampler for multimodal and non-concave targets: the support is cut

@@ -114,7 +114,7 @@ export interface RatioOfUniformsSampler extends Sampler {
  */
 const SQUEEZE_TOLERANCE = 1e-12;
 
-const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'uniform'] as const;
+const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', 'uniform'] as const;
 
 /**
  * Ratio-of-uniforms sampler (Kinderman & Monahan 1977) with power r

@@ -45,7 +45,7 @@ export interface RejectionSampler extends Sampler {
 /** Relative tolerance of the envelope check, in log space: rounding in logf − log g − log C. */
 export const ENVELOPE_TOLERANCE = 1e-12;
 
-const KNOWN = ['proposal', 'logBound', 'squeeze', 'maxRejections', 'seed', 'uniform'] as const;
+const KNOWN = ['proposal', 'logBound', 'squeeze', 'maxRejections', 'seed', 'stream', 'uniform'] as const;
 
 /**
  * Plain rejection (von Neumann 1951) with an optional squeeze (Marsaglia 1977),

@@ -95,7 +95,7 @@ export interface TableSampler extends AdaptiveRejectionSampler {
   readonly table: TableDescription;
 }
 
-const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 'strips', 'tailMass', 'seed', 'uniform'] as const;
+const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 'strips', 'tailMass', 'seed', 'stream', 'uniform'] as const;
 
 /**
  * A table-driven exact sampler for a fixed T-concave target: after setup, a

@@ -10,7 +10,7 @@ import { partRange } from '../random/partition.js';
 
 /**
  * Which sampler to run in the workers: an entry of a sampler-suite module
- * (a module exporting `samplers: [{ name, create(uniform), cdf?, reference? }]`),
+ * (a module exporting `samplers: [{ name, create(uniform, own), cdf?, reference? }]`),
  * since functions cannot be sent to worker threads.
  */
 export interface ParallelSamplerSpec {
@@ -28,56 +28,228 @@ export interface FillParallelOptions {
   seed?: number;
 }
 
+/** Options of {@link createParallelFiller}. */
+export interface ParallelFillerOptions {
+  /** Number of worker threads (and parts of every fill). @defaultValue the machine's available parallelism */
+  workers?: number;
+}
+
+/** Options of one {@link ParallelFiller.fill}. */
+export interface ParallelFillOptions {
+  /** Seed; part k is drawn from `substream(seed, k)`. @defaultValue 5489 */
+  seed?: number;
+}
+
+/**
+ * A pool of worker threads that have loaded one sampler entry, for repeated
+ * parallel fills (replicates of a simulation) without paying for thread
+ * start-up and module loading each time. Made by {@link createParallelFiller}.
+ */
+export interface ParallelFiller {
+  /** Number of workers, which is also the number of parts of every fill. */
+  readonly workers: number;
+  /**
+   * Fills `out`: part k of `workers` (see `partRange`) with a fresh sampler
+   * built on `substream(seed, k)`; the result equals
+   * `partitionedFill(entry.create, out, workers, seed)`. One fill at a time:
+   * a call while another is running rejects.
+   */
+  fill(out: Float64Array, opts?: ParallelFillOptions): Promise<Float64Array>;
+  /** Stops the workers; later fills reject. Idle workers do not keep the process alive, so forgetting `close()` does not hang a program. */
+  close(): Promise<void>;
+}
+
+interface Reply {
+  ok: boolean;
+  ready?: boolean;
+  error?: string;
+}
+
+const API = 'fillParallel';
+
+function checkSpec(api: string, spec: ParallelSamplerSpec): void {
+  if (spec === null || typeof spec !== 'object' || typeof spec.module !== 'string' || typeof spec.name !== 'string') {
+    throw new InvalidTargetError(`${api}: spec must be { module: string, name: string }, got ${JSON.stringify(spec)}`);
+  }
+}
+
+function checkWorkers(api: string, workers: unknown): number {
+  const w = workers ?? availableParallelism();
+  if (typeof w !== 'number' || !Number.isInteger(w) || w < 1 || w > 256) throw new InvalidTargetError(`${api}: workers must be an integer in [1, 256], got ${String(w)}`);
+  return w;
+}
+
+function checkSeed(api: string, seed: unknown): number {
+  const s = seed ?? 5489;
+  if (typeof s !== 'number' || !Number.isInteger(s) || s < 0 || s > Number.MAX_SAFE_INTEGER) throw new InvalidTargetError(`${api}: seed must be an integer in [0, 2^53 - 1], got ${String(s)}`);
+  return s;
+}
+
+/** One worker thread and the promise of its current job. */
+class PoolWorker {
+  private readonly worker: Worker;
+  private pending: { resolve: () => void; reject: (e: Error) => void } | null = null;
+  private dead: Error | null = null;
+
+  constructor(
+    private readonly api: string,
+    private readonly index: number,
+    spec: ParallelSamplerSpec,
+  ) {
+    const url = new URL('./fill-worker.js', import.meta.url);
+    this.worker = new Worker(url, { workerData: { module: spec.module, name: spec.name, cwd: process.cwd() } });
+    this.worker.on('message', (m: Reply) => this.settle(m.ok ? null : new Error(`${this.api}: worker ${this.index} failed: ${m.error ?? 'unknown error'}`)));
+    this.worker.on('error', (e: Error) => this.fail(e));
+    this.worker.on('exit', (code) => this.fail(new Error(`${this.api}: worker ${this.index} exited with code ${code}`)));
+  }
+
+  /** Resolves when the worker has loaded the module and found the entry. */
+  ready(): Promise<void> {
+    return this.expect();
+  }
+
+  /** Runs one part; resolves when the part is filled. */
+  run(job: { seed: number; part: number; buffer: SharedArrayBuffer; byteOffset: number; length: number }): Promise<void> {
+    const p = this.expect();
+    if (this.dead === null) this.worker.postMessage(job);
+    return p;
+  }
+
+  async terminate(): Promise<void> {
+    if (this.dead === null) this.dead = new Error(`${this.api}: the filler is closed`);
+    await this.worker.terminate();
+  }
+
+  private expect(): Promise<void> {
+    if (this.dead !== null) return Promise.reject(this.dead);
+    this.worker.ref();
+    return new Promise<void>((resolve, reject) => {
+      this.pending = { resolve, reject };
+    });
+  }
+
+  private settle(err: Error | null): void {
+    const p = this.pending;
+    this.pending = null;
+    this.worker.unref();
+    if (p === null) return;
+    if (err === null) p.resolve();
+    else p.reject(err);
+  }
+
+  private fail(e: Error): void {
+    if (this.dead === null) this.dead = e;
+    this.settle(this.dead);
+  }
+}
+
+/**
+ * Starts `workers` threads that load the sampler entry `spec`, and returns a
+ * {@link ParallelFiller} for repeated fills.
+ *
+ * @remarks
+ * Starting a worker thread and loading a module into it costs a few hundred
+ * milliseconds (measured here: about 250–350 ms for a module that imports
+ * `exactdraw`; bench/parallel.mjs), which is as long as 1e7–2e7 draws of
+ * the fast path. A filler pays it once; {@link fillParallel} pays it on every
+ * call. The promise resolves when every worker has loaded the module and
+ * found the entry, and rejects (after stopping the workers) when one fails.
+ *
+ * @param spec - module and entry name of the sampler
+ * @param opts - worker count
+ * @returns a promise of the filler
+ * @throws InvalidTargetError (from `exactdraw`) for bad arguments
+ * @example
+ * ```ts
+ * const filler = await createParallelFiller({ module: './my-samplers.mjs', name: 'service time' }, { workers: 2 });
+ * for (let rep = 0; rep < 100; rep++) await filler.fill(draws, { seed: 1000 + rep });
+ * await filler.close();
+ * ```
+ */
+export async function createParallelFiller(spec: ParallelSamplerSpec, opts: ParallelFillerOptions = {}): Promise<ParallelFiller> {
+  return startFiller('createParallelFiller', spec, opts);
+}
+
+async function startFiller(api: string, spec: ParallelSamplerSpec, opts: ParallelFillerOptions): Promise<ParallelFiller> {
+  checkSpec(api, spec);
+  if (opts === null || typeof opts !== 'object') throw new InvalidTargetError(`${api}: options must be an object, got ${String(opts)}`);
+  const workers = checkWorkers(api, opts.workers);
+  const pool: PoolWorker[] = [];
+  for (let k = 0; k < workers; k++) pool.push(new PoolWorker(api, k, spec));
+  try {
+    await Promise.all(pool.map((w) => w.ready()));
+  } catch (e) {
+    await Promise.all(pool.map((w) => w.terminate()));
+    throw e;
+  }
+  let busy = false;
+  let closed = false;
+  return {
+    workers,
+    async fill(out: Float64Array, fillOpts: ParallelFillOptions = {}): Promise<Float64Array> {
+      if (closed) throw new Error(`${api}: the filler is closed`);
+      if (busy) throw new Error(`${api}: a fill is already running on this filler; await it first`);
+      if (!(out instanceof Float64Array)) throw new InvalidTargetError(`${api}: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
+      const seed = checkSeed(api, fillOpts?.seed);
+      busy = true;
+      try {
+        const shared = out.buffer instanceof SharedArrayBuffer;
+        const buffer = shared ? (out.buffer as SharedArrayBuffer) : new SharedArrayBuffer(out.length * 8);
+        const offset = shared ? out.byteOffset : 0;
+        const jobs: Promise<void>[] = [];
+        for (let k = 0; k < workers; k++) {
+          const [start, end] = partRange(out.length, workers, k);
+          if (end > start) jobs.push(pool[k].run({ seed, part: k, buffer, byteOffset: offset + start * 8, length: end - start }));
+        }
+        await Promise.all(jobs);
+        if (!shared) out.set(new Float64Array(buffer, 0, out.length));
+        return out;
+      } finally {
+        busy = false;
+      }
+    },
+    async close(): Promise<void> {
+      closed = true;
+      await Promise.all(pool.map((w) => w.terminate()));
+    },
+  };
+}
+
 /**
  * Fills `out` with draws from the sampler `spec` using `workers` threads.
  *
  * @remarks
  * Worker k fills the k-th contiguous part of `out` (see `partRange`) with a
- * fresh sampler built on `substream(seed, k)`, so the result is identical for
- * a given seed and worker count, and equal to
+ * fresh sampler built on `substream(seed, k)` (its factory gets the stream
+ * as `create(substream(seed, k), { seed, stream: k })`), so the result is
+ * identical for a given seed and worker count, and equal to
  * `partitionedFill(entry.create, out, workers, seed)` run in one thread.
  * If `out` is not backed by a `SharedArrayBuffer`, the draws are made into a
- * shared buffer and copied into `out` at the end.
+ * shared buffer and copied into `out` at the end (one more pass over the
+ * memory; a `SharedArrayBuffer`-backed `out` avoids it). Each call starts
+ * and stops its threads; for repeated fills use {@link createParallelFiller}.
  *
  * @param spec - module and entry name of the sampler
  * @param out - array to fill
  * @param opts - worker count and seed
  * @returns a promise of `out`
  * @throws InvalidTargetError (from `exactdraw`) for bad arguments; a worker's error rejects the promise
+ * @example
+ * ```ts
+ * const draws = new Float64Array(new SharedArrayBuffer(8 * 1e8));
+ * await fillParallel({ module: './my-samplers.mjs', name: 'service time' }, draws, { workers: 2, seed: 2026 });
+ * ```
  */
 export async function fillParallel(spec: ParallelSamplerSpec, out: Float64Array, opts: FillParallelOptions = {}): Promise<Float64Array> {
-  const api = 'fillParallel';
-  if (spec === null || typeof spec !== 'object' || typeof spec.module !== 'string' || typeof spec.name !== 'string') {
-    throw new InvalidTargetError(`${api}: spec must be { module: string, name: string }, got ${JSON.stringify(spec)}`);
+  checkSpec(API, spec);
+  if (!(out instanceof Float64Array)) throw new InvalidTargetError(`${API}: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
+  if (opts === null || typeof opts !== 'object') throw new InvalidTargetError(`${API}: options must be an object, got ${String(opts)}`);
+  const workers = checkWorkers(API, opts.workers);
+  const seed = checkSeed(API, opts.seed);
+  const filler = await startFiller(API, spec, { workers });
+  try {
+    return await filler.fill(out, { seed });
+  } finally {
+    await filler.close();
   }
-  if (!(out instanceof Float64Array)) throw new InvalidTargetError(`${api}: out must be a Float64Array`);
-  const workers = opts.workers ?? availableParallelism();
-  if (!Number.isInteger(workers) || workers < 1 || workers > 256) throw new InvalidTargetError(`${api}: workers must be an integer in [1, 256], got ${String(workers)}`);
-  const seed = opts.seed ?? 5489;
-  if (!Number.isInteger(seed) || seed < 0 || seed > Number.MAX_SAFE_INTEGER) throw new InvalidTargetError(`${api}: seed must be an integer in [0, 2^53 - 1], got ${String(seed)}`);
-  const shared = out.buffer instanceof SharedArrayBuffer;
-  const buffer = shared ? (out.buffer as SharedArrayBuffer) : new SharedArrayBuffer(out.length * 8);
-  const offset = shared ? out.byteOffset : 0;
-  const url = new URL('./fill-worker.js', import.meta.url);
-  const jobs: Promise<void>[] = [];
-  for (let k = 0; k < workers; k++) {
-    const [start, end] = partRange(out.length, workers, k);
-    if (end <= start) continue;
-    jobs.push(
-      new Promise<void>((resolve, reject) => {
-        const w = new Worker(url, { workerData: { module: spec.module, name: spec.name, seed, part: k, buffer, byteOffset: offset + start * 8, length: end - start, cwd: process.cwd() } });
-        w.once('message', (m: { ok: boolean; error?: string }) => {
-          if (m.ok) resolve();
-          else reject(new Error(`${api}: worker ${k} failed: ${m.error ?? 'unknown error'}`));
-        });
-        w.once('error', reject);
-        w.once('exit', (code) => {
-          if (code !== 0) reject(new Error(`${api}: worker ${k} exited with code ${code}`));
-        });
-      }),
-    );
-  }
-  await Promise.all(jobs);
-  if (!shared) out.set(new Float64Array(buffer, 0, out.length));
-  return out;
 }

@@ -1,6 +1,7 @@
 /**
- * Worker body of {@link fillParallel}: builds the sampler on its substream and
- * fills its part of the shared buffer.
+ * Worker body of `fillParallel` and `createParallelFiller`: loads the suite
+ * entry once, then for every job builds a fresh sampler on the job's
+ * substream and fills its part of the shared buffer.
  *
  * @packageDocumentation
  */
@@ -9,29 +10,45 @@ import { pathToFileURL } from 'node:url';
 import { isAbsolute, resolve } from 'node:path';
 import { substream } from '../random/substream.js';
 import { validateSuite } from '../cli/suite.js';
+import type { SuiteEntry } from '../cli/suite.js';
 
-interface Job {
+interface Init {
   module: string;
   name: string;
+  cwd: string;
+}
+
+interface Job {
   seed: number;
   part: number;
   buffer: SharedArrayBuffer;
   byteOffset: number;
   length: number;
-  cwd: string;
 }
 
-async function run(job: Job): Promise<void> {
-  const spec = /^[a-z]+:/i.test(job.module) ? job.module : pathToFileURL(isAbsolute(job.module) ? job.module : resolve(job.cwd, job.module)).href;
+const message = (e: unknown): string => (e instanceof Error ? e.message : String(e));
+
+async function load(init: Init): Promise<SuiteEntry> {
+  const spec = /^[a-z]+:/i.test(init.module) ? init.module : pathToFileURL(isAbsolute(init.module) ? init.module : resolve(init.cwd, init.module)).href;
   const mod = (await import(spec)) as { samplers?: unknown; default?: unknown };
-  const entries = validateSuite(job.module, mod.samplers ?? mod.default);
-  const entry = entries.find((e) => e.name === job.name);
-  if (entry === undefined) throw new Error(`no sampler named '${job.name}' in ${job.module} (have: ${entries.map((e) => e.name).join(', ')})`);
-  const view = new Float64Array(job.buffer, job.byteOffset, job.length);
-  entry.create(substream(job.seed, job.part)).fill(view);
+  const entries = validateSuite(init.module, mod.samplers ?? mod.default);
+  const entry = entries.find((e) => e.name === init.name);
+  if (entry === undefined) throw new Error(`no sampler named '${init.name}' in ${init.module} (have: ${entries.map((e) => e.name).join(', ')})`);
+  return entry;
 }
 
-run(workerData as Job).then(
-  () => parentPort?.postMessage({ ok: true }),
-  (e: unknown) => parentPort?.postMessage({ ok: false, error: e instanceof Error ? e.message : String(e) }),
+load(workerData as Init).then(
+  (entry) => {
+    parentPort?.on('message', (job: Job) => {
+      try {
+        const view = new Float64Array(job.buffer, job.byteOffset, job.length);
+        entry.create(substream(job.seed, job.part), { seed: job.seed, stream: job.part }).fill(view);
+        parentPort?.postMessage({ ok: true });
+      } catch (e) {
+        parentPort?.postMessage({ ok: false, error: message(e) });
+      }
+    });
+    parentPort?.postMessage({ ok: true, ready: true });
+  },
+  (e: unknown) => parentPort?.postMessage({ ok: false, error: message(e) }),
 );

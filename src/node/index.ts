@@ -4,7 +4,7 @@
  *
  * @packageDocumentation
  */
-export { fillParallel } from './fill-parallel.js';
-export type { ParallelSamplerSpec, FillParallelOptions } from './fill-parallel.js';
+export { fillParallel, createParallelFiller } from './fill-parallel.js';
+export type { ParallelSamplerSpec, FillParallelOptions, ParallelFiller, ParallelFillerOptions, ParallelFillOptions } from './fill-parallel.js';
 export { loadSuite, validateSuite } from '../cli/suite.js';
 export type { SuiteEntry } from '../cli/suite.js';

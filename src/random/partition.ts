@@ -5,7 +5,7 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from '../core/errors.js';
-import type { Sampler, Uniform } from '../core/types.js';
+import type { OwnedStream, Sampler, Uniform } from '../core/types.js';
 import { substream } from './substream.js';
 
 /**
@@ -22,7 +22,7 @@ export function partRange(length: number, parts: number, part: number): [number,
 
 /**
  * Fills `out` in `parts` contiguous parts, part k drawn by a fresh sampler
- * `create(substream(seed, k))`. This is, by definition, the result that
+ * `create(substream(seed, k), { seed, stream: k })`. This is, by definition, the result that
  * `fillParallel` from `exactdraw/node` returns for the same seed and worker
  * count, so a parallel run can be checked or replayed in one thread.
  *
@@ -33,20 +33,25 @@ export function partRange(length: number, parts: number, part: number): [number,
  * gives the same array as a single `partitionedFill(create, out, K, seed)`.
  * The result depends on (seed, parts), not on scheduling.
  *
- * @param create - builds a sampler from a uniform source
+ * The factory gets the stream twice: as a uniform source to call, and as
+ * {@link OwnedStream} `{ seed, stream }` to pass as sampler options
+ * (`tableSampler(t, { ...own })`), which makes the sampler own the same
+ * substream and lets the fast path read it in blocks (same draws, faster).
+ *
+ * @param create - builds a sampler from a uniform source (or from the stream it names)
  * @param out - array to fill
  * @param parts - number of parts (integer ≥ 1)
  * @param seed - integer seed in [0, 2^53 − 1]
  * @returns `out`
  * @throws {@link InvalidTargetError} for bad arguments
  */
-export function partitionedFill(create: (uniform: Uniform) => Sampler, out: Float64Array, parts: number, seed: number): Float64Array {
+export function partitionedFill(create: (uniform: Uniform, own: OwnedStream) => Sampler, out: Float64Array, parts: number, seed: number): Float64Array {
   if (typeof create !== 'function') throw new InvalidTargetError(`partitionedFill: create must be a function (uniform) => Sampler, got ${typeof create}`);
   if (!(out instanceof Float64Array)) throw new InvalidTargetError('partitionedFill: out must be a Float64Array');
   if (!Number.isInteger(parts) || parts < 1) throw new InvalidTargetError(`partitionedFill: parts must be an integer >= 1, got ${String(parts)}`);
   for (let k = 0; k < parts; k++) {
     const [a, b] = partRange(out.length, parts, k);
-    if (b > a) create(substream(seed, k)).fill(out.subarray(a, b));
+    if (b > a) create(substream(seed, k), { seed, stream: k }).fill(out.subarray(a, b));
   }
   return out;
 }

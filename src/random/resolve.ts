@@ -6,11 +6,13 @@
 import { InvalidTargetError } from '../core/errors.js';
 import type { SamplerOptions, Uniform } from '../core/types.js';
 import { DEFAULT_SEED, mersenneTwister } from './mersenne-twister.js';
+import { substream } from './substream.js';
 
 /**
  * Returns the uniform source selected by `opts`: the injected `uniform`
  * (wrapped so that a value outside [0, 1) throws instead of biasing draws), or
- * a fresh MT19937 seeded with `opts.seed`.
+ * a fresh MT19937 seeded with `opts.seed`, or `substream(seed, opts.stream)`
+ * when a stream index is given.
  * @internal
  */
 export function resolveUniform(api: string, opts: SamplerOptions | undefined): Uniform {
@@ -22,13 +24,21 @@ export function resolveUniform(api: string, opts: SamplerOptions | undefined): U
     if (opts?.seed !== undefined) {
       throw new InvalidTargetError(`${api}: give either options.seed or options.uniform, not both (seed = ${String(opts.seed)})`);
     }
+    if (opts?.stream !== undefined) {
+      throw new InvalidTargetError(`${api}: give either options.stream or options.uniform, not both (stream = ${String(opts.stream)})`);
+    }
     return checkedUniform(api, given);
   }
   const seed = opts?.seed ?? DEFAULT_SEED;
   if (typeof seed !== 'number' || !Number.isInteger(seed) || seed < 0 || seed > Number.MAX_SAFE_INTEGER) {
     throw new InvalidTargetError(`${api}: options.seed must be an integer in [0, 2^53 - 1], got ${String(seed)}`);
   }
-  return mersenneTwister(seed);
+  const stream = opts?.stream;
+  if (stream === undefined) return mersenneTwister(seed);
+  if (typeof stream !== 'number' || !Number.isInteger(stream) || stream < 0 || stream > Number.MAX_SAFE_INTEGER) {
+    throw new InvalidTargetError(`${api}: options.stream must be an integer in [0, 2^53 - 1], got ${String(stream)}`);
+  }
+  return substream(seed, stream);
 }
 
 /** Wraps an injected uniform so that values outside [0, 1) throw. @internal */

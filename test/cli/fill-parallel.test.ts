@@ -29,4 +29,53 @@ describe('fillParallel', () => {
     await expect(fillParallel({ module: TINY, name: 'nope' }, new Float64Array(10), { workers: 1 })).rejects.toThrow(/no sampler named 'nope'/);
     await expect(fillParallel({ module: TINY, name: 'tiny normal' }, new Float64Array(10), { workers: 0 })).rejects.toThrow(/workers/);
   });
+
+  it('fillParallel with a factory that owns its stream equals partitionedFill; a worker error rejects the promise with its message', async () => {
+    const { fillParallel } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
+    const { partitionedFill } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { samplers } = (await import(resolve(TINY))) as { samplers: import('../../src/node/index.js').SuiteEntry[] };
+    const fast = samplers.find((e) => e.name === 'tiny fast normal') as import('../../src/node/index.js').SuiteEntry;
+    const a = await fillParallel({ module: TINY, name: 'tiny fast normal' }, new Float64Array(20_000), { workers: 2, seed: 4 });
+    expect(Array.from(a)).toEqual(Array.from(partitionedFill(fast.create, new Float64Array(20_000), 2, 4)));
+    await expect(fillParallel({ module: 'test/fixtures/tiny-broken.mjs', name: 'tiny broken' }, new Float64Array(10), { workers: 2, seed: 1 })).rejects.toThrow(/worker \d failed: tiny broken: refused on purpose/);
+    await expect(fillParallel({ module: TINY, name: 'tiny normal' }, [1, 2] as unknown as Float64Array, { workers: 1 })).rejects.toThrow(/fillParallel: out must be a Float64Array/);
+    await expect(fillParallel({ module: TINY, name: 'tiny normal' }, new Float64Array(1), { seed: -1 })).rejects.toThrow(/fillParallel: seed must be an integer .*-1/);
+  });
+});
+
+describe('createParallelFiller', () => {
+  it('repeated fills on one pool equal partitionedFill for each seed; plain and shared arrays; fewer draws than workers', async () => {
+    const { createParallelFiller } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
+    const { partitionedFill } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { samplers } = (await import(resolve(TINY))) as { samplers: import('../../src/node/index.js').SuiteEntry[] };
+    const fast = samplers.find((e) => e.name === 'tiny fast normal') as import('../../src/node/index.js').SuiteEntry;
+    const filler = await createParallelFiller({ module: TINY, name: 'tiny fast normal' }, { workers: 3 });
+    try {
+      expect(filler.workers).toBe(3);
+      for (const seed of [1, 2, 1]) {
+        const got = await filler.fill(new Float64Array(30_001), { seed });
+        expect(Array.from(got)).toEqual(Array.from(partitionedFill(fast.create, new Float64Array(30_001), 3, seed)));
+      }
+      const shared = new Float64Array(new SharedArrayBuffer(8 * 5000), 8 * 1000, 3000);
+      await filler.fill(shared, { seed: 8 });
+      expect(Array.from(shared)).toEqual(Array.from(partitionedFill(fast.create, new Float64Array(3000), 3, 8)));
+      const two = await filler.fill(new Float64Array(2), { seed: 8 });
+      expect(Array.from(two)).toEqual(Array.from(partitionedFill(fast.create, new Float64Array(2), 3, 8)));
+      // one fill at a time
+      const first = filler.fill(new Float64Array(1000), { seed: 3 });
+      await expect(filler.fill(new Float64Array(10), { seed: 3 })).rejects.toThrow(/already running/);
+      await first;
+    } finally {
+      await filler.close();
+    }
+    await expect(filler.fill(new Float64Array(10))).rejects.toThrow(/closed/);
+  });
+
+  it('createParallelFiller rejects an unknown entry, a failing module and bad worker counts', async () => {
+    const { createParallelFiller } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
+    await expect(createParallelFiller({ module: TINY, name: 'nope' }, { workers: 2 })).rejects.toThrow(/no sampler named 'nope'/);
+    await expect(createParallelFiller({ module: 'test/fixtures/does-not-exist.mjs', name: 'x' }, { workers: 1 })).rejects.toThrow(/worker 0 failed/);
+    await expect(createParallelFiller({ module: TINY, name: 'tiny normal' }, { workers: 1.5 })).rejects.toThrow(/createParallelFiller: workers must be an integer .*1\.5/);
+    await expect(createParallelFiller({ module: 3 } as unknown as { module: string; name: string })).rejects.toThrow(/createParallelFiller: spec must be/);
+  });
 });
