@@ -48,6 +48,20 @@ interface StdlibPrng {
   state: Uint32Array;
 }
 
+/** The raw state of each generator made here (a fresh copy per call), for the block reader. */
+const RAW_STATE = new WeakMap<MersenneTwister, () => Uint32Array>();
+
+/**
+ * A copy of the raw @stdlib state array of `u` (the layout of
+ * {@link MersenneTwisterState.words}), or undefined when `u` was not made by
+ * this module. Cheaper than `saveState()` (no conversion to a plain array).
+ * @internal
+ */
+export function rawStateOf(u: MersenneTwister): Uint32Array | undefined {
+  const f = RAW_STATE.get(u);
+  return f === undefined ? undefined : f();
+}
+
 function wrap(prng: StdlibPrng): MersenneTwister {
   // The stdlib generator function itself is the uniform (no extra call per
   // draw); the exactdraw members are attached to it.
@@ -57,6 +71,7 @@ function wrap(prng: StdlibPrng): MersenneTwister {
     value: (): MersenneTwisterState => ({ format: STATE_FORMAT, version: 1, words: Array.from(prng.state) }),
     enumerable: true,
   });
+  RAW_STATE.set(u, () => prng.state);
   return u;
 }
 

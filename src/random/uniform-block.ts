@@ -28,6 +28,7 @@
  */
 import type { Uniform } from '../core/types.js';
 import type { MersenneTwister } from './mersenne-twister.js';
+import { rawStateOf } from './mersenne-twister.js';
 
 const N = 624;
 const M = 397;
@@ -71,7 +72,7 @@ export class UniformBlock {
 
   /** Blocks generated from the current state of an MT19937 source that the caller owns (nothing else may draw from it afterwards). */
   static fromOwnedMersenneTwister(u: MersenneTwister): UniformBlock {
-    const words = u.saveState().words;
+    const words: ArrayLike<number> = rawStateOf(u) ?? u.saveState().words;
     const mt = new Uint32Array(N);
     for (let i = 0; i < N; i++) mt[i] = words[STATE_OFFSET + i];
     return new UniformBlock(UNIFORM_BLOCK_SIZE, mt, words[INDEX_OFFSET], null);

@@ -67,8 +67,6 @@ import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea } from '../h
 
 /** Region types of the alias table. @internal */
 export const R_SURE = 0;
-/** A sure region at a finite support end: its draws are clamped into the strip. @internal */
-export const R_SURE_CLAMPED = 1;
 /** The cap of a strip, between its squeeze and its envelope. @internal */
 export const R_CAP = 2;
 /** The left tail. @internal */
@@ -572,8 +570,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
     // the cap's area by subtraction: an absolute error of about 1e-16·w·M, far below any effect on the draws
     const ca = w * (up[i] - lo[i]);
     if (sa > 0) {
-      const clamped = (i === 0 && x[0] === lower) || (i === n - 1 && x[n] === upper);
-      regType[r] = clamped ? R_SURE_CLAMPED : R_SURE;
+      regType[r] = R_SURE;
       regStrip[r] = i;
       regArea[r] = sa;
       sureArea += sa;

@@ -30,8 +30,8 @@ export interface TableState {
  *
  * @remarks
  * The loop body of the common case is: one uniform, a multiply, a
- * truncation, a subtraction, the cell's threshold, one multiply-add and a
- * sign test; nothing is allocated and no function but the uniform is
+ * truncation, a subtraction, the cell's threshold, one multiply-add, a
+ * sign test and the clamp to the support; nothing is allocated and no function but the uniform is
  * called. Counters are kept in locals and added on exit (also when an
  * error is thrown).
  * @internal
@@ -39,6 +39,8 @@ export interface TableState {
 export function tableFill(st: TableState, out: Float64Array, n: number, counters: Counters, blk: UniformBlock, maxRejections: number): void {
   const tab = st.cells.tab;
   const K = st.cells.K;
+  const lower = st.table.lower;
+  const upper = st.table.upper;
   const buf = blk.buf;
   let pos = blk.pos;
   let len = blk.len;
@@ -63,7 +65,8 @@ export function tableFill(st: TableState, out: Float64Array, n: number, counters
       const s = tab[k + 1];
       let x = tab[k] + v * s;
       if (s > 0) {
-        out[i++] = x;
+        // a sure rectangle; the clamp keeps a draw rounded past a finite end of the support inside it
+        out[i++] = x < lower ? lower : x > upper ? upper : x;
         continue;
       }
       inFlight = 1;
@@ -97,7 +100,7 @@ function tolLog(ref: number, lf: number): number {
 
 /**
  * The rare path, for cell j and cell variable v whose region is a cap, a
- * tail or a clamped sure rectangle. Sets `st.accepted` and returns the
+ * tail, or a sure rectangle too narrow for the one-step formula (S = 0). Sets `st.accepted` and returns the
  * candidate.
  */
 function slowCandidate(st: TableState, counters: Counters, j: number, v: number, blk: UniformBlock): number {
