@@ -2,6 +2,11 @@
 // Speed-up of parallel fills over one thread, against the build (dist/):
 //   npm run build && node bench/parallel.mjs [--draws 1e8] [--rounds 3] [--name "fast normal (own stream)"] [--json FILE]
 //
+// Per-core speed on shared virtual machines drifts by ±25 % over minutes (measured
+// here: the same fill at 14.5 and at 23 ns per draw a few minutes apart), so
+// every round runs all cases back to back and the per-round ratios are
+// reported next to the ratios of medians.
+//
 // The same n draws (the parts of substream(seed, 0) and substream(seed, 1))
 // are made, in every round, in this order:
 //   1. one thread:      partitionedFill(entry.create, out, 2, seed) in this process;
@@ -90,6 +95,12 @@ const res = {
     fillerOverOneThread: med.oneThread / med.pool2,
     fillerOverOneWorker: med.pool1 / med.pool2,
   },
+  // per-round ratios (each round's cases run back to back, so a slow phase of the machine hits both)
+  perRoundSpeedUp: {
+    oneShotOverOneWorker: median(times.oneShot1.map((v, r) => v / times.oneShot2[r])),
+    fillerOverOneWorker: median(times.pool1.map((v, r) => v / times.pool2[r])),
+    fillerOverOneThread: median(times.oneThread.map((v, r) => v / times.pool2[r])),
+  },
   identical: same,
   load: { start: load0, end: loadavg() },
 };
@@ -99,6 +110,7 @@ console.log(`  filler (running pool):   1 worker ${med.pool1.toFixed(0)} ms, 2 w
 console.log(`speed-up with 2 workers (target >= 1.8):`);
 console.log(`  one-shot fillParallel: ${res.speedUp.oneShotOverOneThread.toFixed(3)} over one thread, ${res.speedUp.oneShotOverOneWorker.toFixed(3)} over 1 worker`);
 console.log(`  running filler:        ${res.speedUp.fillerOverOneThread.toFixed(3)} over one thread, ${res.speedUp.fillerOverOneWorker.toFixed(3)} over 1 worker`);
+console.log(`  median of per-round ratios: one-shot ${res.perRoundSpeedUp.oneShotOverOneWorker.toFixed(3)} over 1 worker; filler ${res.perRoundSpeedUp.fillerOverOneWorker.toFixed(3)} over 1 worker, ${res.perRoundSpeedUp.fillerOverOneThread.toFixed(3)} over one thread`);
 console.log(`identical to the one-thread draws: ${same}`);
 console.log(`# load average at end: ${res.load.end}`);
 if (JSON_OUT) writeFileSync(JSON_OUT, JSON.stringify(res, null, 2) + '\n');

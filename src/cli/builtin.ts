@@ -109,6 +109,9 @@ export function builtinSuite(): BuiltinEntry[] {
     // the table-driven fast path (tableSampler); the injected uniform is read one value at a time
     { name: 'fast hull normal', reference: PEERS.normal, create: (uniform) => ed.tableSampler(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
     { name: 'fast hull gamma(2.5)', reference: PEERS.gamma, create: (uniform) => ed.tableSampler(gamma, { uniform }), cdf: (x) => gamma.cdf!(x) },
+    // the same samplers owning the same substream (create's second argument): same draws, read in blocks
+    { name: 'fast hull normal (own stream)', reference: PEERS.normal, create: (_u, own) => ed.tableSampler(normal, { ...own }), cdf: (x) => normal.cdf!(x) },
+    { name: 'fast hull gamma(2.5) (own stream)', reference: PEERS.gamma, create: (_u, own) => ed.tableSampler(gamma, { ...own }), cdf: (x) => gamma.cdf!(x) },
     {
       name: 'fast hull student-t(3), inverse-sqrt',
       reference: PEERS.uniform,
