@@ -28,7 +28,8 @@ const USAGE = `usage:
   exactdraw check [module] [options]   KS and Anderson-Darling for every sampler with a cdf
       --n N (20000)  --seed S (20261201)  --alpha A (0.001, overall)  --only NAME  --json
 
-A module exports 'samplers': [{ name, create(uniform) => Sampler, cdf?, reference? }].`;
+A module exports 'samplers': [{ name, create(uniform, own) => Sampler, cdf?, reference? }];
+own = { seed, stream } names the same substream as uniform (pass it as sampler options to own it).`;
 
 class UsageError extends Error {}
 

@@ -55,7 +55,7 @@ export interface SuiteEntry {
 /** Validates the entries of a suite and returns them. */
 export function validateSuite(source: string, value: unknown): SuiteEntry[] {
   if (!Array.isArray(value)) {
-    throw new InvalidTargetError(`exactdraw: ${source} must export 'samplers' (or a default export): an array of { name, create(uniform), cdf?, reference? }`);
+    throw new InvalidTargetError(`exactdraw: ${source} must export 'samplers' (or a default export): an array of { name, create(uniform, own), cdf?, reference? }`);
   }
   const seen = new Set<string>();
   value.forEach((e: unknown, i) => {
