@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-import kstest from '@stdlib/stats-kstest';
+import { kstest } from '../vendor/stdlib.js';
 import { InvalidTargetError } from '../core/errors.js';
 
 /** Result of a goodness-of-fit check. */

@@ -4,8 +4,7 @@
  *
  * @packageDocumentation
  */
-import ziggurat from '@stdlib/random-base-improved-ziggurat';
-import stdlibGamma from '@stdlib/random-base-gamma';
+import { gammaFactory, zigguratFactory } from '../vendor/peers.js';
 import * as ed from '../index.js';
 import type { Sampler, SamplerStats, Uniform } from '../core/types.js';
 import type { SuiteEntry } from './suite.js';
@@ -64,13 +63,13 @@ export function builtinSuite(): BuiltinEntry[] {
     {
       name: PEERS.normal,
       peer: true,
-      create: (u: Uniform) => peerSampler(ziggurat.factory({ prng: u })),
+      create: (u: Uniform) => peerSampler(zigguratFactory({ prng: u })),
       cdf: (x) => normal.cdf!(x),
     },
     {
       name: PEERS.gamma,
       peer: true,
-      create: (u: Uniform) => peerSampler(stdlibGamma.factory(2.5, 1, { prng: u })),
+      create: (u: Uniform) => peerSampler(gammaFactory(2.5, 1, { prng: u })),
       cdf: (x) => gamma.cdf!(x),
     },
     {

@@ -4,7 +4,8 @@
  *
  * @packageDocumentation
  */
-import mt19937 from '@stdlib/random-base-mt19937';
+import { mt19937Factory } from '../vendor/stdlib.js';
+import type { StdlibMt19937 } from '../vendor/stdlib.js';
 import { InvalidTargetError } from '../core/errors.js';
 import type { Uniform } from '../core/types.js';
 
@@ -42,11 +43,7 @@ export interface MersenneTwister extends Uniform {
   saveState(): MersenneTwisterState;
 }
 
-interface StdlibPrng {
-  (): number;
-  normalized: { (): number; state: Uint32Array };
-  state: Uint32Array;
-}
+type StdlibPrng = StdlibMt19937;
 
 /** The raw state of each generator made here (a fresh copy per call), for the block reader. */
 const RAW_STATE = new WeakMap<MersenneTwister, () => Uint32Array>();
@@ -62,7 +59,8 @@ export function rawStateOf(u: MersenneTwister): Uint32Array | undefined {
   return f === undefined ? undefined : f();
 }
 
-function wrap(prng: StdlibPrng): MersenneTwister {
+/** Wraps an @stdlib MT19937 generator as a {@link MersenneTwister}. @internal */
+export function wrapStdlibMt(prng: StdlibPrng): MersenneTwister {
   // The stdlib generator function itself is the uniform (no extra call per
   // draw); the exactdraw members are attached to it.
   const u = prng.normalized as unknown as MersenneTwister;
@@ -105,8 +103,8 @@ export function mersenneTwister(seed: number = DEFAULT_SEED): MersenneTwister {
   if (typeof seed !== 'number' || !Number.isInteger(seed) || seed < 0 || seed > MAX_SEED) {
     throw new InvalidTargetError(`mersenneTwister: seed must be an integer in [0, 2^53 - 1], got ${String(seed)}`);
   }
-  const prng = mt19937.factory({ seed: seedWords(seed), copy: true }) as unknown as StdlibPrng;
-  return wrap(prng);
+  const prng = mt19937Factory({ seed: seedWords(seed), copy: true });
+  return wrapStdlibMt(prng);
 }
 
 /**
@@ -130,9 +128,9 @@ export function restoreMersenneTwister(state: MersenneTwisterState): MersenneTwi
   }
   let prng: StdlibPrng;
   try {
-    prng = mt19937.factory({ state: new Uint32Array(words), copy: true }) as unknown as StdlibPrng;
+    prng = mt19937Factory({ state: new Uint32Array(words), copy: true });
   } catch (e) {
     throw new InvalidTargetError(`restoreMersenneTwister: state rejected (${(e as Error).message})`);
   }
-  return wrap(prng);
+  return wrapStdlibMt(prng);
 }

@@ -3,10 +3,10 @@
  *
  * @packageDocumentation
  */
-import mt19937 from '@stdlib/random-base-mt19937';
+import { mt19937Factory } from '../vendor/stdlib.js';
 import { InvalidTargetError } from '../core/errors.js';
 import type { MersenneTwister } from './mersenne-twister.js';
-import { restoreMersenneTwister } from './mersenne-twister.js';
+import { wrapStdlibMt } from './mersenne-twister.js';
 
 const TWO32 = 4294967296;
 
@@ -66,6 +66,5 @@ export function substream(seed: number, index: number): MersenneTwister {
       throw new InvalidTargetError(`substream: ${name} must be an integer in [0, 2^53 - 1], got ${String(v)}`);
     }
   }
-  const prng = mt19937.factory({ seed: substreamKey(seed, index), copy: true }) as unknown as { state: Uint32Array };
-  return restoreMersenneTwister({ format: 'exactdraw/mt19937-state', version: 1, words: Array.from(prng.state) });
+  return wrapStdlibMt(mt19937Factory({ seed: substreamKey(seed, index), copy: true }));
 }

@@ -3,8 +3,7 @@
  *
  * @packageDocumentation
  */
-import betaln from '@stdlib/math-base-special-betaln';
-import betaCdf from '@stdlib/stats-base-dists-beta-cdf';
+import { betaCdf, betaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 

@@ -3,8 +3,7 @@
  *
  * @packageDocumentation
  */
-import gammaln from '@stdlib/math-base-special-gammaln';
-import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
+import { gammaCdf, gammaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import { lowerRegularizedGamma, upperRegularizedGamma } from './_internals/gamma-series.js';

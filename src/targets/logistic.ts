@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-import logisticCdf from '@stdlib/stats-base-dists-logistic-cdf';
+import { logisticCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 

@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
+import { normalCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 

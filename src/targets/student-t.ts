@@ -3,8 +3,7 @@
  *
  * @packageDocumentation
  */
-import betaln from '@stdlib/math-base-special-betaln';
-import tCdf from '@stdlib/stats-base-dists-t-cdf';
+import { betaln, tCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 

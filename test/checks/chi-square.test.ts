@@ -1,4 +1,5 @@
 import erfc from '@stdlib/math-base-special-erfc';
+import chi2gof from '@stdlib/stats-chi2gof';
 import { describe, expect, it } from 'vitest';
 import { InvalidTargetError, chiSquareCheck, mersenneTwister } from '../../src/index.js';
 import { upperRegularizedGamma } from '../../src/targets/_internals/gamma-series.js';
@@ -47,6 +48,42 @@ describe('chiSquareCheck', () => {
     const p = new Array<number>(6).fill(1 / 6);
     expect(chiSquareCheck(fair, p).pValue).toBeGreaterThan(ALPHA);
     expect(chiSquareCheck(biased, p).pValue).toBeLessThan(ALPHA);
+  });
+
+  it('chiSquareCheck agrees with @stdlib/stats-chi2gof (statistic, df, p-value) on 200 random tables', () => {
+    // Reference: @stdlib/stats-chi2gof (Pearson statistic and chi-square upper tail).
+    const u = mersenneTwister(4401);
+    for (let t = 0; t < 200; t++) {
+      const k = 2 + Math.floor(u() * 30);
+      const w = Array.from({ length: k }, () => 0.05 + u());
+      const tot = w.reduce((a, b) => a + b, 0);
+      const p = w.map((v) => v / tot);
+      const n = 20 + Math.floor(u() * 5000);
+      const skew = u() < 0.5 ? 0 : 0.3 * u();
+      const counts = new Array<number>(k).fill(0);
+      for (let i = 0; i < n; i++) {
+        let v = u() ** (1 + skew);
+        let j = 0;
+        while (j < k - 1 && v >= p[j]) v -= p[j++];
+        counts[j]++;
+      }
+      const ours = chiSquareCheck(counts, p);
+      const ref = chi2gof(Float64Array.from(counts), Float64Array.from(p)) as { statistic: number; pValue: number; df: number };
+      expect(ours.statistic).toBeCloseTo(ref.statistic, 9);
+      expect(ours.df).toBe(ref.df);
+      expect(Math.abs(ours.pValue - ref.pValue)).toBeLessThanOrEqual(1e-12 + 1e-9 * ref.pValue);
+    }
+  });
+
+  it('chiSquareCheck: a zero-probability bin is ignored when empty and gives X² = Infinity, p = 0 when not', () => {
+    const a = chiSquareCheck([10, 20, 0, 30], [0.2, 0.3, 0, 0.5]);
+    expect(a.statistic).toBeCloseTo(5 / 9, 12); // the df = 2 example above
+    expect(a.df).toBe(2);
+    const b = chiSquareCheck([10, 20, 1, 30], [0.2, 0.3, 0, 0.5]);
+    expect(b.statistic).toBe(Infinity);
+    expect(b.pValue).toBe(0);
+    expect(() => chiSquareCheck([0, 0], [0.5, 0.5])).toThrow(/chiSquareCheck: counts sum to 0/);
+    expect(() => chiSquareCheck([3, 0], [1, 0])).toThrow(/at least two bins must have positive probability/);
   });
 
   it('chiSquareCheck rejects bad inputs with InvalidTargetError', () => {

@@ -6,7 +6,7 @@
  *
  * @packageDocumentation
  */
-import gammaln from '@stdlib/math-base-special-gammaln';
+import { gammaln } from '../../vendor/stdlib.js';
 
 const EPS = 2.220446049250313e-16;
 /** Smallest magnitude kept by the modified Lentz recurrence (common practice). */

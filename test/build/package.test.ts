@@ -1,0 +1,91 @@
+/**
+ * The published build (dist/, made by `npm run build` before the tests run):
+ * self-contained (no runtime dependency), no Node built-in in the library
+ * core, both module formats usable and equal, licenses of bundled code shipped.
+ */
+import { describe, expect, it } from 'vitest';
+import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { join, resolve } from 'node:path';
+
+const DIST = resolve('dist');
+const NODE_BUILTINS = ['assert', 'buffer', 'child_process', 'crypto', 'fs', 'module', 'os', 'path', 'process', 'stream', 'url', 'util', 'worker_threads', 'zlib'];
+
+function files(dir: string): string[] {
+  const out: string[] = [];
+  for (const name of readdirSync(dir)) {
+    const p = join(dir, name);
+    if (statSync(p).isDirectory()) out.push(...files(p));
+    else if (p.endsWith('.js')) out.push(p);
+  }
+  return out;
+}
+
+/** Module specifiers of static imports, dynamic imports and requires in a file. */
+function specifiers(src: string): string[] {
+  const out: string[] = [];
+  // comments out (TSDoc examples mention imports); a `//` after ':' or a quote is kept (URLs in strings)
+  const code = src.replace(/\/\*[\s\S]*?\*\//g, '').replace(/(^|[^:'"\\])\/\/.*$/gm, '$1');
+  // `import … from 'x'` / `export … from 'x'`, `import 'x'`, `import('x')`, `require('x')`
+  const re = /(?:\b(?:import|export)\b[^;'"()]*?\bfrom\s*|\bimport\s*\(\s*|\brequire\s*\(\s*|^\s*import\s+)(['"])([^'"\s]+)\1/gm;
+  for (let m = re.exec(code); m !== null; m = re.exec(code)) out.push(m[2]);
+  return out;
+}
+
+describe('published build', () => {
+  it('package.json declares no runtime dependencies; no file in dist/ imports a package by name', () => {
+    const pkg = JSON.parse(readFileSync('package.json', 'utf8')) as { dependencies?: Record<string, string> };
+    expect(pkg.dependencies ?? {}).toEqual({});
+    const bare: string[] = [];
+    for (const f of files(DIST)) {
+      for (const s of specifiers(readFileSync(f, 'utf8'))) {
+        if (!s.startsWith('.') && !s.startsWith('node:') && !NODE_BUILTINS.includes(s)) bare.push(`${f}: ${s}`);
+      }
+    }
+    expect(bare).toEqual([]);
+  });
+
+  it('the library core (everything but dist/cli and dist/node) imports no Node built-in', () => {
+    const found: string[] = [];
+    for (const f of files(DIST)) {
+      const rel = f.slice(DIST.length + 1);
+      if (rel.startsWith('cli/') || rel.startsWith('node/') || rel === 'vendor/peers.js') continue;
+      for (const s of specifiers(readFileSync(f, 'utf8'))) {
+        if (s.startsWith('node:') || NODE_BUILTINS.includes(s)) found.push(`${rel}: ${s}`);
+      }
+    }
+    expect(found).toEqual([]);
+  });
+
+  it('the specifier scan itself finds imports, requires and Node built-ins (twin of the two checks above)', () => {
+    const sample = `import a from '@stdlib/x';\nconst b = require("path");\nconst c = await import('node:fs');\nimport './side.js';\nexport { d } from "./d.js";\nsetProp(Array, "from", function from(src) { return "x"; });\n/** import { y } from 'in-a-comment'; */\n// import z from 'also-a-comment';`;
+    expect(specifiers(sample)).toEqual(['@stdlib/x', 'path', 'node:fs', './side.js', './d.js']);
+  });
+
+  it('the CommonJS build loads with require() and draws what the ESM build draws', async () => {
+    const require = createRequire(import.meta.url);
+    const cjs = require(join(DIST, 'cjs/index.js')) as typeof import('../../src/index.js');
+    const esm = (await import(join(DIST, 'index.js'))) as typeof import('../../src/index.js');
+    const a = cjs.tableSampler(cjs.gammaTarget(2.5), { seed: 3 }).fill(new Float64Array(1000));
+    const b = esm.tableSampler(esm.gammaTarget(2.5), { seed: 3 }).fill(new Float64Array(1000));
+    expect(Array.from(a)).toEqual(Array.from(b));
+    // the bundled @stdlib functions are wired: cdfs and the MT19937 check value
+    // (10,000th output for seed 5489 is 4123659995, ISO/IEC 14882:2011 [rand.predef])
+    for (const m of [cjs, esm]) {
+      expect(m.normalTarget(0, 1).cdf?.(1.96)).toBeCloseTo(0.9750021048517795, 12); // Φ(1.96), from memory (standard normal tables)
+      const u = m.mersenneTwister(5489);
+      let v = 0;
+      for (let i = 0; i < 10_000; i++) v = u.uint32();
+      expect(v).toBe(4123659995);
+    }
+    expect(() => cjs.tableSampler(cjs.normalTarget(0, 1), { strips: 1 })).toThrow(cjs.InvalidTargetError);
+  });
+
+  it('dist/vendor/THIRD_PARTY_LICENSES.md lists the bundled packages with their license texts', () => {
+    const md = readFileSync(join(DIST, 'vendor/THIRD_PARTY_LICENSES.md'), 'utf8');
+    for (const name of ['@stdlib/random-base-mt19937', '@stdlib/stats-kstest', '@stdlib/stats-base-dists-gamma-cdf', '@stdlib/random-base-improved-ziggurat']) {
+      expect(md).toContain(`- ${name}@`);
+    }
+    expect(md).toContain('Apache License');
+  });
+});
