@@ -7,6 +7,8 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { join, resolve } from 'node:path';
+import vm from 'node:vm';
+import { build } from 'esbuild';
 
 const DIST = resolve('dist');
 const NODE_BUILTINS = ['assert', 'buffer', 'child_process', 'crypto', 'fs', 'module', 'os', 'path', 'process', 'stream', 'url', 'util', 'worker_threads', 'zlib'];
@@ -79,6 +81,33 @@ describe('published build', () => {
       expect(v).toBe(4123659995);
     }
     expect(() => cjs.tableSampler(cjs.normalTarget(0, 1), { strips: 1 })).toThrow(cjs.InvalidTargetError);
+  });
+
+  it('the core runs in a bare ECMAScript context (no process, Buffer, require, timers): bundled dist/index.js in node:vm draws what Node draws', async () => {
+    // a stand-in for a browser or another runtime: only the language's own globals exist
+    const r = await build({ entryPoints: [join(DIST, 'index.js')], bundle: true, format: 'iife', globalName: 'exactdraw', platform: 'neutral', write: false, logLevel: 'silent' });
+    const ctx = vm.createContext({});
+    vm.runInContext(r.outputFiles[0].text, ctx);
+    const got = JSON.parse(
+      vm.runInContext(
+        `(() => {
+          const e = exactdraw;
+          const fast = Array.from(e.tableSampler(e.normalTarget(0, 1), { seed: 1 }).fill(new Float64Array(200)));
+          const auto = Array.from(e.exactSampler(e.gammaTarget(2.5), { seed: 2 }).fill(new Float64Array(200)));
+          const ks = e.ksCheck(new Float64Array(auto), e.gammaTarget(2.5).cdf).pValue;
+          let typed = '';
+          try { e.tableSampler(e.normalTarget(0, 1), { strips: 1 }); } catch (err) { typed = err instanceof e.InvalidTargetError ? err.code : 'other'; }
+          return JSON.stringify({ fast, auto, ks, typed, globals: [typeof process, typeof Buffer, typeof require, typeof setTimeout] });
+        })()`,
+        ctx,
+      ) as string,
+    ) as { fast: number[]; auto: number[]; ks: number; typed: string; globals: string[] };
+    expect(got.globals).toEqual(['undefined', 'undefined', 'undefined', 'undefined']);
+    const esm = (await import(join(DIST, 'index.js'))) as typeof import('../../src/index.js');
+    expect(got.fast).toEqual(Array.from(esm.tableSampler(esm.normalTarget(0, 1), { seed: 1 }).fill(new Float64Array(200))));
+    expect(got.auto).toEqual(Array.from(esm.exactSampler(esm.gammaTarget(2.5), { seed: 2 }).fill(new Float64Array(200))));
+    expect(got.ks).toBe(esm.ksCheck(new Float64Array(got.auto), esm.gammaTarget(2.5).cdf as (x: number) => number).pValue);
+    expect(got.typed).toBe('INVALID_TARGET');
   });
 
   it('dist/vendor/THIRD_PARTY_LICENSES.md lists the bundled packages with their license texts', () => {
