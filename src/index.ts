@@ -57,8 +57,9 @@ export {
   PIECEWISE_SETUP_BUDGET,
   MAX_ENVELOPE_REPAIRS,
   PIECEWISE_NOISE,
+  PIECEWISE_TABLE_REPAIR_ROUNDS,
 } from './methods/piecewise.js';
-export type { PiecewiseOptions, PiecewiseSampler, PiecewiseStats, PiecewiseEnvelope, PiecewisePiece, PiecewiseTails } from './methods/piecewise.js';
+export type { PiecewiseOptions, PiecewiseSampler, PiecewiseStats, PiecewiseEnvelope, PiecewisePiece, PiecewiseTails, PiecewiseTableSampler } from './methods/piecewise.js';
 export { exactSampler, FAST_PATH_MIN_DRAWS } from './methods/auto.js';
 export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, ShapeScan, RefusedMethod } from './methods/auto.js';
 export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './methods/table-sampler.js';

@@ -124,6 +124,13 @@ export function builtinSuite(): BuiltinEntry[] {
       cdf: (x) => multimodalCdf().cdf(x),
     },
     {
+      // many draws expected: exactSampler picks the piecewise envelope with the fast path (a strip table over it)
+      name: 'exactSampler multimodal (line), fast path',
+      reference: PEERS.uniform,
+      create: (_u, own) => ed.exactSampler({ logDensity: multimodalLogDensity }, { ...own, expectedDraws: 1e6 }),
+      cdf: (x) => multimodalCdf().cdf(x),
+    },
+    {
       name: 'exactSampler multimodal on [-3,3]',
       reference: PEERS.uniform,
       create: (uniform) =>

@@ -20,9 +20,10 @@ import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
 export interface ExactSamplerOptions extends SamplerOptions {
   /**
    * How many draws you expect to take from this sampler. At
-   * {@link FAST_PATH_MIN_DRAWS} or more, hull-served targets use the
-   * table-driven fast path. It changes speed and the stream, never the
-   * distribution.
+   * {@link FAST_PATH_MIN_DRAWS} or more, targets served by a hull or by
+   * piecewise envelopes use the table-driven fast path (`tableSampler`,
+   * `piecewiseSampler({ fast: true })`). It changes speed and the stream,
+   * never the distribution.
    * @defaultValue 1 (a fresh target per draw, as in a Gibbs sampler)
    */
   expectedDraws?: number;
@@ -253,8 +254,8 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   };
   const pwPlan: Plan = {
     method: 'piecewise',
-    reason: `not log-concave (${convexWhere}) and not T-concave (${tConvexWhere}), e.g. multimodal: piecewise envelopes on cells of constant curvature`,
-    build: () => piecewiseSampler(wrapped, clean(pass)),
+    reason: `not log-concave (${convexWhere}) and not T-concave (${tConvexWhere}), e.g. multimodal: piecewise envelopes on cells of constant curvature${fastNote}`,
+    build: () => (fast ? piecewiseSampler(wrapped, clean({ ...pass, fast: true as const })) : piecewiseSampler(wrapped, clean(pass))),
   };
   if (heavy) plans.push(rouPlan, pwPlan);
   else plans.push(pwPlan, rouPlan);

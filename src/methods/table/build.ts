@@ -58,6 +58,7 @@
  *
  * @packageDocumentation
  */
+import type { PiecewiseStrips } from './piecewise-build.js';
 import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
 import { evalLog } from '../../core/validate.js';
 import type { Counters } from '../../core/counters.js';
@@ -139,6 +140,8 @@ export interface StripTable {
   readonly sureArea: number;
   readonly capArea: number;
   readonly tailArea: number;
+  /** Set when the table was built over a piecewise envelope (then the T-concave fields y, c, sL, sR, left, right are unused). */
+  readonly pw: PiecewiseStrips | null;
 }
 
 /** Tolerance in transformed units for comparisons of points with log-densities la, lb (the hull's formula). @internal */
@@ -600,6 +603,6 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   }
   return {
     api, kind, ref, lower, upper, n, x, l, y, c, logUp, logLo, up, lo, sL, sR, left, right,
-    regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea,
+    regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea, pw: null,
   };
 }

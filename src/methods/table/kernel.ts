@@ -12,6 +12,8 @@ import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
 import type { StripTable, TailPiece } from './build.js';
 import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL, notConcave, tableShapeError } from './build.js';
+import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from './piecewise-build.js';
+import type { PiecewiseStrips } from './piecewise-build.js';
 
 /** The largest double below 1. */
 const BELOW_ONE = 0.9999999999999999;
@@ -112,6 +114,7 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const r = -(own ? tab[o + 2] : tab[o + 4]) - 1;
   let pos = b + v * st.cells.invT[r];
   pos = pos < 0 ? 0 : pos >= 1 ? BELOW_ONE : pos;
+  if (tb.pw !== null) return piecewiseCandidate(st, counters, r, pos, blk);
   const type = tb.regType[r];
   const api = tb.api;
   const kind = tb.kind;
@@ -170,6 +173,85 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   if (lf < lsq - tol) violation(st, x, lf, lsq, 'squeeze', i);
   st.accepted = th < transformValue(kind, lf - ref);
   return x;
+}
+
+/**
+ * The rare path of a table built over a piecewise envelope, for region r
+ * and position pos in it. A tail region picks one of its pieces by area
+ * (pos) and draws from it as the piecewise kernel does (a fresh uniform for
+ * the position, one for acceptance); a cap draws a height on (m, M] and
+ * compares it with the piece's squeeze and envelope at x before evaluating
+ * the target. An evaluation outside the piece's envelope or squeeze throws
+ * {@link EnvelopeViolationError}.
+ */
+function piecewiseCandidate(st: TableState, counters: Counters, r: number, pos: number, blk: UniformBlock): number {
+  const tb = st.table;
+  const pw = tb.pw as PiecewiseStrips;
+  const t = pw.t;
+  const ref = tb.ref;
+  const type = tb.regType[r];
+  if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
+    const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
+    const cum = type === R_LEFT_TAIL ? pw.cumL : pw.cumR;
+    const v = pos * cum[cum.length - 1];
+    let k = 0;
+    while (k + 1 < cum.length && cum[k] <= v) k++;
+    const j = idx[k];
+    const x = pieceInverse(t, j, blk.next());
+    const u3 = blk.next();
+    if (!(x > -Infinity && x < Infinity)) {
+      st.accepted = false;
+      return x;
+    }
+    const env = pieceLogEnvelope(t, j, x);
+    const sq = pieceLogSqueeze(t, j, x);
+    if (u3 < Math.exp(sq - env)) {
+      st.accepted = true;
+      return x;
+    }
+    const lf = evaluate(st, counters, x);
+    checkPiecewise(tb.api, x, lf, ref, env, sq);
+    st.accepted = u3 < Math.exp(lf - ref - env);
+    return x;
+  }
+  const i = tb.regStrip[r];
+  const a = tb.x[i];
+  const b = tb.x[i + 1];
+  let x = a + (b - a) * pos;
+  if (x < a) x = a;
+  else if (x > b) x = b;
+  if (type !== R_CAP) {
+    st.accepted = true;
+    return x;
+  }
+  let j = pw.first[i];
+  const jEnd = pw.last[i];
+  while (j < jEnd && t.hi[j] < x) j++;
+  const up = tb.up[i];
+  const hv = up - blk.next() * (up - tb.lo[i]);
+  const th = Math.log(hv);
+  const sq = pieceLogSqueeze(t, j, x);
+  if (th < sq) {
+    st.accepted = true;
+    return x;
+  }
+  const env = pieceLogEnvelope(t, j, x);
+  if (th >= env) {
+    st.accepted = false;
+    return x;
+  }
+  const lf = evaluate(st, counters, x);
+  checkPiecewise(tb.api, x, lf, ref, env, sq);
+  st.accepted = th < lf - ref;
+  return x;
+}
+
+/** Throws EnvelopeViolationError when lf lies above the piece's envelope or below its squeeze (relative logs env, sq). */
+function checkPiecewise(api: string, x: number, lf: number, ref: number, env: number, sq: number): void {
+  const lr = lf - ref;
+  const tol = piecewiseTolerance(ref, lr);
+  if (lr > env + tol) throw new EnvelopeViolationError(api, x, lf, env + ref, 'envelope');
+  if (lr < sq - tol) throw new EnvelopeViolationError(api, x, lf, sq + ref, 'squeeze');
 }
 
 /** Evaluates the target at x while sampling: counted, checked for NaN and +Infinity. */
