@@ -20,6 +20,7 @@ import {
   rejectionSampler,
   studentTTarget,
   uniformProposal,
+  exactSampler,
 } from '../../src/index.js';
 import type { PiecewiseOptions, PiecewiseSampler, Target } from '../../src/index.js';
 import { MULTIMODAL, multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../helpers/fixtures.js';
@@ -289,6 +290,21 @@ describe('piecewiseSampler: draw-time checks and adapt', () => {
 });
 
 describe('piecewiseSampler: errors name the problem', () => {
+  it('a support that is not an interval (density on [−2, −1] and [1, 2], 0 between) is refused, by piecewiseSampler and exactSampler; one interval with zeros around it is sampled', () => {
+    // Without the check the scan stopped at the zeros next to the maximum at x = −1 and the
+    // sampler drew from [−2, −1] only (found 2026-12-02): a silent loss of half the mass.
+    const gap = { logDensity: (x: number) => (Math.abs(x) >= 1 && Math.abs(x) <= 2 ? -0.5 * x * x : -Infinity) };
+    expect(() => piecewiseSampler(gap, { seed: 1 })).toThrow(/piecewiseSampler: logDensity is -Infinity at x = .* but finite again at x = .*the support is not an interval/);
+    expect(() => piecewiseSampler(gap, { seed: 1, fast: true })).toThrow(InvalidTargetError);
+    expect(() => exactSampler(gap, { seed: 1 })).toThrow(/not an interval/);
+    // twin: the same density on [1, 2] only, zero elsewhere and no support given, is accepted and fits
+    const one = { logDensity: (x: number) => (x >= 1 && x <= 2 ? -0.5 * x * x : -Infinity) };
+    const z = normalCdf(2, 0, 1) - normalCdf(1, 0, 1);
+    const xs = draw(piecewiseSampler(one, { seed: 2 }), 100_000);
+    expectInSupport(xs, 1, 2);
+    expectFits(xs, (x) => (x <= 1 ? 0 : x >= 2 ? 1 : (normalCdf(x, 0, 1) - normalCdf(1, 0, 1)) / z), 'one interval');
+  });
+
   it('piecewiseSampler refuses bad options with InvalidTargetError', () => {
     const t = normalTarget(0, 1);
     expect(() => piecewiseSampler(t, { scanPoint: 10 } as unknown as PiecewiseOptions)).toThrow(/unknown option 'scanPoint'/);

@@ -266,8 +266,55 @@ export function scanTarget(
   const kept = pts.slice(first, last + 1);
   const effLower = kept[0].l === -Infinity || Number.isFinite(lower) ? kept[0].x : -Infinity;
   const effUpper = kept[kept.length - 1].l === -Infinity || Number.isFinite(upper) ? kept[kept.length - 1].x : Infinity;
+  checkBeyondZeros(api, ev, kept, lower, upper);
   if (useDerivative) for (const p of kept) p.g = ev.g(p.x, p.l);
   return { points: kept, lower: effLower, upper: effUpper, centre, logMax, core: [a, b] };
+}
+
+/**
+ * Octaves of the probes beyond an end where the scan found the density to
+ * be 0: up to 2^20 times the width of the positive part from its edge.
+ */
+const ZERO_GAP_OCTAVES = 20;
+
+/**
+ * Where the scan cut the support at a zero of the density, probes further
+ * out (geometrically, two per octave of distance, up to 2^20 times the
+ * width of the part where the density was found positive, within the
+ * support): a positive density there means the support is not an interval
+ * and the scan would have dropped a component, so the target is refused
+ * with {@link InvalidTargetError} instead of being sampled without it.
+ */
+function checkBeyondZeros(api: string, ev: Evaluator, kept: readonly ScanPoint[], lower: number, upper: number): void {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const p of kept) {
+    if (p.l === -Infinity) continue;
+    if (p.x < lo) lo = p.x;
+    if (p.x > hi) hi = p.x;
+  }
+  if (!(hi >= lo)) return;
+  const width = Math.max(hi - lo, ulp(hi) * 1024, ulp(lo) * 1024);
+  for (const dir of [-1, 1] as const) {
+    const end = kept[dir > 0 ? kept.length - 1 : 0];
+    if (end.l !== -Infinity) continue; // not cut at a zero
+    const edge = dir > 0 ? hi : lo;
+    const bound = dir > 0 ? upper : lower;
+    let zeroAt = end.x;
+    for (let k = 0; k <= 2 * ZERO_GAP_OCTAVES; k++) {
+      const x = edge + dir * width * Math.pow(2, k / 2);
+      if (!Number.isFinite(x) || (dir > 0 ? x > bound : x < bound)) break;
+      if (dir > 0 ? x <= end.x : x >= end.x) continue;
+      const l = ev.l(x);
+      if (l === -Infinity) {
+        zeroAt = x;
+        continue;
+      }
+      throw new InvalidTargetError(
+        `${api}: logDensity is -Infinity at x = ${zeroAt} but finite again at x = ${x} (logDensity ${l}): the support is not an interval, and the envelope would leave out the part beyond x = ${end.x}; sample each interval with its own support and mix the draws by their masses`,
+      );
+    }
+  }
 }
 
 /** Spacing of the doubles at x (2^−52·|x|, at least the smallest normal). */
