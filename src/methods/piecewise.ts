@@ -317,7 +317,11 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * mixtures of 2 to 5 normals with locations in [−10, 10] and sds in
  * [0.05, 5], 1500 of 1500 envelopes were checked valid (see the tests).
  * The density's zero set is taken from the scan: a cell with density 0 at
- * both ends is taken to hold no mass. Setup costs about 1,400 to 10,000
+ * both ends is taken to hold no mass. Where the scan finds the density 0
+ * towards an end, it probes further out (up to 2^20 times the width of the
+ * positive part); a positive value there means the support is not an
+ * interval, and the target is refused with {@link InvalidTargetError}
+ * rather than sampled without that part. Setup costs about 1,400 to 10,000
  * evaluations of logDensity (and of dLogDensity with the tangent
  * construction); for a target that changes often and is log-concave, the
  * adaptive hull is far cheaper.
