@@ -61,7 +61,8 @@ export interface ParallelFiller {
 
 interface Reply {
   ok: boolean;
-  ready?: boolean;
+  /** Id of the job replied to (0: the start-up). */
+  id: number;
   error?: string;
 }
 
@@ -88,8 +89,9 @@ function checkSeed(api: string, seed: unknown): number {
 /** One worker thread and the promise of its current job. */
 class PoolWorker {
   private readonly worker: Worker;
-  private pending: { resolve: () => void; reject: (e: Error) => void } | null = null;
+  private pending: { id: number; resolve: () => void; reject: (e: Error) => void } | null = null;
   private dead: Error | null = null;
+  private nextId = 1;
 
   constructor(
     private readonly api: string,
@@ -98,20 +100,24 @@ class PoolWorker {
   ) {
     const url = new URL('./fill-worker.js', import.meta.url);
     this.worker = new Worker(url, { workerData: { module: spec.module, name: spec.name, cwd: process.cwd() } });
-    this.worker.on('message', (m: Reply) => this.settle(m.ok ? null : new Error(`${this.api}: worker ${this.index} failed: ${m.error ?? 'unknown error'}`)));
+    this.worker.on('message', (m: Reply) => {
+      if (this.pending === null || m.id !== this.pending.id) return; // a reply to nothing pending cannot happen; ignore it
+      this.settle(m.ok ? null : new Error(`${this.api}: worker ${this.index} failed: ${m.error ?? 'unknown error'}`));
+    });
     this.worker.on('error', (e: Error) => this.fail(e));
     this.worker.on('exit', (code) => this.fail(new Error(`${this.api}: worker ${this.index} exited with code ${code}`)));
   }
 
   /** Resolves when the worker has loaded the module and found the entry. */
   ready(): Promise<void> {
-    return this.expect();
+    return this.expect(0);
   }
 
   /** Runs one part; resolves when the part is filled. */
   run(job: { seed: number; part: number; buffer: SharedArrayBuffer; byteOffset: number; length: number }): Promise<void> {
-    const p = this.expect();
-    if (this.dead === null) this.worker.postMessage(job);
+    const id = this.nextId++;
+    const p = this.expect(id);
+    if (this.dead === null) this.worker.postMessage({ ...job, id });
     return p;
   }
 
@@ -120,11 +126,11 @@ class PoolWorker {
     await this.worker.terminate();
   }
 
-  private expect(): Promise<void> {
+  private expect(id: number): Promise<void> {
     if (this.dead !== null) return Promise.reject(this.dead);
     this.worker.ref();
     return new Promise<void>((resolve, reject) => {
-      this.pending = { resolve, reject };
+      this.pending = { id, resolve, reject };
     });
   }
 
@@ -201,7 +207,9 @@ async function startFiller(api: string, spec: ParallelSamplerSpec, opts: Paralle
           const [start, end] = partRange(out.length, workers, k);
           if (end > start) jobs.push(pool[k].run({ seed, part: k, buffer, byteOffset: offset + start * 8, length: end - start }));
         }
-        await Promise.all(jobs);
+        // wait for every part, also after a failure, so that no worker is still busy with this fill when the next starts
+        const settled = await Promise.allSettled(jobs);
+        for (const r of settled) if (r.status === 'rejected') throw r.reason;
         if (!shared) out.set(new Float64Array(buffer, 0, out.length));
         return out;
       } finally {

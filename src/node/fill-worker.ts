@@ -19,6 +19,8 @@ interface Init {
 }
 
 interface Job {
+  /** Id echoed in the reply. */
+  id: number;
   seed: number;
   part: number;
   buffer: SharedArrayBuffer;
@@ -43,12 +45,12 @@ load(workerData as Init).then(
       try {
         const view = new Float64Array(job.buffer, job.byteOffset, job.length);
         entry.create(substream(job.seed, job.part), { seed: job.seed, stream: job.part }).fill(view);
-        parentPort?.postMessage({ ok: true });
+        parentPort?.postMessage({ ok: true, id: job.id });
       } catch (e) {
-        parentPort?.postMessage({ ok: false, error: message(e) });
+        parentPort?.postMessage({ ok: false, id: job.id, error: message(e) });
       }
     });
-    parentPort?.postMessage({ ok: true, ready: true });
+    parentPort?.postMessage({ ok: true, id: 0 });
   },
-  (e: unknown) => parentPort?.postMessage({ ok: false, error: message(e) }),
+  (e: unknown) => parentPort?.postMessage({ ok: false, id: 0, error: message(e) }),
 );

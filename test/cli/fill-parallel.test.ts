@@ -71,6 +71,23 @@ describe('createParallelFiller', () => {
     await expect(filler.fill(new Float64Array(10))).rejects.toThrow(/closed/);
   });
 
+  it('a fill that throws in a worker rejects with its message and the pool stays usable; a worker that exits rejects and the pool then refuses', async () => {
+    const { createParallelFiller } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
+    const BROKEN = 'test/fixtures/tiny-broken.mjs';
+    const f = await createParallelFiller({ module: BROKEN, name: 'tiny throws on seed 13' }, { workers: 2 });
+    try {
+      await expect(f.fill(new Float64Array(100), { seed: 13 })).rejects.toThrow(/worker \d failed: tiny: refused seed 13 on purpose/);
+      const ok = await f.fill(new Float64Array(100), { seed: 14 });
+      expect(ok.every((x) => x >= 0 && x < 1)).toBe(true);
+    } finally {
+      await f.close();
+    }
+    const g = await createParallelFiller({ module: BROKEN, name: 'tiny exits' }, { workers: 1 });
+    await expect(g.fill(new Float64Array(10), { seed: 1 })).rejects.toThrow(/worker 0 exited with code 3/);
+    await expect(g.fill(new Float64Array(10), { seed: 1 })).rejects.toThrow(/exited with code 3/);
+    await g.close();
+  });
+
   it('createParallelFiller rejects an unknown entry, a failing module and bad worker counts', async () => {
     const { createParallelFiller } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
     await expect(createParallelFiller({ module: TINY, name: 'nope' }, { workers: 2 })).rejects.toThrow(/no sampler named 'nope'/);
