@@ -166,7 +166,8 @@ export function runDemo(log: (line: string) => void, outDir = 'out', seed = 2026
       return Math.log(morning + evening + day + 0.01);
     },
   };
-  const demandSampler = exactSampler(demand, { uniform: substream(seed, 2) });
+  // one draw per trip: many draws from one fixed target, so exactSampler is told and uses the fast path
+  const demandSampler = exactSampler(demand, { uniform: substream(seed, 2), expectedDraws: durations.length });
   const starts = demandSampler.fill(new Float64Array(durations.length));
   const ds = demandSampler.stats;
   const demandRef = quadratureCdf((h) => demand.logDensity(h), 0, 24);
