@@ -5,10 +5,10 @@
  * Why one module: each `@stdlib` package is split into many small CommonJS
  * packages (importing the core used to load 913 modules from 317 packages,
  * about 170 ms in a fresh process and 250 ms in a worker thread). The build
- * (scripts/build.mjs) bundles this file with esbuild into `dist/vendor/`
- * (ESM) and `dist/cjs/vendor/` (CommonJS), so the published library has no
- * runtime dependencies and loads one file; the licenses of the bundled
- * packages are collected in `dist/vendor/THIRD_PARTY_LICENSES.md`. In the
+ * (scripts/build.mjs) bundles the library with esbuild, these packages
+ * included, so the published library has no runtime dependencies and loads
+ * a few files; the licenses of the bundled packages are collected in
+ * `dist/THIRD_PARTY_LICENSES.md`. In the
  * source tree (tests, typecheck) the packages are imported as usual. The
  * signatures are declared here so that no emitted declaration refers to a
  * `@stdlib` type.
