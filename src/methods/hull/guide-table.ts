@@ -27,7 +27,7 @@ export class GuideTable {
   /** Sum of the areas. */
   total = 0;
 
-  /** @param capacity - maximum number of pieces */
+  /** @param capacity - maximum number of pieces (0: storage comes later through {@link GuideTable.useStorage}) */
   constructor(capacity: number) {
     this.cum = new Float64Array(capacity);
     this.guide = new Int32Array(capacity);
@@ -37,6 +37,12 @@ export class GuideTable {
   grow(capacity: number): void {
     this.cum = new Float64Array(capacity);
     this.guide = new Int32Array(capacity);
+  }
+
+  /** Uses the given arrays (views of a caller's store, each of the same length ≥ the number of pieces) as storage. */
+  useStorage(cum: Float64Array, guide: Int32Array): void {
+    this.cum = cum;
+    this.guide = guide;
   }
 
   /**
