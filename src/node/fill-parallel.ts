@@ -101,7 +101,7 @@ class PoolWorker {
     const url = new URL('./fill-worker.js', import.meta.url);
     this.worker = new Worker(url, { workerData: { module: spec.module, name: spec.name, cwd: process.cwd() } });
     this.worker.on('message', (m: Reply) => {
-      if (this.pending === null || m.id !== this.pending.id) return; // a reply to nothing pending cannot happen; ignore it
+      if (this.pending === null || m.id !== this.pending.id) return; // not the job waited for (cannot happen while fills wait for every part); ignore it
       this.settle(m.ok ? null : new Error(`${this.api}: worker ${this.index} failed: ${m.error ?? 'unknown error'}`));
     });
     this.worker.on('error', (e: Error) => this.fail(e));
@@ -154,10 +154,10 @@ class PoolWorker {
  * {@link ParallelFiller} for repeated fills.
  *
  * @remarks
- * Starting a worker thread and loading a module into it costs a few hundred
- * milliseconds (measured here: about 250–350 ms for a module that imports
- * `exactdraw`; bench/parallel.mjs), which is as long as 1e7–2e7 draws of
- * the fast path. A filler pays it once; {@link fillParallel} pays it on every
+ * Starting a worker thread and loading a module into it costs tens of
+ * milliseconds (measured here: 70–100 ms for a module that imports
+ * `exactdraw`; bench/parallel.mjs), which is as long as several million draws
+ * of the fast path. A filler pays it once; {@link fillParallel} pays it on every
  * call. The promise resolves when every worker has loaded the module and
  * found the entry, and rejects (after stopping the workers) when one fails.
  *
