@@ -13,20 +13,16 @@ import { GuideTable } from './hull/guide-table.js';
 import { T_LOG } from './hull/transforms.js';
 import { CLASS_NAMES, Grid, NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/grid.js';
 import type { Tables } from './piecewise/grid.js';
-import { evaluateTables, piecewiseFill } from './piecewise/kernel.js';
+import { evaluateTables, pieceLogEnvelope, piecewiseFill } from './piecewise/kernel.js';
 import type { KernelState } from './piecewise/kernel.js';
 import { Evaluator, scanTarget } from './piecewise/scan.js';
 import { buildAliasCells } from './table/alias.js';
 import type { StripTable } from './table/build.js';
 import { describeTable } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
-import { tableFill } from './table/kernel.js';
-import type { TableState } from './table/kernel.js';
 import { buildPiecewiseStripTable } from './table/piecewise-build.js';
-import { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './table-sampler.js';
+import { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS, tableDraws } from './table-sampler.js';
 import type { TableSamplerOptions } from './table-sampler.js';
-import { UniformBlock } from '../random/uniform-block.js';
-import type { MersenneTwister } from '../random/mersenne-twister.js';
 import type { ScanPoint } from './piecewise/scan.js';
 
 /**
@@ -463,20 +459,8 @@ function createPiecewiseTable(
   }
   const built = table;
   const cells = buildAliasCells(built);
-  const blk = ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
-  const st: TableState = { table: built, cells, logDensity: target.logDensity, accepted: false };
+  const draws = tableDraws(api, built, cells, target.logDensity, counters, uniform, ownsUniform, maxRejections);
   const finalTables = tables;
-  const scratch = new Float64Array(1);
-  let failure: unknown;
-  const run = (out: Float64Array, n: number): void => {
-    if (failure !== undefined) throw failure;
-    try {
-      tableFill(st, out, n, counters, blk, maxRejections);
-    } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) failure = e;
-      throw e;
-    }
-  };
   const stripAt = (x: number): number => {
     const xs = built.x;
     if (!(x >= xs[0] && x <= xs[built.n])) return -1;
@@ -490,15 +474,8 @@ function createPiecewiseTable(
     return a;
   };
   return {
-    sample(): number {
-      run(scratch, 1);
-      return scratch[0];
-    },
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(api, out);
-      run(out, out.length);
-      return out;
-    },
+    sample: draws.sample,
+    fill: draws.fill,
     get stats(): PiecewiseStats {
       return { ...counters.snapshot(), envelopeRepairs: 0 };
     },
@@ -628,11 +605,7 @@ function describe(grid: Grid, t: Tables, ratio: number, ev: Evaluator): Piecewis
   const pieces: PiecewisePiece[] = [];
   for (let j = 0; j < t.n; j++) {
     const isTail = t.lo[j] === -Infinity || t.hi[j] === Infinity;
-    const at = (x: number): number => {
-      if (x === -Infinity || x === Infinity) return -Infinity;
-      const dd = t.dir[j] > 0 ? x - t.xh[j] : t.xh[j] - x;
-      return (t.kind[j] === T_LOG ? t.href[j] - t.sig[j] * dd : t.href[j] - 2 * Math.log1p(t.sig[j] * dd)) + t.ref;
-    };
+    const at = (x: number): number => (x === -Infinity || x === Infinity ? -Infinity : pieceLogEnvelope(t, j, x) + t.ref);
     pieces.push({
       lower: t.lo[j],
       upper: t.hi[j],

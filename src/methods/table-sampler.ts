@@ -5,7 +5,10 @@
  * @packageDocumentation
  */
 import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
-import type { SamplerOptions, SamplerStats, Target } from '../core/types.js';
+import type { SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
+import type { Counters } from '../core/counters.js';
+import type { AliasCells } from './table/alias.js';
+import type { StripTable } from './table/build.js';
 import { checkInteger, checkFillArray } from '../core/validate.js';
 import type { AdaptiveRejectionSampler } from './adaptive-rejection.js';
 import type { EnvelopeDescription } from './hull/describe.js';
@@ -201,10 +204,42 @@ export function createTableSampler(api: string, setup: HullSetup, options: Table
   const logDensity = setup.target.logDensity;
   const table = buildStripTable({ api, hull, logDensity, counters, strips, tailMass });
   const cells = buildAliasCells(table);
-  // the sampler's own MT19937 (from `seed`) is read in blocks; an injected uniform one value at a time
-  const blk = setup.ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
-  const st: TableState = { table, cells, logDensity, accepted: false };
+  const draws = tableDraws(api, table, cells, logDensity, counters, uniform, setup.ownsUniform, maxRejections);
   const derivativeEvaluations = hull.derivativeEvaluations;
+  return {
+    sample: draws.sample,
+    fill: draws.fill,
+    get stats(): SamplerStats {
+      return counters.snapshot();
+    },
+    get envelope(): EnvelopeDescription {
+      return describeTableEnvelope(table, derivativeEvaluations);
+    },
+    get table(): TableDescription {
+      return describeTable(table, cells);
+    },
+  };
+}
+
+/**
+ * `sample` and `fill` of a table (either builder): the sampler's own MT19937
+ * (from `seed`) is read in blocks, an injected uniform one value at a time;
+ * an error other than a stall or a bad uniform value is kept and thrown by
+ * every later call.
+ * @internal
+ */
+export function tableDraws(
+  api: string,
+  table: StripTable,
+  cells: AliasCells,
+  logDensity: (x: number) => number,
+  counters: Counters,
+  uniform: Uniform,
+  ownsUniform: boolean,
+  maxRejections: number,
+): { sample(): number; fill(out: Float64Array): Float64Array } {
+  const blk = ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const st: TableState = { table, cells, logDensity, accepted: false };
   let failure: unknown;
   const scratch = new Float64Array(1);
   const run = (out: Float64Array, n: number): void => {
@@ -225,15 +260,6 @@ export function createTableSampler(api: string, setup: HullSetup, options: Table
       checkFillArray(api, out);
       run(out, out.length);
       return out;
-    },
-    get stats(): SamplerStats {
-      return counters.snapshot();
-    },
-    get envelope(): EnvelopeDescription {
-      return describeTableEnvelope(table, derivativeEvaluations);
-    },
-    get table(): TableDescription {
-      return describeTable(table, cells);
     },
   };
 }

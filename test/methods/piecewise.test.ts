@@ -302,7 +302,11 @@ describe('piecewiseSampler: errors name the problem', () => {
     const z = normalCdf(2, 0, 1) - normalCdf(1, 0, 1);
     const xs = draw(piecewiseSampler(one, { seed: 2 }), 100_000);
     expectInSupport(xs, 1, 2);
-    expectFits(xs, (x) => (x <= 1 ? 0 : x >= 2 ? 1 : (normalCdf(x, 0, 1) - normalCdf(1, 0, 1)) / z), 'one interval');
+    const cdf = (x: number): number => (x <= 1 ? 0 : x >= 2 ? 1 : (normalCdf(x, 0, 1) - normalCdf(1, 0, 1)) / z);
+    expectFits(xs, cdf, 'one interval');
+    // biased twin: the normal shifted by 0.15 on the same interval is rejected against that cdf
+    const shiftedOne = { logDensity: (x: number) => (x >= 1 && x <= 2 ? -0.5 * (x - 0.15) ** 2 : -Infinity) };
+    expectRejects(draw(piecewiseSampler(shiftedOne, { seed: 2 }), 100_000), cdf, 'one interval, shifted');
   });
 
   it('piecewiseSampler refuses bad options with InvalidTargetError', () => {

@@ -129,6 +129,39 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
   return -1;
 }
 
+/** log envelope of piece j at x, relative to t.ref (the kernel's formula). @internal */
+export function pieceLogEnvelope(t: Tables, j: number, x: number): number {
+  const h = t.xh[j];
+  const dd = t.dir[j] > 0 ? x - h : h - x;
+  return t.kind[j] === T_LOG ? t.href[j] - t.sig[j] * dd : t.href[j] - 2 * Math.log1p(t.sig[j] * dd);
+}
+
+/** log squeeze of piece j at x, relative to t.ref (−Infinity: none). @internal */
+export function pieceLogSqueeze(t: Tables, j: number, x: number): number {
+  const sv = t.sqv[j];
+  return sv === -Infinity ? -Infinity : sv + t.sqs[j] * (x - t.sqa[j]);
+}
+
+/**
+ * The point of piece j at envelope-cdf value u in [0, 1) (the inversion of
+ * {@link piecewiseFill}, which inlines it), clamped to the piece. @internal
+ */
+export function pieceInverse(t: Tables, j: number, u: number): number {
+  const w = t.w[j];
+  const q = t.q[j];
+  let d: number;
+  if (t.kind[j] === T_LOG) d = q === 0 ? u * w : -Math.log1p(-u * q) / t.sig[j];
+  else d = w === Infinity ? u / ((1 - u) * q) : (u * w) / (1 + (1 - u) * q * w);
+  if (d > w) d = w;
+  const x = t.xh[j] + t.dir[j] * d;
+  return x < t.lo[j] ? t.lo[j] : x > t.hi[j] ? t.hi[j] : x;
+}
+
+/** Log-units tolerance of a comparison of a log-density (lr relative to ref) with a bound (the kernel's). @internal */
+export function piecewiseTolerance(ref: number, lr: number): number {
+  return LOG_TOLERANCE_ABSOLUTE + LOG_TOLERANCE_RELATIVE * (Math.abs(ref) + (lr === -Infinity ? 0 : Math.abs(lr)));
+}
+
 /**
  * log envelope and log squeeze (absolute) of the tables at x, with the
  * kernel's arithmetic; −Infinity outside every piece. @internal
@@ -146,11 +179,5 @@ export function evaluateTables(t: Tables, x: number): { logEnvelope: number; log
   }
   // a piece that ends exactly at x may be followed by one starting there; either serves
   if (!(x <= t.hi[a])) return { logEnvelope: -Infinity, logSqueeze: -Infinity };
-  const j = a;
-  const h = t.xh[j];
-  const dd = t.dir[j] > 0 ? x - h : h - x;
-  const env = t.kind[j] === T_LOG ? t.href[j] - t.sig[j] * dd : t.href[j] - 2 * Math.log1p(t.sig[j] * dd);
-  const sv = t.sqv[j];
-  const sq = sv === -Infinity ? -Infinity : sv + t.sqs[j] * (x - t.sqa[j]);
-  return { logEnvelope: env + t.ref, logSqueeze: sq + t.ref };
+  return { logEnvelope: pieceLogEnvelope(t, a, x) + t.ref, logSqueeze: pieceLogSqueeze(t, a, x) + t.ref };
 }

@@ -99,8 +99,21 @@ export interface TailPiece {
   logArea: number;
 }
 
-/** The strip table (everything but the alias cells). @internal */
-export interface StripTable {
+/** The regions of a strip table and their relative areas (see {@link stripRegions}). @internal */
+export interface StripRegions {
+  /** Regions: type, strip index, relative area. */
+  readonly regType: Int8Array;
+  readonly regStrip: Int32Array;
+  readonly regArea: Float64Array;
+  readonly regions: number;
+  /** Relative areas: sure rectangles, caps, tails. */
+  readonly sureArea: number;
+  readonly capArea: number;
+  readonly tailArea: number;
+}
+
+/** The strip table (everything but the alias cells); its regions are those of {@link stripRegions}. @internal */
+export interface StripTable extends StripRegions {
   readonly api: string;
   readonly kind: number;
   /** Reference log height: relative values are those of f/e^ref. */
@@ -131,15 +144,6 @@ export interface StripTable {
   /** Tails (null when empty). */
   readonly left: TailPiece | null;
   readonly right: TailPiece | null;
-  /** Regions: type, strip index, relative area. */
-  readonly regType: Int8Array;
-  readonly regStrip: Int32Array;
-  readonly regArea: Float64Array;
-  readonly regions: number;
-  /** Relative areas: sure rectangles, caps, tails. */
-  readonly sureArea: number;
-  readonly capArea: number;
-  readonly tailArea: number;
   /** Set when the table was built over a piecewise envelope (then the T-concave fields y, c, sL, sR, left, right are unused). */
   readonly pw: PiecewiseStrips | null;
 }
@@ -277,6 +281,56 @@ function makeTail(kind: number, lo: number, hi: number, ax: number, ay: number, 
   const logArea = th === Infinity || th !== th ? Infinity : pieceLogArea(kind, th, sig, w);
   const q = logArea < Infinity ? pieceConstant(kind, th, sig, w) : NaN;
   return { lo, hi, ax, ay, slope, hx, dir, w, sig, th, q, logArea };
+}
+
+
+/**
+ * The regions of a table of n strips with boundaries x, per-strip constant
+ * envelope `up` and squeeze `lo` (relative heights; `logUp` −Infinity for a
+ * strip of zero density), and tails of relative areas `leftArea`,
+ * `rightArea` (0: none): for each strip its sure rectangle w·lo and its cap
+ * w·(up − lo), where positive, then the tails. Shared by both table builders.
+ * @internal
+ */
+export function stripRegions(n: number, x: Float64Array, logUp: Float64Array, up: Float64Array, lo: Float64Array, leftArea: number, rightArea: number): StripRegions {
+  const maxReg = 2 * n + 2;
+  const regType = new Int8Array(maxReg);
+  const regStrip = new Int32Array(maxReg);
+  const regArea = new Float64Array(maxReg);
+  let r = 0;
+  let sureArea = 0;
+  let capArea = 0;
+  let tailArea = 0;
+  const add = (type: number, strip: number, a: number): void => {
+    regType[r] = type;
+    regStrip[r] = strip;
+    regArea[r] = a;
+    r++;
+  };
+  for (let i = 0; i < n; i++) {
+    const w = x[i + 1] - x[i];
+    if (!(w > 0) || logUp[i] === -Infinity) continue;
+    const sa = w * lo[i];
+    // the cap's area by subtraction: an absolute error of about 1e-16·w·M, far below any effect on the draws
+    const ca = w * (up[i] - lo[i]);
+    if (sa > 0) {
+      add(R_SURE, i, sa);
+      sureArea += sa;
+    }
+    if (ca > 0) {
+      add(R_CAP, i, ca);
+      capArea += ca;
+    }
+  }
+  if (leftArea > 0) {
+    add(R_LEFT_TAIL, -1, leftArea);
+    tailArea += leftArea;
+  }
+  if (rightArea > 0) {
+    add(R_RIGHT_TAIL, n, rightArea);
+    tailArea += rightArea;
+  }
+  return { regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea };
 }
 
 /**
@@ -558,51 +612,15 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   }
 
   // ----- regions ------------------------------------------------------------------------
-  const maxReg = 2 * n + 2;
-  const regType = new Int8Array(maxReg);
-  const regStrip = new Int32Array(maxReg);
-  const regArea = new Float64Array(maxReg);
-  let r = 0;
-  let sureArea = 0;
-  let capArea = 0;
-  let tailArea = 0;
-  for (let i = 0; i < n; i++) {
-    const w = x[i + 1] - x[i];
-    if (!(w > 0) || logUp[i] === -Infinity) continue;
-    const sa = w * lo[i];
-    // the cap's area by subtraction: an absolute error of about 1e-16·w·M, far below any effect on the draws
-    const ca = w * (up[i] - lo[i]);
-    if (sa > 0) {
-      regType[r] = R_SURE;
-      regStrip[r] = i;
-      regArea[r] = sa;
-      sureArea += sa;
-      r++;
-    }
-    if (ca > 0) {
-      regType[r] = R_CAP;
-      regStrip[r] = i;
-      regArea[r] = ca;
-      capArea += ca;
-      r++;
-    }
-  }
-  for (const [tail, type] of [[left, R_LEFT_TAIL], [right, R_RIGHT_TAIL]] as const) {
-    if (tail === null) continue;
-    const a = Math.exp(tail.logArea);
-    if (!(a > 0)) continue;
-    regType[r] = type;
-    regStrip[r] = type === R_LEFT_TAIL ? -1 : n;
-    regArea[r] = a;
-    tailArea += a;
-    r++;
-  }
-  const total = sureArea + capArea + tailArea;
+  const leftArea = left === null ? 0 : Math.exp(left.logArea);
+  const rightArea = right === null ? 0 : Math.exp(right.logArea);
+  const regions = stripRegions(n, x, logUp, up, lo, leftArea, rightArea);
+  const total = regions.sureArea + regions.capArea + regions.tailArea;
   if (!(total > 0 && total < Infinity)) {
     throw new ImproperDensityError(`${api}: the table's envelope area is ${total} (relative to e^${ref}) on [${lower}, ${upper}]`);
   }
   return {
     api, kind, ref, lower, upper, n, x, l, y, c, logUp, logLo, up, lo, sL, sR, left, right,
-    regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea, pw: null,
+    ...regions, pw: null,
   };
 }

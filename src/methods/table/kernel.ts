@@ -12,7 +12,7 @@ import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
 import type { StripTable, TailPiece } from './build.js';
 import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL, notConcave, tableShapeError } from './build.js';
-import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from './piecewise-build.js';
+import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from '../piecewise/kernel.js';
 import type { PiecewiseStrips } from './piecewise-build.js';
 
 /** The largest double below 1. */
@@ -114,23 +114,10 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const r = -(own ? tab[o + 2] : tab[o + 4]) - 1;
   let pos = b + v * st.cells.invT[r];
   pos = pos < 0 ? 0 : pos >= 1 ? BELOW_ONE : pos;
-  if (tb.pw !== null) return piecewiseCandidate(st, counters, r, pos, blk);
   const type = tb.regType[r];
-  const api = tb.api;
-  const kind = tb.kind;
-  const ref = tb.ref;
+  const pw = tb.pw;
   if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
-    const p = (type === R_LEFT_TAIL ? tb.left : tb.right) as TailPiece;
-    const d = invertPiece(kind, p.q, p.sig, p.w, pos);
-    let x = p.hx + p.dir * d;
-    if (x < p.lo) x = p.lo;
-    else if (x > p.hi) x = p.hi;
-    const lenv = logHeight(kind, p.ay + p.slope * (x - p.ax));
-    const lf = evaluate(st, counters, x);
-    if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
-    const u = blk.next();
-    st.accepted = u < Math.exp(lf - ref - lenv);
-    return x;
+    return pw === null ? hullTailCandidate(st, counters, type, pos, blk) : piecewiseTailCandidate(st, counters, pw, type, pos, blk);
   }
   const i = tb.regStrip[r];
   const a = tb.x[i];
@@ -144,8 +131,37 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   }
   // cap: a height uniform on (m_i, M_i] (1 − u keeps it above m_i ≥ 0, so it never is 0)
   const up = tb.up[i];
-  const lo = tb.lo[i];
-  const hv = up - blk.next() * (up - lo);
+  const hv = up - blk.next() * (up - tb.lo[i]);
+  if (pw === null) hullCap(st, counters, i, x, hv);
+  else piecewiseCap(st, counters, pw, i, x, hv);
+  return x;
+}
+
+/** A tail of a T-concave table: the exact extension of the outermost chord, inverted at pos, accepted against the target. */
+function hullTailCandidate(st: TableState, counters: Counters, type: number, pos: number, blk: UniformBlock): number {
+  const tb = st.table;
+  const kind = tb.kind;
+  const ref = tb.ref;
+  const p = (type === R_LEFT_TAIL ? tb.left : tb.right) as TailPiece;
+  const d = invertPiece(kind, p.q, p.sig, p.w, pos);
+  let x = p.hx + p.dir * d;
+  if (x < p.lo) x = p.lo;
+  else if (x > p.hi) x = p.hi;
+  const lenv = logHeight(kind, p.ay + p.slope * (x - p.ax));
+  const lf = evaluate(st, counters, x);
+  if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
+  const u = blk.next();
+  st.accepted = u < Math.exp(lf - ref - lenv);
+  return x;
+}
+
+/** A cap of a T-concave table at x in strip i with height hv: the chord squeeze, the neighbours' chord extensions, then the target. Sets `st.accepted`. */
+function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: number): void {
+  const tb = st.table;
+  const kind = tb.kind;
+  const ref = tb.ref;
+  const a = tb.x[i];
+  const bb = tb.x[i + 1];
   const th = kind === T_LOG ? Math.log(hv) : -1 / Math.sqrt(hv);
   // chord squeeze, anchored at its higher end
   const y = tb.y;
@@ -153,7 +169,7 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const sq = ci === ci ? (y[i] >= y[i + 1] ? y[i] + ci * (x - a) : y[i + 1] + ci * (x - bb)) : -Infinity;
   if (th < sq) {
     st.accepted = true;
-    return x;
+    return;
   }
   const sl = tb.sL[i];
   const sr = tb.sR[i];
@@ -162,7 +178,7 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const ul = tl < tr ? tl : tr;
   if (th >= ul) {
     st.accepted = false;
-    return x;
+    return;
   }
   const lf = evaluate(st, counters, x);
   const tol = tolLog(ref, lf);
@@ -172,78 +188,62 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const lsq = sq === -Infinity ? -Infinity : logHeight(kind, sq) + ref;
   if (lf < lsq - tol) violation(st, x, lf, lsq, 'squeeze', i);
   st.accepted = th < transformValue(kind, lf - ref);
-  return x;
 }
 
 /**
- * The rare path of a table built over a piecewise envelope, for region r
- * and position pos in it. A tail region picks one of its pieces by area
- * (pos) and draws from it as the piecewise kernel does (a fresh uniform for
- * the position, one for acceptance); a cap draws a height on (m, M] and
- * compares it with the piece's squeeze and envelope at x before evaluating
- * the target. An evaluation outside the piece's envelope or squeeze throws
- * {@link EnvelopeViolationError}.
+ * A tail region of a table built over a piecewise envelope: one of its
+ * pieces picked by area (pos) and drawn from as the piecewise kernel does (a
+ * fresh uniform for the position, one for acceptance). An evaluation outside
+ * the piece's envelope or squeeze throws {@link EnvelopeViolationError}.
  */
-function piecewiseCandidate(st: TableState, counters: Counters, r: number, pos: number, blk: UniformBlock): number {
-  const tb = st.table;
-  const pw = tb.pw as PiecewiseStrips;
+function piecewiseTailCandidate(st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock): number {
   const t = pw.t;
-  const ref = tb.ref;
-  const type = tb.regType[r];
-  if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
-    const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
-    const cum = type === R_LEFT_TAIL ? pw.cumL : pw.cumR;
-    const v = pos * cum[cum.length - 1];
-    let k = 0;
-    while (k + 1 < cum.length && cum[k] <= v) k++;
-    const j = idx[k];
-    const x = pieceInverse(t, j, blk.next());
-    const u3 = blk.next();
-    if (!(x > -Infinity && x < Infinity)) {
-      st.accepted = false;
-      return x;
-    }
-    const env = pieceLogEnvelope(t, j, x);
-    const sq = pieceLogSqueeze(t, j, x);
-    if (u3 < Math.exp(sq - env)) {
-      st.accepted = true;
-      return x;
-    }
-    const lf = evaluate(st, counters, x);
-    checkPiecewise(tb.api, x, lf, ref, env, sq);
-    st.accepted = u3 < Math.exp(lf - ref - env);
+  const ref = st.table.ref;
+  const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
+  const cum = type === R_LEFT_TAIL ? pw.cumL : pw.cumR;
+  const v = pos * cum[cum.length - 1];
+  let k = 0;
+  while (k + 1 < cum.length && cum[k] <= v) k++;
+  const j = idx[k];
+  const x = pieceInverse(t, j, blk.next());
+  const u3 = blk.next();
+  if (!(x > -Infinity && x < Infinity)) {
+    st.accepted = false;
     return x;
   }
-  const i = tb.regStrip[r];
-  const a = tb.x[i];
-  const b = tb.x[i + 1];
-  let x = a + (b - a) * pos;
-  if (x < a) x = a;
-  else if (x > b) x = b;
-  if (type !== R_CAP) {
+  const env = pieceLogEnvelope(t, j, x);
+  const sq = pieceLogSqueeze(t, j, x);
+  if (u3 < Math.exp(sq - env)) {
     st.accepted = true;
     return x;
   }
+  const lf = evaluate(st, counters, x);
+  checkPiecewise(st.table.api, x, lf, ref, env, sq);
+  st.accepted = u3 < Math.exp(lf - ref - env);
+  return x;
+}
+
+/** A cap of a table over a piecewise envelope at x in strip i with height hv: the piece's squeeze and envelope at x, then the target. Sets `st.accepted`. */
+function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number): void {
+  const t = pw.t;
+  const ref = st.table.ref;
   let j = pw.first[i];
   const jEnd = pw.last[i];
   while (j < jEnd && t.hi[j] < x) j++;
-  const up = tb.up[i];
-  const hv = up - blk.next() * (up - tb.lo[i]);
   const th = Math.log(hv);
   const sq = pieceLogSqueeze(t, j, x);
   if (th < sq) {
     st.accepted = true;
-    return x;
+    return;
   }
   const env = pieceLogEnvelope(t, j, x);
   if (th >= env) {
     st.accepted = false;
-    return x;
+    return;
   }
   const lf = evaluate(st, counters, x);
-  checkPiecewise(tb.api, x, lf, ref, env, sq);
+  checkPiecewise(st.table.api, x, lf, ref, env, sq);
   st.accepted = th < lf - ref;
-  return x;
 }
 
 /** Throws EnvelopeViolationError when lf lies above the piece's envelope or below its squeeze (relative logs env, sq). */

@@ -39,9 +39,9 @@
 import type { Counters } from '../../core/counters.js';
 import { InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
 import { T_LOG } from '../hull/transforms.js';
-import { LOG_TOLERANCE_ABSOLUTE, LOG_TOLERANCE_RELATIVE } from '../piecewise/grid.js';
 import type { Tables } from '../piecewise/grid.js';
-import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL, R_SURE } from './build.js';
+import { pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from '../piecewise/kernel.js';
+import { stripRegions } from './build.js';
 import type { StripTable } from './build.js';
 
 /** Strips per unit of log-envelope variation inside a piece (at most 0.1 per strip in massive pieces). @internal */
@@ -84,36 +84,6 @@ export interface PiecewiseStripInput {
   readonly strips: number;
   readonly tailMass: number;
   readonly maxStrips: number;
-}
-
-/** log envelope of piece j at x, relative to t.ref (the piecewise kernel's formula). @internal */
-export function pieceLogEnvelope(t: Tables, j: number, x: number): number {
-  const h = t.xh[j];
-  const dd = t.dir[j] > 0 ? x - h : h - x;
-  return t.kind[j] === T_LOG ? t.href[j] - t.sig[j] * dd : t.href[j] - 2 * Math.log1p(t.sig[j] * dd);
-}
-
-/** log squeeze of piece j at x, relative to t.ref (−Infinity: none). @internal */
-export function pieceLogSqueeze(t: Tables, j: number, x: number): number {
-  const sv = t.sqv[j];
-  return sv === -Infinity ? -Infinity : sv + t.sqs[j] * (x - t.sqa[j]);
-}
-
-/** The point of piece j at envelope-cdf value u in [0, 1) (the piecewise kernel's inversion), clamped to the piece. @internal */
-export function pieceInverse(t: Tables, j: number, u: number): number {
-  const w = t.w[j];
-  const q = t.q[j];
-  let d: number;
-  if (t.kind[j] === T_LOG) d = q === 0 ? u * w : -Math.log1p(-u * q) / t.sig[j];
-  else d = w === Infinity ? u / ((1 - u) * q) : (u * w) / (1 + (1 - u) * q * w);
-  if (d > w) d = w;
-  const x = t.xh[j] + t.dir[j] * d;
-  return x < t.lo[j] ? t.lo[j] : x > t.hi[j] ? t.hi[j] : x;
-}
-
-/** Log-units tolerance of a comparison of lf with a bound (the piecewise kernel's). @internal */
-export function piecewiseTolerance(ref: number, lr: number): number {
-  return LOG_TOLERANCE_ABSOLUTE + LOG_TOLERANCE_RELATIVE * (Math.abs(ref) + (lr === -Infinity ? 0 : Math.abs(lr)));
 }
 
 /**
@@ -272,43 +242,9 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
   };
   const left = tail(0, jL - 1);
   const right = tail(jR + 1, m - 1);
-  const maxReg = 2 * n + 2;
-  const regType = new Int8Array(maxReg);
-  const regStrip = new Int32Array(maxReg);
-  const regArea = new Float64Array(maxReg);
-  let r = 0;
-  let sureArea = 0;
-  let capArea = 0;
-  let tailArea = 0;
-  for (let s = 0; s < n; s++) {
-    const w = x[s + 1] - x[s];
-    if (!(w > 0) || logUp[s] === -Infinity) continue;
-    const sa = w * lo[s];
-    const ca = w * (up[s] - lo[s]);
-    if (sa > 0) {
-      regType[r] = R_SURE;
-      regStrip[r] = s;
-      regArea[r] = sa;
-      sureArea += sa;
-      r++;
-    }
-    if (ca > 0) {
-      regType[r] = R_CAP;
-      regStrip[r] = s;
-      regArea[r] = ca;
-      capArea += ca;
-      r++;
-    }
-  }
-  for (const [side, type] of [[left, R_LEFT_TAIL], [right, R_RIGHT_TAIL]] as const) {
-    const a = side.cum.length > 0 ? side.cum[side.cum.length - 1] : 0;
-    if (!(a > 0)) continue;
-    regType[r] = type;
-    regStrip[r] = type === R_LEFT_TAIL ? -1 : n;
-    regArea[r] = a;
-    tailArea += a;
-    r++;
-  }
+  const leftArea = left.cum.length > 0 ? left.cum[left.cum.length - 1] : 0;
+  const rightArea = right.cum.length > 0 ? right.cum[right.cum.length - 1] : 0;
+  const regions = stripRegions(n, x, logUp, up, lo, leftArea, rightArea);
   const nan = (k: number): Float64Array => new Float64Array(k).fill(NaN);
   const pw: PiecewiseStrips = { t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum };
   const table: StripTable = {
@@ -330,13 +266,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
     sR: nan(n),
     left: null,
     right: null,
-    regType,
-    regStrip,
-    regArea,
-    regions: r,
-    sureArea,
-    capArea,
-    tailArea,
+    ...regions,
     pw,
   };
   return { table, violations };
