@@ -7,6 +7,7 @@ export type { Uniform, Target, SamplerStats, Sampler, SamplerOptions, OwnedStrea
 export {
   ExactDrawError,
   InvalidTargetError,
+  InvalidOptionError,
   NonFiniteDensityError,
   ShapeViolationError,
   EnvelopeViolationError,

@@ -8,6 +8,7 @@
 /** Stable error codes. */
 export type ExactDrawErrorCode =
   | 'INVALID_TARGET'
+  | 'INVALID_OPTION'
   | 'NON_FINITE'
   | 'SHAPE_VIOLATION'
   | 'ENVELOPE_VIOLATION'
@@ -35,6 +36,25 @@ export class InvalidTargetError extends ExactDrawError {
   constructor(message: string) {
     super('INVALID_TARGET', message);
     this.name = 'InvalidTargetError';
+  }
+}
+
+/**
+ * A bad option passed to a factory or a fill (`'INVALID_OPTION'`): an unknown
+ * key, a value of the wrong type or out of range.
+ *
+ * @example
+ * ```ts
+ * import { exactSampler, normalTarget, InvalidOptionError } from 'exactdraw';
+ * try { exactSampler(normalTarget(0, 1), { sed: 5 } as never); }
+ * catch (e) { if (e instanceof InvalidOptionError) console.log(e.code); }
+ * ```
+ */
+export class InvalidOptionError extends ExactDrawError {
+  /** @param message - message naming the API, the option and the value */
+  constructor(message: string) {
+    super('INVALID_OPTION', message);
+    this.name = 'InvalidOptionError';
   }
 }
 

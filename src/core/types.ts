@@ -33,6 +33,21 @@ export interface Target {
   readonly mode?: number;
   /** Optional normalized cumulative distribution function, used by checks only. */
   cdf?(x: number): number;
+  /**
+   * Optional known locations of local maxima (hints). Methods use them as
+   * touch points and cell edges; each must be a finite number inside the
+   * support.
+   */
+  readonly modes?: readonly number[];
+  /**
+   * Optional guaranteed bounds of {@link Target.logDensity} over the closed
+   * interval `[lower, upper]` (ends may be infinite): returns `[lo, hi]` with
+   * `lo <= logDensity(x) <= hi` for every x in the interval. `lo` may be
+   * `-Infinity`; `hi = +Infinity` means "no finite bound on this interval".
+   * Methods that use it never trust it blindly: every point evaluation made
+   * while sampling is still checked against the envelope built from it.
+   */
+  logDensityBounds?(lower: number, upper: number): readonly [number, number];
 }
 
 /**

@@ -31,7 +31,20 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
   if (target.dLogDensity !== undefined && typeof target.dLogDensity !== 'function') {
     throw new InvalidTargetError(`${api}: target.dLogDensity must be a function when given, got ${typeof target.dLogDensity}`);
   }
+  if (target.logDensityBounds !== undefined && typeof target.logDensityBounds !== 'function') {
+    throw new InvalidTargetError(`${api}: target.logDensityBounds must be a function when given, got ${typeof target.logDensityBounds}`);
+  }
   const [lower, upper] = checkSupport(api, 'target.support', target.support);
+  if (target.modes !== undefined) {
+    if (!Array.isArray(target.modes)) {
+      throw new InvalidTargetError(`${api}: target.modes must be an array of numbers when given, got ${typeof target.modes}`);
+    }
+    for (const m of target.modes as readonly unknown[]) {
+      if (typeof m !== 'number' || !Number.isFinite(m) || m < lower || m > upper) {
+        throw new InvalidTargetError(`${api}: every entry of target.modes must be a finite number inside the support [${lower}, ${upper}], got ${typeof m === 'string' ? `'${m}'` : String(m)}`);
+      }
+    }
+  }
   let mode = target.mode;
   if (mode !== undefined) {
     if (typeof mode !== 'number' || !Number.isFinite(mode)) {
