@@ -48,6 +48,19 @@ export interface Target {
    * while sampling is still checked against the envelope built from it.
    */
   logDensityBounds?(lower: number, upper: number): readonly [number, number];
+  /**
+   * Optional guaranteed bounds of the derivative of {@link Target.logDensity}
+   * over `[lower, upper]` (used to build exponential envelopes on infinite
+   * cells and to prove monotonicity). Same conventions as
+   * {@link Target.logDensityBounds}; `-Infinity`/`+Infinity` mean no bound.
+   */
+  dLogDensityBounds?(lower: number, upper: number): readonly [number, number];
+  /**
+   * Optional guaranteed bounds of the second derivative of
+   * {@link Target.logDensity} over `[lower, upper]` (used to prove
+   * log-concavity). Same conventions as {@link Target.logDensityBounds}.
+   */
+  d2LogDensityBounds?(lower: number, upper: number): readonly [number, number];
 }
 
 /**

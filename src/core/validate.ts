@@ -31,8 +31,10 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
   if (target.dLogDensity !== undefined && typeof target.dLogDensity !== 'function') {
     throw new InvalidTargetError(`${api}: target.dLogDensity must be a function when given, got ${typeof target.dLogDensity}`);
   }
-  if (target.logDensityBounds !== undefined && typeof target.logDensityBounds !== 'function') {
-    throw new InvalidTargetError(`${api}: target.logDensityBounds must be a function when given, got ${typeof target.logDensityBounds}`);
+  for (const name of ['logDensityBounds', 'dLogDensityBounds', 'd2LogDensityBounds'] as const) {
+    if (target[name] !== undefined && typeof target[name] !== 'function') {
+      throw new InvalidTargetError(`${api}: target.${name} must be a function when given, got ${typeof target[name]}`);
+    }
   }
   const [lower, upper] = checkSupport(api, 'target.support', target.support);
   if (target.modes !== undefined) {
