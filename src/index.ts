@@ -46,8 +46,8 @@ export { adaptiveRejectionSampler, DEFAULT_MAX_PIECES } from './methods/adaptive
 export type { AdaptiveRejectionOptions, AdaptiveRejectionSampler } from './methods/adaptive-rejection.js';
 export { evaluateEnvelope } from './methods/hull/describe.js';
 export type { EnvelopeDescription, EnvelopePiece, EnvelopeValue } from './methods/hull/describe.js';
-export type { TransformName } from './methods/hull/transforms.js';
-export { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from './methods/hull/hull.js';
+export type { TransformName } from './methods/envelope/transforms.js';
+export { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from './methods/envelope/tolerance.js';
 export { envelopeSvg } from './checks/envelope-svg.js';
 export type { EnvelopeSvgOptions } from './checks/envelope-svg.js';
 export {

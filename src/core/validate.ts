@@ -3,7 +3,8 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError, NonFiniteDensityError } from './errors.js';
+import { InvalidTargetError } from './errors.js';
+import { checkLogDensity } from './evaluate.js';
 import type { Target } from './types.js';
 
 /** A target whose optional members have been checked. @internal */
@@ -83,14 +84,11 @@ export function checkSupport(api: string, name: string, support: readonly [numbe
 }
 
 /**
- * Evaluates `logDensity(x)` and throws {@link NonFiniteDensityError} on `NaN`
- * or `+Infinity`. Use in setup code; kernels inline the same test.
- * @internal
+ * Evaluates `logDensity(x)` and checks it with {@link checkLogDensity}
+ * (the one check every method uses). @internal
  */
 export function evalLog(api: string, logDensity: (x: number) => number, x: number): number {
-  const v = logDensity(x);
-  if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(api, x, v);
-  return v;
+  return checkLogDensity(api, x, logDensity(x));
 }
 
 /** Throws unless `v` is a finite number. @internal */

@@ -10,7 +10,7 @@ import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './hull/describe.js';
 import { hullFill } from './hull/kernel.js';
 import { setupHull } from './hull/setup.js';
-import type { TransformName } from './hull/transforms.js';
+import type { TransformName } from './envelope/transforms.js';
 import { createTableSampler } from './table-sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';

@@ -12,7 +12,8 @@ import type { CheckedTarget } from '../core/validate.js';
 import { adaptiveRejectionSampler } from './adaptive-rejection.js';
 import { piecewiseSampler } from './piecewise.js';
 import { NOISE } from './piecewise/grid.js';
-import { Evaluator, scanTarget } from './piecewise/scan.js';
+import { Evaluator } from '../core/evaluate.js';
+import { scanTarget } from './piecewise/scan.js';
 import type { ScanPoint } from './piecewise/scan.js';
 import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
 

@@ -9,15 +9,18 @@ import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/type
 import { checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
-import { GuideTable } from './hull/guide-table.js';
-import { T_LOG } from './hull/transforms.js';
+import { GuideTable } from './envelope/guide-table.js';
+import { T_LOG } from './envelope/transforms.js';
 import { CLASS_NAMES, Grid, NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/grid.js';
-import type { Tables } from './piecewise/grid.js';
-import { evaluateTables, pieceLogEnvelope, piecewiseFill } from './piecewise/kernel.js';
+import type { Tables } from './envelope/piece-tables.js';
+import { evaluateTables, pieceLogEnvelope } from './envelope/piece-tables.js';
+import { piecewiseFill } from './piecewise/kernel.js';
 import type { KernelState } from './piecewise/kernel.js';
-import { Evaluator, scanTarget } from './piecewise/scan.js';
+import { Evaluator } from '../core/evaluate.js';
+import { scanTarget } from './piecewise/scan.js';
+import { lastAtOrBelow } from './envelope/arith.js';
 import { buildAliasCells } from './table/alias.js';
-import type { StripTable } from './table/build.js';
+import type { StripTable } from './table/strip-table.js';
 import { describeTable } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
 import { buildPiecewiseStripTable } from './table/piecewise-build.js';
@@ -464,14 +467,7 @@ function createPiecewiseTable(
   const stripAt = (x: number): number => {
     const xs = built.x;
     if (!(x >= xs[0] && x <= xs[built.n])) return -1;
-    let a = 0;
-    let b = built.n - 1;
-    while (a < b) {
-      const m = (a + b + 1) >> 1;
-      if (xs[m] <= x) a = m;
-      else b = m - 1;
-    }
-    return a;
+    return lastAtOrBelow(xs, 0, built.n - 1, x);
   };
   return {
     sample: draws.sample,

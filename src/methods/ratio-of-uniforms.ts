@@ -6,6 +6,7 @@
  */
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { checkLogDensity } from '../core/evaluate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
 import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
@@ -316,17 +317,16 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
           const lhs = r1 * Math.log(u);
           let q = -Infinity;
           if (squeeze !== undefined) {
-            q = squeeze(x);
-            if (q !== q || q === Infinity || typeof q !== 'number') throw new NonFiniteDensityError(`${api} (squeeze)`, x, q);
+            q = checkLogDensity(`${api} (squeeze)`, x, squeeze(x));
             if (q <= LM && lhs <= q - LM) {
               c.samples++;
               out[i] = x;
               break;
             }
           }
-          const lf = logf(x);
+          const raw = logf(x);
           c.densityEvaluations++;
-          if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(api, x, lf);
+          const lf = checkLogDensity(api, x, raw);
           if (lf > LM) throw new EnvelopeViolationError(api, x, lf, LM, 'envelope');
           const d = x - s;
           if (d > vPlus || -d > vMinus) {

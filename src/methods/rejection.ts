@@ -5,8 +5,9 @@
  */
 import { findLogBound } from '../bounds/find-log-bound.js';
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
-import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
+import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { checkFinite, checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
@@ -117,17 +118,16 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
         const threshold = logV + logEnv;
         let s = -Infinity;
         if (squeeze !== undefined) {
-          s = squeeze(x);
-          if (s !== s) throw new NonFiniteDensityError(`${api} (squeeze)`, x, s);
+          s = checkLogDensity(`${api} (squeeze)`, x, squeeze(x));
           if (s > logEnv + tol) throw new EnvelopeViolationError(api, x, s, logEnv, 'envelope');
           if (threshold <= s) {
             counters.samples++;
             return x;
           }
         }
-        const lf = logf(x);
+        const raw = logf(x);
         counters.densityEvaluations++;
-        if (lf !== lf || lf === Infinity) throw new NonFiniteDensityError(api, x, lf);
+        const lf = checkLogDensity(api, x, raw);
         if (lf > logEnv + tol) throw new EnvelopeViolationError(api, x, lf, logEnv, 'envelope');
         if (s > lf + tol) throw new EnvelopeViolationError(api, x, lf, s, 'squeeze');
         if (threshold <= lf) {

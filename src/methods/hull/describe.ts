@@ -3,9 +3,10 @@
  *
  * @packageDocumentation
  */
-import type { TransformName } from './transforms.js';
-import { T_LOG, logHeight, pieceLogArea } from './transforms.js';
+import type { TransformName } from '../envelope/transforms.js';
+import { T_LOG, logHeight, pieceLogArea } from '../envelope/transforms.js';
 import type { Hull } from './hull.js';
+import { logSumExp } from '../envelope/arith.js';
 
 /**
  * One piece of a hull envelope: on `[lower, upper]` the envelope is the
@@ -71,15 +72,6 @@ export interface EnvelopeValue {
   readonly logEnvelope: number;
   /** Natural log of the squeeze at x (`-Infinity` where there is none). */
   readonly logSqueeze: number;
-}
-
-function logSumExp(v: readonly number[]): number {
-  let m = -Infinity;
-  for (const x of v) if (x > m) m = x;
-  if (m === -Infinity || m === Infinity) return m;
-  let s = 0;
-  for (const x of v) s += Math.exp(x - m);
-  return m + Math.log(s);
 }
 
 /** Builds the description of a hull. @internal */

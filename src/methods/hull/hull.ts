@@ -5,30 +5,12 @@
  *
  * @packageDocumentation
  */
-import { ImproperDensityError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
-import { GuideTable } from './guide-table.js';
-import { T_LOG, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from './transforms.js';
-
-/**
- * Absolute part of the tolerance, in log-density units, of every comparison
- * between the target and the hull (envelope and squeeze checks, shape
- * checks): `logf(x) ≤ log envelope(x) + tol` with
- * `tol = 1e-9 + 1e-12·(|log envelope| + |logf|)` (roughly).
- *
- * @remarks
- * Why not 0: a log-density is computed with rounding error relative to the
- * size of its intermediate terms, not of its result — a normalized gamma
- * log-density at shape 1e4 subtracts lnΓ(1e4) ≈ 8.2e4 and keeps an absolute
- * error near 1e-11 although the result is about −5. Why so small: a target
- * that exceeds the envelope by a factor e^tol ≈ 1 + 1e-9 biases the draws by
- * at most about 1e-9 in total variation, far below what any sample can
- * detect, while every shape error of practical size (a second mode, a tail
- * heavier than the transform allows) is many orders of magnitude larger.
- */
-export const HULL_LOG_TOLERANCE_ABSOLUTE = 1e-9;
-
-/** Relative part of the hull tolerance (see {@link HULL_LOG_TOLERANCE_ABSOLUTE}): unnormalized targets with log heights far from 0. */
-export const HULL_LOG_TOLERANCE_RELATIVE = 1e-12;
+import { ImproperDensityError, NonFiniteDensityError } from '../../core/errors.js';
+import { belowChord, shapeError, shapeName, transformedTolerance } from '../envelope/concavity.js';
+import { GuideTable } from '../envelope/guide-table.js';
+import type { HullView } from '../envelope/hull-view.js';
+import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
+import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -79,7 +61,7 @@ export function nonFiniteDerivative(api: string, x: number, value: number): neve
  * are those of f/e^ref, ref being the hull's maximum log height.
  * @internal
  */
-export class Hull {
+export class Hull implements HullView {
   readonly api: string;
   /** {@link T_LOG} or {@link T_INV_SQRT}. */
   readonly kind: number;
@@ -212,13 +194,82 @@ export class Hull {
 
   /** Name of the shape assumption, for messages. */
   shapeName(): string {
-    return this.kind === T_LOG ? 'log-concave' : 'T-concave for T(f) = -1/sqrt(f)';
+    return shapeName(this.kind);
   }
 
-  /** Number of pieces. */
-  get pieces(): number {
-    return 2 * this.k;
+  // ----- the view the table builder reads (HullView) ---------------------------
+
+  /** Number of touch points. */
+  touchPointCount(): number {
+    return this.k;
   }
+
+  /** Position of touch point i. */
+  touchPointX(i: number): number {
+    return this.tx[i];
+  }
+
+  /** logDensity at touch point i. */
+  touchPointLogDensity(i: number): number {
+    return this.tl[i];
+  }
+
+/** Quantiles of the envelope at the increasing probabilities `ps`. */
+envelopeQuantiles(ps: readonly number[]): number[] {
+    const h = this;
+  const n = 2 * h.k;
+  let total = 0;
+  for (let j = 0; j < n; j++) total += h.area[j];
+  const out: number[] = [];
+  let j = 0;
+  let before = 0;
+  for (const p of ps) {
+    const v = p * total;
+    while (j < n - 1 && before + h.area[j] <= v) {
+      before += h.area[j];
+      j++;
+    }
+    const a = h.area[j];
+    let frac = a > 0 ? (v - before) / a : 0.5;
+    // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
+    if (h.dir[j] < 0) frac = 1 - frac;
+    if (!(frac >= 0)) frac = 0;
+    if (frac >= 1) frac = 0.9999999999999999;
+    const w = h.wd[j];
+    if (!(w > 0) || !(a > 0)) {
+      out.push(h.lo[j]);
+      continue;
+    }
+    const d = invertPiece(h.kind, h.pq[j], h.sig[j], w, frac);
+    let x = h.hx[j] + h.dir[j] * d;
+    if (x < h.lo[j]) x = h.lo[j];
+    else if (x > h.hi[j]) x = h.hi[j];
+    out.push(x);
+  }
+  return out;
+}
+
+/** Maximum of the envelope (log, absolute) over [a, b]. */
+maxLogEnvelope(a: number, b: number): number {
+    const h = this;
+  let best = -Infinity;
+  for (let j = 0; j < 2 * h.k; j++) {
+    const lo = h.lo[j];
+    const hi = h.hi[j];
+    if (!(hi >= lo) || hi < a || lo > b) continue;
+    const p = a > lo ? a : lo;
+    const q = b < hi ? b : hi;
+    const sl = h.sl[j];
+    for (const z of [p, q]) {
+      let t = h.at[j] + sl * (z - h.ax[j]);
+      if (t !== t) t = Infinity;
+      const v = logHeight(h.kind, t);
+      if (v > best) best = v;
+    }
+  }
+  return best + h.ref;
+}
+
 
   // ----- lines ---------------------------------------------------------------
 
@@ -426,19 +477,14 @@ export class Hull {
 
   /** Tolerance in transformed units for comparisons between points of log-density la, lb and transformed values ya, yb. */
   private tolY(la: number, lb: number, ya: number, yb: number): number {
-    const tolL = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(la) + Math.abs(lb));
-    if (this.kind === T_LOG) return tolL;
-    return 0.5 * Math.max(-ya, -yb) * tolL;
+    return transformedTolerance(this.kind, la, lb, ya, yb);
   }
 
   private context = '';
 
   private shapeError(detail: string, a: number, b: number): never {
     if (this.context !== '') detail = `${this.context}; ${detail}`;
-    const hint = this.kind === T_LOG
-      ? " (for heavier tails try transform: 'inverse-sqrt'; for several modes use piecewiseSampler)"
-      : ' (for several modes use piecewiseSampler)';
-    throw new ShapeViolationError(`${this.api}: target is not ${this.shapeName()} on [${a}, ${b}]: ${detail}${hint}`, [a, b]);
+    throw shapeError(this.api, this.kind, detail, a, b);
   }
 
   /**
@@ -462,9 +508,7 @@ export class Hull {
 
   /** Secant construction, points x0 < x1 < x2: the middle one must not lie below the chord of the outer ones. */
   private checkSecantTriple(x0: number, y0: number, l0: number, x1: number, y1: number, l1: number, x2: number, y2: number, l2: number): void {
-    const interp = y0 + (y2 - y0) * ((x1 - x0) / (x2 - x0));
-    const tol = Math.max(this.tolY(l0, l1, y0, y1), this.tolY(l1, l2, y1, y2));
-    if (!(y1 - interp >= -tol)) {
+    if (belowChord(this.kind, x0, y0, l0, x1, y1, l1, x2, y2, l2)) {
       this.shapeError(
         `the chord slopes of the transformed density must not increase, but they are ${(y1 - y0) / (x1 - x0)} on [${x0}, ${x1}] and ${(y2 - y1) / (x2 - x1)} on [${x1}, ${x2}] (log-density ${l0}, ${l1}, ${l2})`,
         x0,

@@ -15,7 +15,7 @@ import type { AdaptiveRejectionOptions } from '../adaptive-rejection.js';
 import { Hull, SKIPPED, nonFiniteDerivative } from './hull.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe } from './start.js';
-import { T_INV_SQRT, T_LOG } from './transforms.js';
+import { T_INV_SQRT, T_LOG } from '../envelope/transforms.js';
 
 /**
  * Default of {@link AdaptiveRejectionOptions.maxPieces}: 100 pieces, i.e. 50

@@ -30,8 +30,12 @@
  * @packageDocumentation
  */
 import { ImproperDensityError, ShapeViolationError } from '../../core/errors.js';
-import { T_INV_SQRT, T_LOG, pieceConstant, pieceLogArea } from '../hull/transforms.js';
-import type { Evaluator, ScanPoint } from './scan.js';
+import { T_INV_SQRT, T_LOG, pieceConstant, pieceLogArea } from '../envelope/transforms.js';
+import type { Evaluator } from '../../core/evaluate.js';
+import { lastAtOrBelow, logSumExp } from '../envelope/arith.js';
+import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
+import type { Tables } from '../envelope/piece-tables.js';
+import type { ScanPoint } from './scan.js';
 
 /** Cell classes (see the module remarks). @internal */
 export const C = 1;
@@ -99,12 +103,6 @@ export const MIXED_LIMIT = 1100;
 /** Bound on the classify-and-halve rounds of one settling. @internal */
 export const SETTLE_MAX_ROUNDS = 1500;
 
-/** Absolute part of the log tolerance of envelope and squeeze checks (as the hull engine's). @internal */
-export const LOG_TOLERANCE_ABSOLUTE = 1e-9;
-
-/** Relative part of the log tolerance (of |log f| and of the reference height). @internal */
-export const LOG_TOLERANCE_RELATIVE = 1e-12;
-
 /** Tail kinds. @internal */
 export const TAIL_NONE = 0;
 /** @internal */
@@ -121,34 +119,6 @@ export interface Tail {
   l: number;
   /** Decay rate into the tail (> 0): of log f (log), or of T with T = −1 at x (inverse-sqrt). */
   sig: number;
-}
-
-/** Flat tables of the envelope, read by the kernel. @internal */
-export interface Tables {
-  n: number;
-  lo: Float64Array;
-  hi: Float64Array;
-  kind: Uint8Array;
-  xh: Float64Array;
-  dir: Float64Array;
-  w: Float64Array;
-  href: Float64Array;
-  sig: Float64Array;
-  q: Float64Array;
-  sqa: Float64Array;
-  sqv: Float64Array;
-  sqs: Float64Array;
-  logAreas: Float64Array;
-  logSqueezeAreas: Float64Array;
-  shape: Uint8Array;
-  /** Reference height: every stored log value is relative to it. */
-  ref: number;
-  /** log of the envelope area (absolute). */
-  logEnvelopeArea: number;
-  /** log of the squeeze area (absolute). */
-  logSqueezeArea: number;
-  /** Normalized areas for the guide table. */
-  area: Float64Array;
 }
 
 /** Growable piece lists (setup only). */
@@ -217,16 +187,6 @@ export function isAtomic(a: number, b: number): boolean {
 export function mid(a: number, b: number): number {
   const m = 0.5 * a + 0.5 * b;
   return m;
-}
-
-/** log(Σ e^v) over an array. @internal */
-export function logSumExp(v: ArrayLike<number>): number {
-  let m = -Infinity;
-  for (let i = 0; i < v.length; i++) if (v[i] > m) m = v[i];
-  if (m === -Infinity || m === Infinity) return m;
-  let s = 0;
-  for (let i = 0; i < v.length; i++) s += Math.exp(v[i] - m);
-  return m + Math.log(s);
 }
 
 /**
@@ -519,8 +479,8 @@ export class Grid {
         const b = this.x[i + 1];
         const m = mid(a, b);
         if (m > a && m < b) {
-          const lm = this.ev.l(m);
-          const gm = this.tangent ? this.ev.g(m, lm) : NaN;
+          const lm = this.ev.logDensity(m);
+          const gm = this.tangent ? this.ev.derivative(m, lm) : NaN;
           if (checkable && this.contradicts(i, m, lm)) surprises++;
           nx.push(m);
           nl.push(lm);
@@ -546,7 +506,7 @@ export class Grid {
   /** Whether the value lm at m lies above the envelope or below the squeeze of cell i (current classification). */
   private contradicts(i: number, m: number, lm: number): boolean {
     const e = this.cellEnvelope(i, m);
-    const tol = LOG_TOLERANCE_ABSOLUTE + LOG_TOLERANCE_RELATIVE * (Math.abs(lm === -Infinity ? 0 : lm) + Math.abs(e.env === -Infinity ? 0 : e.env));
+    const tol = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(lm === -Infinity ? 0 : lm) + Math.abs(e.env === -Infinity ? 0 : e.env));
     return lm > e.env + tol || lm < e.sq - tol;
   }
 
@@ -845,13 +805,7 @@ export class Grid {
   /** Index of the cell whose left end is `a` (binary search), or −1. */
   private cellIndex(a: number): number {
     const x = this.x;
-    let lo = 0;
-    let hi = x.length - 2;
-    while (lo < hi) {
-      const m = (lo + hi + 1) >> 1;
-      if (x[m] <= a) lo = m;
-      else hi = m - 1;
-    }
+    const lo = lastAtOrBelow(x, 0, x.length - 2, a);
     return lo >= 0 && x[lo] <= a && a < x[lo + 1] ? lo : -1;
   }
 
@@ -862,10 +816,10 @@ export class Grid {
     const d = t.kind === TAIL_LOG ? Math.LN2 / t.sig : 1 / t.sig;
     const xn = t.x + o * d;
     if (!Number.isFinite(xn) || xn === t.x) return;
-    const ln = this.ev.l(xn);
-    const gn = this.tangent ? this.ev.g(xn, ln) : NaN;
+    const ln = this.ev.logDensity(xn);
+    const gn = this.tangent ? this.ev.derivative(xn, ln) : NaN;
     const envAt = t.kind === TAIL_LOG ? t.l - t.sig * d : t.l - 2 * Math.log1p(t.sig * d);
-    if (ln > envAt + LOG_TOLERANCE_ABSOLUTE + LOG_TOLERANCE_RELATIVE * Math.abs(ln)) this.surprises++;
+    if (ln > envAt + HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(ln)) this.surprises++;
     if (o > 0) {
       this.x.push(xn);
       this.l.push(ln);
@@ -884,7 +838,7 @@ export class Grid {
    * settles and recomputes the tails. The point may lie in a tail.
    */
   insert(xv: number, lv: number): void {
-    const gv = this.tangent ? this.ev.g(xv, lv) : NaN;
+    const gv = this.tangent ? this.ev.derivative(xv, lv) : NaN;
     const x = this.x;
     if (xv < x[0]) {
       x.unshift(xv);

@@ -41,8 +41,8 @@
  * the last place.
  * @internal
  */
-import type { StripTable } from './build.js';
-import { R_SURE } from './build.js';
+import type { StripTable } from './strip-table.js';
+import { R_SURE } from './strip-table.js';
 
 /** Doubles per cell: P, B0, S0, B1, S1. @internal */
 export const CELL_STRIDE = 5;

@@ -4,9 +4,9 @@
  * @packageDocumentation
  */
 import type { EnvelopeDescription, EnvelopePiece } from '../hull/describe.js';
-import { T_LOG, pieceLogArea, transformValue } from '../hull/transforms.js';
+import { T_LOG, pieceLogArea, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
-import type { StripTable, TailPiece } from './build.js';
+import type { StripTable, TailPiece } from './strip-table.js';
 
 /**
  * The strip table of a {@link TableSampler}: the body cut into strips, each

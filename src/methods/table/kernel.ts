@@ -4,16 +4,17 @@
  * @packageDocumentation
  */
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, NonFiniteDensityError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
-import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../hull/hull.js';
-import { T_LOG, invertPiece, logHeight, transformValue } from '../hull/transforms.js';
+import { notConcave, shapeError } from '../envelope/concavity.js';
+import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
+import { logTolerance } from '../envelope/tolerance.js';
+import { T_LOG, invertPiece, logHeight, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
-import type { StripTable, TailPiece } from './build.js';
-import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL, notConcave, tableShapeError } from './build.js';
-import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from '../piecewise/kernel.js';
-import type { PiecewiseStrips } from './piecewise-build.js';
+import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL } from './strip-table.js';
+import type { PiecewiseStrips, StripTable, TailPiece } from './strip-table.js';
 
 /** The largest double below 1. */
 const BELOW_ONE = 0.9999999999999999;
@@ -94,10 +95,9 @@ export function tableFill(st: TableState, out: Float64Array, n: number, counters
   }
 }
 
-/** Log-units tolerance of a comparison with log-density lf (the hull's). */
+/** Log-units tolerance of a comparison with the absolute log-density lf. */
 function tolLog(ref: number, lf: number): number {
-  const lr = lf - ref;
-  return HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(ref) + Math.abs(lr === -Infinity ? 0 : lr));
+  return logTolerance(ref, lf - ref);
 }
 
 /**
@@ -249,7 +249,7 @@ function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i
 /** Throws EnvelopeViolationError when lf lies above the piece's envelope or below its squeeze (relative logs env, sq). */
 function checkPiecewise(api: string, x: number, lf: number, ref: number, env: number, sq: number): void {
   const lr = lf - ref;
-  const tol = piecewiseTolerance(ref, lr);
+  const tol = logTolerance(ref, lr);
   if (lr > env + tol) throw new EnvelopeViolationError(api, x, lf, env + ref, 'envelope');
   if (lr < sq - tol) throw new EnvelopeViolationError(api, x, lf, sq + ref, 'squeeze');
 }
@@ -258,8 +258,7 @@ function checkPiecewise(api: string, x: number, lf: number, ref: number, env: nu
 function evaluate(st: TableState, counters: Counters, x: number): number {
   const lf = st.logDensity(x);
   counters.densityEvaluations++;
-  if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(st.table.api, x, lf);
-  return lf;
+  return checkLogDensity(st.table.api, x, lf);
 }
 
 /**
@@ -287,7 +286,7 @@ function violation(st: TableState, x: number, lf: number, bound: number, what: '
   const rel = what === 'envelope' ? 'above the envelope' : 'below the squeeze';
   for (const q of triples) {
     if (notConcave(kind, ...q)) {
-      throw tableShapeError(
+      throw shapeError(
         tb.api,
         kind,
         `target is ${rel} at x = ${x} (log target ${lf}, log ${what} ${bound}): the points ${q[0]}, ${q[3]}, ${q[6]} (log-density ${q[2]}, ${q[5]}, ${q[8]}) have increasing chord slopes of the transformed density`,
