@@ -4,6 +4,7 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from './errors.js';
+import { DEFAULT_MAX_REJECTIONS } from './counters.js';
 import { checkLogDensity } from './evaluate.js';
 import type { Target } from './types.js';
 
@@ -133,4 +134,20 @@ export function checkFillArray(api: string, out: unknown): void {
   if (!(out instanceof Float64Array)) {
     throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
   }
+}
+
+/**
+ * Resolves `options.maxRejections` of every sampler: the default
+ * ({@link DEFAULT_MAX_REJECTIONS}) when undefined, else an integer in
+ * [1, 2^53 − 1]. @internal
+ */
+export function resolveMaxRejections(api: string, v: unknown): number {
+  return v === undefined ? DEFAULT_MAX_REJECTIONS : checkInteger(api, 'options.maxRejections', v, 1, Number.MAX_SAFE_INTEGER);
+}
+
+/** Resolves a boolean option `name` (as written in messages, e.g. `options.fast`): `dflt` when undefined. @internal */
+export function resolveBoolean(api: string, name: string, v: unknown, dflt: boolean): boolean {
+  if (v === undefined) return dflt;
+  if (typeof v !== 'boolean') throw new InvalidTargetError(`${api}: ${name} must be a boolean, got ${String(v)}`);
+  return v;
 }

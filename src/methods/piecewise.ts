@@ -3,10 +3,11 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
+import { wrapDraws } from '../core/draws.js';
+import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections } from '../core/validate.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { GuideTable } from './envelope/guide-table.js';
@@ -24,7 +25,8 @@ import type { StripTable } from './table/strip-table.js';
 import { describeTable } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
 import { buildPiecewiseStripTable } from './table/piecewise-build.js';
-import { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS, tableDraws } from './table-sampler.js';
+import { tableDraws } from './table/draws.js';
+import { MAX_TABLE_STRIPS, resolveTableOptions } from './table/options.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
 
@@ -373,21 +375,15 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const scanPoints = opts.scanPoints === undefined ? DEFAULT_SCAN_POINTS : checkInteger(api, 'options.scanPoints', opts.scanPoints, 16, 1_000_000);
   const ratio = opts.targetAreaRatio === undefined ? DEFAULT_TARGET_AREA_RATIO : checkRatio(api, opts.targetAreaRatio);
   const maxPieces = opts.maxPieces === undefined ? DEFAULT_PIECEWISE_MAX_PIECES : checkInteger(api, 'options.maxPieces', opts.maxPieces, 16, 10_000_000);
-  const derivativeFree = checkBoolean(api, 'options.derivativeFree', opts.derivativeFree);
-  const adapt = checkBoolean(api, 'options.adapt', opts.adapt);
-  const maxRejections = opts.maxRejections === undefined
-    ? DEFAULT_MAX_REJECTIONS
-    : checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
-  const fast = checkBoolean(api, 'options.fast', opts.fast);
+  const derivativeFree = resolveBoolean(api, 'options.derivativeFree', opts.derivativeFree, false);
+  const adapt = resolveBoolean(api, 'options.adapt', opts.adapt, false);
+  const maxRejections = resolveMaxRejections(api, opts.maxRejections);
+  const fast = resolveBoolean(api, 'options.fast', opts.fast, false);
   if (fast && adapt) throw new InvalidTargetError(`${api}: options.fast and options.adapt cannot both be true (the table of the fast path does not change after setup)`);
   if (!fast && (opts.strips !== undefined || opts.tailMass !== undefined)) {
     throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts.strips)}, tailMass ${String(opts.tailMass)})`);
   }
-  const strips = opts.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', opts.strips, 2, MAX_TABLE_STRIPS);
-  const tailMass = opts.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
-  if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
-    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
-  }
+  const { strips, tailMass } = resolveTableOptions(api, opts);
   const uniform = resolveUniform(api, opts);
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
 
@@ -501,9 +497,7 @@ export const PIECEWISE_NOISE = NOISE;
 /** The sampler. */
 class Piecewise implements PiecewiseSampler {
   private readonly state: KernelState;
-  private readonly one = new Float64Array(1);
   private repairs = 0;
-  private failure: unknown;
   private readonly setupEvaluations: number;
 
   constructor(
@@ -535,6 +529,9 @@ class Piecewise implements PiecewiseSampler {
       pendingBound: NaN,
       pendingWhat: 'envelope',
     };
+    const draws = wrapDraws(api, (out, n) => this.run(out, n));
+    this.sample = draws.sample;
+    this.fill = draws.fill;
   }
 
   get stats(): PiecewiseStats {
@@ -553,29 +550,16 @@ class Piecewise implements PiecewiseSampler {
     return evaluateTables(this.state.t, x).logSqueeze;
   }
 
-  sample(): number {
-    this.run(this.one, 1);
-    return this.one[0];
-  }
+  readonly sample: () => number;
+  readonly fill: (out: Float64Array) => Float64Array;
 
-  fill(out: Float64Array): Float64Array {
-    checkFillArray(this.api, out);
-    this.run(out, out.length);
-    return out;
-  }
-
+  /** The kernel, with the repairs in between (adapt); wrapped by {@link wrapDraws} in the constructor. */
   private run(out: Float64Array, n: number): void {
-    if (this.failure !== undefined) throw this.failure;
-    try {
-      let i = 0;
-      for (;;) {
-        i = piecewiseFill(this.state, out, i, n);
-        if (i < 0) return;
-        this.repair();
-      }
-    } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) this.failure = e;
-      throw e;
+    let i = 0;
+    for (;;) {
+      i = piecewiseFill(this.state, out, i, n);
+      if (i < 0) return;
+      this.repair();
     }
   }
 
@@ -691,8 +675,3 @@ function checkRatio(api: string, v: unknown): number {
   return v;
 }
 
-function checkBoolean(api: string, name: string, v: unknown): boolean {
-  if (v === undefined) return false;
-  if (typeof v !== 'boolean') throw new InvalidTargetError(`${api}: ${name} must be a boolean, got ${String(v)}`);
-  return v;
-}

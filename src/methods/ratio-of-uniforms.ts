@@ -4,11 +4,12 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, checkFillArray } from '../core/validate.js';
+import { wrapDraws } from '../core/draws.js';
+import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 
@@ -189,10 +190,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   if (squeeze !== undefined && typeof squeeze !== 'function') {
     throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
-  const maxRejections =
-    options.maxRejections === undefined
-      ? DEFAULT_MAX_REJECTIONS
-      : checkInteger(api, 'options.maxRejections', options.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const t = checkTarget(api, target);
   const rect = computeRectangle(api, t, power, shift);
@@ -202,7 +200,6 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
 /** The sampler; all constants fixed at construction, one flat kernel for sample and fill. */
 class RatioOfUniforms implements RatioOfUniformsSampler {
   private readonly counters = new Counters();
-  private readonly one = new Float64Array(1);
   private readonly r1: number;
   private readonly vWidth: number;
   private readonly ratio: number;
@@ -248,6 +245,9 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       scaledVMax: rect.vMax,
       logRectangleArea: LM + Math.log(this.vWidth),
     });
+    const draws = wrapDraws(api, (out, n) => this.run(out, n));
+    this.sample = draws.sample;
+    this.fill = draws.fill;
   }
 
   get stats(): SamplerStats {
@@ -273,16 +273,8 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     return LM + Math.min(0, this.ratio * (logV - Math.log(Math.abs(d))));
   }
 
-  sample(): number {
-    this.run(this.one, 1);
-    return this.one[0];
-  }
-
-  fill(out: Float64Array): Float64Array {
-    checkFillArray(this.api, out);
-    this.run(out, out.length);
-    return out;
-  }
+  readonly sample: () => number;
+  readonly fill: (out: Float64Array) => Float64Array;
 
   /** The kernel: fills out[0..n) (constants in locals, no allocation). */
   private run(out: Float64Array, n: number): void {

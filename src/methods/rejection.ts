@@ -4,12 +4,13 @@
  * @packageDocumentation
  */
 import { findLogBound } from '../bounds/find-log-bound.js';
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
+import { wrapDraws } from '../core/draws.js';
+import { checkFinite, checkInteger, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 
 /** Options of {@link rejectionSampler}. */
@@ -86,9 +87,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   if (squeeze !== undefined && typeof squeeze !== 'function') {
     throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
-  const maxRejections = options.maxRejections === undefined
-    ? DEFAULT_MAX_REJECTIONS
-    : checkInteger(api, 'options.maxRejections', options.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const counters = new Counters();
 
@@ -141,13 +140,12 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
     }
   };
 
+  const draws = wrapDraws(api, (out, n) => {
+    for (let i = 0; i < n; i++) out[i] = one();
+  });
   return {
-    sample: one,
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(api, out);
-      for (let i = 0; i < out.length; i++) out[i] = one();
-      return out;
-    },
+    sample: draws.sample,
+    fill: draws.fill,
     get stats(): SamplerStats {
       return counters.snapshot();
     },
