@@ -8,7 +8,7 @@ import { InvalidTargetError } from '../core/errors.js';
 import { resolveBoolean } from '../core/validate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
-import type { EnvelopeDescription } from './hull/describe.js';
+import type { EnvelopeDescription } from './envelope/description.js';
 import { hullFill } from './hull/kernel.js';
 import { setupHull } from './hull/setup.js';
 import type { TransformName } from './envelope/transforms.js';

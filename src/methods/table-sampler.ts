@@ -5,7 +5,7 @@
  * @packageDocumentation
  */
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import type { EnvelopeDescription } from './hull/describe.js';
+import type { EnvelopeDescription } from './envelope/description.js';
 import { setupHull } from './hull/setup.js';
 import type { HullSetup } from './hull/setup.js';
 import type { TransformName } from './envelope/transforms.js';

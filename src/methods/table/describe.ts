@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-import type { EnvelopeDescription, EnvelopePiece } from '../hull/describe.js';
+import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description.js';
 import { T_LOG, pieceLogArea, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
 import type { StripTable, TailPiece } from './strip-table.js';

@@ -3,7 +3,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
-import { evaluateEnvelope } from '../../../src/methods/hull/describe.js';
+import { evaluateEnvelope } from '../../../src/methods/envelope/description.js';
 import { betaTarget } from '../../../src/targets/beta.js';
 import { gammaTarget } from '../../../src/targets/gamma.js';
 import { normalTarget } from '../../../src/targets/normal.js';
