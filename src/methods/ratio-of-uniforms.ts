@@ -9,7 +9,7 @@ import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, Stal
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
 import { wrapDraws } from '../core/draws.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
+import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 

@@ -10,7 +10,7 @@ import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { wrapDraws } from '../core/draws.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
+import { checkFinite, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 
 /** Options of {@link rejectionSampler}. */

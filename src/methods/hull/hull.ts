@@ -87,12 +87,6 @@ export class Hull implements HullView {
   readonly guideTable: GuideTable;
   /** True when the guide table must be rebuilt before the next draw. */
   dirty = true;
-  /** Length scale used when setup needs to step outward. */
-  setupScale = 1;
-  private leftStep = 0;
-  private rightStep = 0;
-  private leftGrowth = 2;
-  private rightGrowth = 2;
 
   // touch points
   tx!: Float64Array; // x
@@ -214,62 +208,61 @@ export class Hull implements HullView {
     return this.tl[i];
   }
 
-/** Quantiles of the envelope at the increasing probabilities `ps`. */
-envelopeQuantiles(ps: readonly number[]): number[] {
+  /** Quantiles of the envelope at the increasing probabilities `ps`. */
+  envelopeQuantiles(ps: readonly number[]): number[] {
     const h = this;
-  const n = 2 * h.k;
-  let total = 0;
-  for (let j = 0; j < n; j++) total += h.area[j];
-  const out: number[] = [];
-  let j = 0;
-  let before = 0;
-  for (const p of ps) {
-    const v = p * total;
-    while (j < n - 1 && before + h.area[j] <= v) {
-      before += h.area[j];
-      j++;
+    const n = 2 * h.k;
+    let total = 0;
+    for (let j = 0; j < n; j++) total += h.area[j];
+    const out: number[] = [];
+    let j = 0;
+    let before = 0;
+    for (const p of ps) {
+      const v = p * total;
+      while (j < n - 1 && before + h.area[j] <= v) {
+        before += h.area[j];
+        j++;
+      }
+      const a = h.area[j];
+      let frac = a > 0 ? (v - before) / a : 0.5;
+      // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
+      if (h.dir[j] < 0) frac = 1 - frac;
+      if (!(frac >= 0)) frac = 0;
+      if (frac >= 1) frac = 0.9999999999999999;
+      const w = h.wd[j];
+      if (!(w > 0) || !(a > 0)) {
+        out.push(h.lo[j]);
+        continue;
+      }
+      const d = invertPiece(h.kind, h.pq[j], h.sig[j], w, frac);
+      let x = h.hx[j] + h.dir[j] * d;
+      if (x < h.lo[j]) x = h.lo[j];
+      else if (x > h.hi[j]) x = h.hi[j];
+      out.push(x);
     }
-    const a = h.area[j];
-    let frac = a > 0 ? (v - before) / a : 0.5;
-    // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
-    if (h.dir[j] < 0) frac = 1 - frac;
-    if (!(frac >= 0)) frac = 0;
-    if (frac >= 1) frac = 0.9999999999999999;
-    const w = h.wd[j];
-    if (!(w > 0) || !(a > 0)) {
-      out.push(h.lo[j]);
-      continue;
-    }
-    const d = invertPiece(h.kind, h.pq[j], h.sig[j], w, frac);
-    let x = h.hx[j] + h.dir[j] * d;
-    if (x < h.lo[j]) x = h.lo[j];
-    else if (x > h.hi[j]) x = h.hi[j];
-    out.push(x);
+    return out;
   }
-  return out;
-}
 
-/** Maximum of the envelope (log, absolute) over [a, b]. */
-maxLogEnvelope(a: number, b: number): number {
+  /** Maximum of the envelope (log, absolute) over [a, b]. */
+  maxLogEnvelope(a: number, b: number): number {
     const h = this;
-  let best = -Infinity;
-  for (let j = 0; j < 2 * h.k; j++) {
-    const lo = h.lo[j];
-    const hi = h.hi[j];
-    if (!(hi >= lo) || hi < a || lo > b) continue;
-    const p = a > lo ? a : lo;
-    const q = b < hi ? b : hi;
-    const sl = h.sl[j];
-    for (const z of [p, q]) {
-      let t = h.at[j] + sl * (z - h.ax[j]);
-      if (t !== t) t = Infinity;
-      const v = logHeight(h.kind, t);
-      if (v > best) best = v;
+    let best = -Infinity;
+    for (let j = 0; j < 2 * h.k; j++) {
+      const lo = h.lo[j];
+      const hi = h.hi[j];
+      if (!(hi >= lo) || hi < a || lo > b) continue;
+      const p = a > lo ? a : lo;
+      const q = b < hi ? b : hi;
+      const sl = h.sl[j];
+      for (const z of [p, q]) {
+        let t = h.at[j] + sl * (z - h.ax[j]);
+        if (t !== t) t = Infinity;
+        const v = logHeight(h.kind, t);
+        if (v > best) best = v;
+      }
     }
+    return best + h.ref;
   }
-  return best + h.ref;
-}
-
 
   // ----- lines ---------------------------------------------------------------
 
@@ -662,106 +655,6 @@ maxLogEnvelope(a: number, b: number): number {
     for (let i = i0; i <= i1; i++) this.buildInterval(i);
     this.buildTails();
     return INSERTED;
-  }
-
-  // ----- setup helpers --------------------------------------------------------
-
-  /**
-   * The next point setup should probe so that the envelope becomes valid
-   * and integrable, or NaN when it already is.
-   * @throws {@link ImproperDensityError} when a tail cannot be bounded
-   */
-  setupDeficiency(): number {
-    const k = this.k;
-    const tx = this.tx;
-    const spread = k > 1 ? tx[k - 1] - tx[0] : 0;
-    const base = Math.max(spread, this.setupScale, Math.abs(tx[0]) * 4.4e-16, 5e-324);
-    if (!this.tangent && k < 3) {
-      // derivative-free hulls need three touch points
-      if (this.upper > tx[k - 1]) return this.outward(1, base);
-      if (this.lower < tx[0]) return this.outward(-1, base);
-      return tx[0] + 0.5 * (tx[1] - tx[0]);
-    }
-    const sL = this.leftTailSlope();
-    if (this.lower === -Infinity) {
-      if (!(sL * 1e300 > 1)) return this.outward(-1, base);
-    } else if (this.kind !== T_LOG && tx[0] > this.lower && !(this.ty[0] + sL * (this.lower - tx[0]) < 0)) {
-      return this.towardBound(-1);
-    }
-    const sR = this.rightTailSlope();
-    if (this.upper === Infinity) {
-      if (!(-sR * 1e300 > 1)) return this.outward(1, base);
-    } else if (this.kind !== T_LOG && tx[k - 1] < this.upper && !(this.ty[k - 1] + sR * (this.upper - tx[k - 1]) < 0)) {
-      return this.towardBound(1);
-    }
-    // the hull must not rise far above the touch points
-    let topTouch = -Infinity;
-    for (let i = 0; i < k; i++) if (this.tl[i] > topTouch) topTouch = this.tl[i];
-    let worst = -1;
-    let worstH = topTouch - this.ref + SETUP_MAX_RELATIVE_HEIGHT;
-    const last = 2 * k - 1;
-    for (let j = 0; j <= last; j++) {
-      if (!(this.wd[j] > 0)) continue;
-      const h = logHeight(this.kind, this.th[j]);
-      if (!(h <= worstH)) {
-        worst = j;
-        worstH = h;
-        if (h !== h) break;
-      }
-    }
-    if (worst === 0) return this.towardBound(-1);
-    if (worst === last) return this.towardBound(1);
-    if (worst > 0) {
-      // probe where the line peaks: the end of the piece that is not a touch point
-      const i = (worst - 1) >> 1;
-      const z = (worst & 1) === 1 ? this.hi[worst] : this.lo[worst];
-      const a = tx[i];
-      const b = tx[i + 1];
-      return z > a && z < b ? z : a + 0.5 * (b - a);
-    }
-    return NaN;
-  }
-
-  /** A point outside the touch points on side `side`, further out at each call. */
-  private outward(side: number, base: number): number {
-    const k = this.k;
-    if (side < 0) {
-      // accelerating steps (×2, ×4, ×8, …): a tail that never decays reaches 1e300 in a few dozen probes
-      if (this.leftStep > 0) {
-        this.leftStep *= this.leftGrowth;
-        this.leftGrowth *= 2;
-      } else {
-        this.leftStep = base;
-      }
-      const x = this.tx[0] - this.leftStep;
-      if (!(x > -1e300)) this.improper(-1);
-      return x > this.lower ? x : this.tx[0] - 0.5 * (this.tx[0] - this.lower);
-    }
-    if (this.rightStep > 0) {
-      this.rightStep *= this.rightGrowth;
-      this.rightGrowth *= 2;
-    } else {
-      this.rightStep = base;
-    }
-    const x = this.tx[k - 1] + this.rightStep;
-    if (!(x < 1e300)) this.improper(1);
-    return x < this.upper ? x : this.tx[k - 1] + 0.5 * (this.upper - this.tx[k - 1]);
-  }
-
-  private towardBound(side: number): number {
-    const k = this.k;
-    const t = side < 0 ? this.tx[0] : this.tx[k - 1];
-    const bnd = side < 0 ? this.lower : this.upper;
-    const mid = t + 0.5 * (bnd - t);
-    return Math.abs(bnd - t) <= 1e-12 * Math.max(1, Math.abs(t)) || mid === t ? bnd : mid;
-  }
-
-  private improper(side: number): never {
-    const k = this.k;
-    const x = side < 0 ? this.tx[0] : this.tx[k - 1];
-    throw new ImproperDensityError(
-      `${this.api}: the ${side < 0 ? 'left' : 'right'} tail does not decay: logDensity keeps ${side < 0 ? 'increasing towards -Infinity' : 'increasing towards +Infinity'} (last touch point x = ${x}, logDensity = ${side < 0 ? this.tl[0] : this.tl[k - 1]}); the density has infinite mass, or its mode lies beyond ±1e300`,
-    );
   }
 
   /** Largest relative log height of the hull over pieces of positive width. */

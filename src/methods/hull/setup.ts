@@ -13,6 +13,7 @@ import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, re
 import type { CheckedTarget } from '../../core/validate.js';
 import { resolveUniform } from '../../random/resolve.js';
 import { Hull, SKIPPED, nonFiniteDerivative } from './hull.js';
+import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe } from './start.js';
 import { T_INV_SQRT, T_LOG } from '../envelope/transforms.js';
@@ -167,13 +168,13 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
     );
   }
   const hull = new Hull(api, kind, tangent, { logDensity: logf, dLogDensity: dlogf }, t.lower, t.upper, ref, Math.max(Math.floor(maxPieces / 2), nUsable) + 4);
-  hull.setupScale = scale > 0 && scale < Infinity ? scale : 1;
+  const next = new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1);
   for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true);
   for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
   let stuck = 0;
   let refinements = 0;
   for (;;) {
-    const x = hull.setupDeficiency();
+    const x = next.next();
     if (x !== x) break;
     if (++refinements > SETUP_MAX_REFINEMENTS) {
       throw new ImproperDensityError(
