@@ -11,7 +11,7 @@ import { tableSampler } from './table-sampler.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { adaptiveRejectionSampler } from './adaptive-rejection.js';
 import { piecewiseSampler } from './piecewise.js';
-import { NOISE } from './piecewise/cells.js';
+import { PIECEWISE_NOISE as NOISE } from './piecewise/cells.js';
 import { Evaluator } from '../core/evaluate.js';
 import { scanTarget } from './piecewise/scan.js';
 import type { ScanPoint } from './piecewise/scan.js';

@@ -12,7 +12,7 @@ import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { GuideTable } from './envelope/guide-table.js';
 import { T_LOG } from './envelope/transforms.js';
-import { CLASS_NAMES, NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/cells.js';
+import { CLASS_NAMES, PIECEWISE_NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/cells.js';
 import { Grid } from './piecewise/grid.js';
 import type { Tables } from './envelope/piece-tables.js';
 import { evaluateTables, pieceLogEnvelope } from './envelope/piece-tables.js';
@@ -341,8 +341,7 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * outside it (a feature the scan missed) is added to the grid and the
  * envelope rebuilt before any draw is made (at most
  * {@link PIECEWISE_TABLE_REPAIR_ROUNDS} rounds, then
- * {@link EnvelopeViolationError}). Measured on the worked multimodal
- * example: about 20–30 ns per draw instead of 90–160 ns (bench/README.md).
+ * {@link EnvelopeViolationError}). Timings: bench/README.md.
  *
  * @param target - the target (bounded density; multimodal is fine)
  * @param options - breakpoints, scan size, refinement goal and cap, construction, adapt, uniform source
@@ -489,11 +488,7 @@ function createPiecewiseTable(
   };
 }
 
-/**
- * Rounding allowance of the shape tests, relative to the magnitudes involved
- * (64·2^−52): a curvature smaller than this much of |log f| is "linear".
- */
-export const PIECEWISE_NOISE = NOISE;
+export { PIECEWISE_NOISE } from './piecewise/cells.js';
 
 /** The sampler. */
 class Piecewise implements PiecewiseSampler {
@@ -637,7 +632,7 @@ function checkDerivative(api: string, pts: readonly ScanPoint[]): void {
     if (!(p.l > -Infinity && q.l > -Infinity && r.l > -Infinity) || !Number.isFinite(q.g)) continue;
     const s0 = (q.l - p.l) / (q.x - p.x);
     const s1 = (r.l - q.l) / (r.x - q.x);
-    const e = 1e-6 * (Math.abs(s0) + Math.abs(s1) + Math.abs(q.g)) + (NOISE * (Math.abs(p.l) + 2 * Math.abs(q.l) + Math.abs(r.l) + 4)) / Math.min(q.x - p.x, r.x - q.x);
+    const e = 1e-6 * (Math.abs(s0) + Math.abs(s1) + Math.abs(q.g)) + (PIECEWISE_NOISE * (Math.abs(p.l) + 2 * Math.abs(q.l) + Math.abs(r.l) + 4)) / Math.min(q.x - p.x, r.x - q.x);
     checked++;
     if (q.g < Math.min(s0, s1) - e || q.g > Math.max(s0, s1) + e) {
       bad++;

@@ -24,12 +24,6 @@ export const INV_SQRT_MIN_RELATIVE_LOG_HEIGHT = -600;
 /** How far (in log units) the hull may rise above the highest touch point during setup before a point is added where it peaks. @internal */
 export const SETUP_MAX_RELATIVE_HEIGHT = 600;
 
-/** Result codes of {@link Hull.insert}. @internal */
-export const INSERTED = 0;
-/** The point was not used (duplicate, capacity reached, or too low under inverse-sqrt). @internal */
-export const SKIPPED = 1;
-/** The point had density 0 outside the touch points: the effective support was shrunk to it. @internal */
-export const SHRUNK = 2;
 
 /** Target functions the engine evaluates. @internal */
 export interface HullTarget {
@@ -139,9 +133,8 @@ export class Hull implements HullView {
   /**
    * (Re)allocates the arrays for `cap` touch points (2·cap pieces) as views
    * of one ArrayBuffer (with the guide table's arrays), keeping the used
-   * parts. One backing store instead of 24: a fresh hull (a Gibbs step) spent most of its time allocating
-   * typed arrays and collecting them (measured: 47 µs per fresh sampler and
-   * draw, about three quarters of it allocation and garbage collection).
+   * parts. One backing store instead of 24 keeps a fresh hull (a Gibbs step)
+   * cheap to allocate and collect (figures: CHANGELOG.md, "Measurements").
    */
   private allocate(cap: number): void {
     const old = this.cap;
@@ -568,34 +561,37 @@ export class Hull implements HullView {
    * (ignored by the secant construction) — checks the shape against its
    * neighbours and rebuilds only the pieces that depend on it.
    * @param grow - allow the arrays to grow (setup); otherwise the point is skipped at `maxK`
-   * @returns {@link INSERTED}, {@link SKIPPED} or {@link SHRUNK}
+   * @returns true when the point was used (a new touch point, or a point of
+   * density 0 outside the touch points, to which the effective support was
+   * shrunk); false when it was skipped (duplicate, capacity reached, or too
+   * low under inverse-sqrt)
    * @throws {@link ShapeViolationError} when the new point contradicts the shape assumption
    */
-  insert(x: number, l: number, g: number, grow: boolean): number {
+  insert(x: number, l: number, g: number, grow: boolean): boolean {
     const k = this.k;
     const tx = this.tx;
     if (l === -Infinity) {
-      if (k === 0) return SKIPPED;
+      if (k === 0) return false;
       if (x < tx[0]) {
         if (x > this.lower) {
           this.lower = x;
           this.buildTails();
         }
-        return SHRUNK;
+        return true;
       }
       if (x > tx[k - 1]) {
         if (x < this.upper) {
           this.upper = x;
           this.buildTails();
         }
-        return SHRUNK;
+        return true;
       }
       // density 0 between two points of positive density
       let i = 0;
       while (i + 1 < k && tx[i + 1] < x) i++;
       this.shapeError(`logDensity(${x}) is -Infinity between touch points of finite log-density, so the support is not an interval`, tx[i], tx[i + 1]);
     }
-    if (this.kind !== T_LOG && l - this.ref < INV_SQRT_MIN_RELATIVE_LOG_HEIGHT) return SKIPPED;
+    if (this.kind !== T_LOG && l - this.ref < INV_SQRT_MIN_RELATIVE_LOG_HEIGHT) return false;
     // position: first index with tx[p] > x
     let a = 0;
     let b = k;
@@ -605,7 +601,7 @@ export class Hull implements HullView {
       else b = m;
     }
     const p = a;
-    if (p > 0 && tx[p - 1] === x) return SKIPPED;
+    if (p > 0 && tx[p - 1] === x) return false;
     // shape checks against the neighbours, before anything changes
     const y = transformValue(this.kind, l - this.ref);
     const sNew = this.tangent ? transformSlope(this.kind, y, g) : NaN;
@@ -622,10 +618,10 @@ export class Hull implements HullView {
       if (p + 1 < k) this.checkSecantTriple(x, y, l, tx[p], ty[p], tl[p], tx[p + 1], ty[p + 1], tl[p + 1]);
     }
     if (k >= this.cap) {
-      if (!grow) return SKIPPED;
+      if (!grow) return false;
       this.allocate(Math.max(2 * this.cap, 8));
     } else if (!grow && k >= this.maxK) {
-      return SKIPPED;
+      return false;
     }
     // shift touch points
     const n = 2 * k;
@@ -654,7 +650,7 @@ export class Hull implements HullView {
     const i1 = Math.min(kk - 2, p + (this.tangent ? 0 : 1));
     for (let i = i0; i <= i1; i++) this.buildInterval(i);
     this.buildTails();
-    return INSERTED;
+    return true;
   }
 
   /** Largest relative log height of the hull over pieces of positive width. */

@@ -12,7 +12,7 @@ import type { TransformName } from '../envelope/transforms.js';
 import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, resolveMaxRejections } from '../../core/validate.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import { resolveUniform } from '../../random/resolve.js';
-import { Hull, SKIPPED, nonFiniteDerivative } from './hull.js';
+import { Hull, nonFiniteDerivative } from './hull.js';
 import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe } from './start.js';
@@ -186,7 +186,7 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
       if (++stuck > 20) break;
       continue;
     }
-    if (hull.insert(p.x, p.l, p.g, true) === SKIPPED && ++stuck > 20) break;
+    if (!hull.insert(p.x, p.l, p.g, true) && ++stuck > 20) break;
   }
   const top = hull.maxRelativeHeight();
   if (top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);

@@ -43,13 +43,19 @@ export const CLASS_NAMES = ['', 'concave', 'convex', 'linear', 'unknown', 'mixed
 export const NEGLIGIBLE_DROP = 1500;
 
 /**
- * Rounding allowance in the shape tests: 64 units of double rounding of
- * each value involved, counting a log-density as at least 1 in magnitude
- * (a log-density near 0 is usually the difference of terms of order 1, so
- * its rounding is absolute). A curvature below it is "linear".
- * @internal
+ * Rounding allowance of the shape tests of {@link piecewiseSampler} (and of
+ * the shape scan of {@link exactSampler}), relative to the magnitudes
+ * involved: 64 units of double rounding (64·2^−52) of each value, counting a
+ * log-density as at least 1 in magnitude (a log-density near 0 is usually
+ * the difference of terms of order 1, so its rounding is absolute). A
+ * curvature below it is "linear".
+ *
+ * @example
+ * ```ts
+ * PIECEWISE_NOISE; // 64 * 2 ** -52 ≈ 1.4e-14
+ * ```
  */
-export const NOISE = 64 * Math.pow(2, -52);
+export const PIECEWISE_NOISE = 64 * Math.pow(2, -52);
 
 /**
  * Secant construction: largest deviation (absolute part, in log space) that

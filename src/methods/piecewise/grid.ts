@@ -37,7 +37,7 @@ import type { Tables } from '../envelope/piece-tables.js';
 import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
 import {
   CELL_ATOMIC, CELL_BOUNDARY, CELL_CONCAVE, CELL_CONVEX, CELL_LINEAR, CELL_MIXED, CELL_MONOTONE, CELL_NEGLIGIBLE, CELL_UNKNOWN, CELL_ZERO,
-  MIXED_LIMIT, NEGLIGIBLE_DROP, NOISE, PIN_ROUNDS, SECANT_DEVIATION_ABSOLUTE, SECANT_DEVIATION_RELATIVE, SETTLE_MAX_ROUNDS,
+  MIXED_LIMIT, NEGLIGIBLE_DROP, PIECEWISE_NOISE, PIN_ROUNDS, SECANT_DEVIATION_ABSOLUTE, SECANT_DEVIATION_RELATIVE, SETTLE_MAX_ROUNDS,
   TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE, combine, compatible, isAtomic, mid,
 } from './cells.js';
 import type { CellView, Tail } from './cells.js';
@@ -106,7 +106,7 @@ export class Grid implements CellView {
   private chordNoise(i: number): number {
     const la = this.l[i];
     const lb = this.l[i + 1];
-    return (NOISE * (Math.abs(la) + Math.abs(lb) + 2)) / (this.x[i + 1] - this.x[i]) + NOISE * Math.abs(this.chord(i));
+    return (PIECEWISE_NOISE * (Math.abs(la) + Math.abs(lb) + 2)) / (this.x[i + 1] - this.x[i]) + PIECEWISE_NOISE * Math.abs(this.chord(i));
   }
 
   /** Computes the class and outer slopes of every cell. */
@@ -133,7 +133,7 @@ export class Grid implements CellView {
         if (!Number.isFinite(ga) || !Number.isFinite(gb)) cls[i] = CELL_UNKNOWN;
         else {
           const s = this.chord(i);
-          const e = this.chordNoise(i) + NOISE * (Math.abs(ga) + Math.abs(gb));
+          const e = this.chordNoise(i) + PIECEWISE_NOISE * (Math.abs(ga) + Math.abs(gb));
           const dl = ga - s;
           const dr = s - gb;
           const cc = dl >= -e && dr >= -e;
@@ -443,7 +443,7 @@ export class Grid implements CellView {
       const tk1 = -0.5 * T1 * this.g[k1];
       const tl = o > 0 ? tk1 : tk;
       const tr = o > 0 ? tk : tk1;
-      const e = NOISE * (Math.abs(tl) + Math.abs(tr) + (2 + Math.abs(T1)) / w1);
+      const e = PIECEWISE_NOISE * (Math.abs(tl) + Math.abs(tr) + (2 + Math.abs(T1)) / w1);
       tConcave = tl - tChordOut >= -e && tChordOut - tr >= -e;
       tSlope = tk;
     } else if (k2 >= 0 && k2 < n && this.l[k2] > -Infinity) {
@@ -452,7 +452,7 @@ export class Grid implements CellView {
       const tChordIn = (o > 0 ? T1 - T2 : T2 - T1) / w2;
       const cl = o > 0 ? tChordIn : tChordOut;
       const cr = o > 0 ? tChordOut : tChordIn;
-      const e = NOISE * ((2 + Math.abs(T1) + Math.abs(T2)) / Math.min(w1, w2) + Math.abs(cl) + Math.abs(cr));
+      const e = PIECEWISE_NOISE * ((2 + Math.abs(T1) + Math.abs(T2)) / Math.min(w1, w2) + Math.abs(cl) + Math.abs(cr));
       tConcave = cl - cr >= -e;
       tSlope = tChordOut;
     }

@@ -21,7 +21,7 @@ import { checkInteger } from '../../core/validate.js';
  * own chord squeeze and upper lines. 500 strips give at most 1,002 regions,
  * so the alias table has 1,024 cells of 40 bytes (40 KB). More strips lower
  * the cap share (1,000: 0.7 %) but cost about one logDensity call each at
- * setup (timings: CHANGELOG.md, 0.1.0).
+ * setup (timings: CHANGELOG.md, "Measurements").
  *
  * @example
  * ```ts
