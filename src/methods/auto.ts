@@ -6,7 +6,7 @@
  */
 import { ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
+import { checkFillArray, checkInteger, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { tableSampler } from './table-sampler.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { adaptiveRejectionSampler } from './adaptive-rejection.js';
@@ -286,7 +286,10 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
       choice,
       sampler: s,
       sample: () => s.sample(),
-      fill: (out: Float64Array) => s.fill(out),
+      fill: (out: Float64Array) => {
+        checkFillArray(api, out); // the error names exactSampler, not the method it delegates to
+        return s.fill(out);
+      },
       get stats(): SamplerStats {
         const st = s.stats;
         return { ...st, setupEvaluations: st.setupEvaluations + setupOther };

@@ -5,8 +5,9 @@ import type { Target } from '../../src/core/types.js';
 
 /**
  * Worked example: f(x) = exp(−x²/2)·(sin²(6x) + 3·cos²(x)·sin²(4x) + 1), a
- * multimodal unnormalized density. Values computed by quadrature
- * (/work/shared/REFERENCES.md, measured independently of this code):
+ * multimodal unnormalized density (invented for the tests). Values computed
+ * by quadrature independently of this code (test/reference/README.md;
+ * regenerate with `node test/reference/multimodal-quadrature.mjs`):
  * Z on the line 5.894340, Z on [−3, 3] 5.879611, sup f = 4.149073,
  * sup f / (U(−3, 3) density) = 24.8944, sup f / φ = 10.9403.
  */

@@ -85,7 +85,7 @@ describe('ratioOfUniformsSampler: acceptance against closed forms (r = 1, shift 
   //    rate = (√(2π)/2) / (2√2·e^(−1/2)) = √(πe)/4 = 0.73057.
   //  exponential f = e^(−x) on [0, ∞): v ∈ [0, sup x e^(−x/2) = 2/e], rate = (1/2)/(2/e) = e/4 = 0.67957.
   //  Cauchy f = 1/(1 + x²): sup |x|/√(1 + x²) = 1 (as |x| → ∞), rate = (π/2)/2 = π/4 = 0.78540.
-  // Check values: /work/shared/REFERENCES.md (Kinderman & Monahan 1977).
+  // Check values: the closed forms above (Kinderman & Monahan 1977); listed in test/reference/README.md.
   const cases: Array<[string, Target, number, number, number]> = [
     // [label, target, closed-form rate, closed-form log sup f, closed-form scaled vMax − vMin]
     ['standard normal', normalTarget(0, 1), 0.73057, -0.5 * Math.log(2 * Math.PI), 2 * Math.SQRT2 * Math.exp(-0.5)],
@@ -588,7 +588,7 @@ describe('ratioOfUniformsSampler: streams', () => {
 
   it('golden snapshot of the first 5 draws at seed 5489 (stream regression guard, values recorded from this implementation)', () => {
     // Not a correctness check: it pins the stream so that a change to the uniforms consumed per
-    // draw (a breaking change, see DESIGN.md) cannot go unnoticed.
+    // draw (a breaking change: DEVELOPERS.md, "Stream-stability policy") cannot go unnoticed.
     const normal = Array.from(draw(ratioOfUniformsSampler(normalTarget(0, 1), { seed: 5489 }), 5));
     const t5r2 = Array.from(draw(ratioOfUniformsSampler(studentTTarget(5), { seed: 5489, power: 2 }), 5));
     expect({ normal, t5r2 }).toMatchInlineSnapshot(`
