@@ -47,9 +47,9 @@ export function multimodalTruncated(): Target {
 
 /** Published/quadrature constants for the worked example (see {@link multimodalLogDensity}). */
 export const MULTIMODAL = {
-  zLine: 5.89434, // quadrature, REFERENCES.md
-  zTruncated: 5.879611, // quadrature, REFERENCES.md
-  supF: 4.149073, // quadrature, REFERENCES.md
-  cUniform: 24.8944, // quadrature, REFERENCES.md
-  cNormal: 10.9403, // quadrature, REFERENCES.md
+  zLine: 5.89434, // quadrature, test/reference/README.md
+  zTruncated: 5.879611, // quadrature, test/reference/README.md
+  supF: 4.149073, // quadrature, test/reference/README.md
+  cUniform: 24.8944, // quadrature, test/reference/README.md
+  cNormal: 10.9403, // quadrature, test/reference/README.md
 } as const;
