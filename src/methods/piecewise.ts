@@ -250,55 +250,23 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * envelope and lower squeeze that are valid because of the cell's shape.
  *
  * @remarks
- * **Why curvature, not monotonicity.** Between two curvature changes log f
- * is concave or convex, and that alone gives a two-sided bound by straight
- * lines in log space: on a concave cell the tangents (or, without
- * derivatives, the chords of the neighbouring cells extended, as in
- * Gilks 1992) lie above log f and the chord below; on a convex cell the
- * chord lies above and the tangents below. Such bounds hold across an
- * extremum too, so extrema need no exact location (they are reported in
- * the description, from the grid), while curvature changes are located to
- * 2^−24 of the cell they were found in, so that the part of a cell on the
- * wrong side of one is too short to matter (the error is of order
- * |(log f)'''|·δ³ for a miss δ, far below the check tolerance). A cell
- * whose data contradict both shapes (a kink or a jump of log f) is halved
- * until it is consistent or until no double lies inside it.
- *
- * **Scan.** From a centre (the mode hint, else a global maximisation),
- * geometric rays go to both ends with two probes per doubling of the
- * distance (seeing features at every scale, the decay of the tails, and a
- * density unbounded at a finite end), and uniform grids sharing
- * `scanPoints` points cover five nested windows, each twice as far from
- * the centre as the outermost ray probe within e^5, e^10, e^20, e^40, e^80
- * of the maximum (or higher than the probe before it); `breakpoints` are
- * added. Nested windows keep a fine grid near the mass whatever the tails.
- * Each cell's curvature class comes from the derivative (tangent
- * construction: l'(a) ≥ chord slope ≥ l'(b) is concave) or from second
- * divided differences (secant construction), with a rounding allowance of
- * 64 ulps of the values involved ({@link PIECEWISE_NOISE}); a curvature
- * below it counts as linear, and a verdict made uncertain by neighbouring
- * cells of very different widths is not used (the wider cell is halved).
- * Cells whose density is below e^−1500 of the maximum at both ends have
- * zero area in double precision and are never selected. With dLogDensity
- * the setup first checks that the derivative lies between the chords around
- * each scan point, as it must for a smooth density, and refuses an
- * inconsistent one.
- *
- * **Tails** beyond the outermost scan points (far out: the rays go until
- * 2^64·max(1, |centre|) from the centre, further while the density still rises): an
- * exponential piece (tangent or chord) when log f is concave there, else a
- * piece under T(f) = −1/√f (Hörmann 1995) when that transform is concave
- * there (densities decaying like |x|^−2 or faster, such as Student-t
- * with df ≥ 1). A tail that does not decrease throws
- * {@link ImproperDensityError}; one that decays slower than |x|^−2 throws
- * {@link ShapeViolationError} (use {@link ratioOfUniformsSampler} with a
- * power, or truncate).
- *
- * **Refinement.** Cells whose envelope-minus-squeeze area is among the
- * largest are halved (and tails moved outwards) until
- * (envelope area)/(squeeze area) ≤ `targetAreaRatio` or `maxPieces`. Every
- * new point is first compared with the envelope it falls in; a
- * contradiction means a shape was misread, and the cell is reclassified.
+ * **Method.** The support is scanned (rays from the mode hint or a global
+ * maximum to both ends, plus nested uniform grids of `scanPoints` points and
+ * the `breakpoints`); each cell between scan points is classified as
+ * concave, convex or linear in log f (from `dLogDensity`, or from second
+ * divided differences) and bounded by straight lines in log space valid for
+ * its class; curvature changes are located to 2^−24 of their cell; cells
+ * whose data contradict both shapes are halved. The tails get an
+ * exponential piece where log f is concave there, else a piece under
+ * T(f) = −1/√f (Hörmann 1995) for tails decaying like |x|^−2 or faster
+ * (a tail that does not decrease throws {@link ImproperDensityError}, a
+ * heavier one {@link ShapeViolationError}: use
+ * {@link ratioOfUniformsSampler} with a power, or truncate). Cells are
+ * halved until (envelope area)/(squeeze area) ≤ `targetAreaRatio` or
+ * `maxPieces`. With `dLogDensity` the setup also refuses a derivative
+ * inconsistent with logDensity. The design and its rounding allowances
+ * ({@link PIECEWISE_NOISE}) are described in DEVELOPERS.md, "The piecewise
+ * method".
  *
  * **Sampling.** Pieces are chosen by a guide table (Chen & Asau 1974) over
  * their areas (log-sum-exp); an exponential piece is inverted exactly with

@@ -154,7 +154,10 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', '
  * that |x − s|·(f(x)/M)^(r/(r+1)) is within the v-bound of its side (the
  * rectangle contains the region's slice at x); a violation throws
  * {@link EnvelopeViolationError} — it means a sup was underestimated.
- * The equivalent dominating function is exposed as `logEnvelope(x)`.
+ * The equivalent dominating function is exposed as `logEnvelope(x)`. After
+ * such an error or a {@link NonFiniteDensityError} the sampler is unusable:
+ * every later call throws the same error; after `fill` throws, `out` holds
+ * the draws completed before the failure and is unchanged beyond them.
  *
  * Squeeze: none is built in, because no squeeze inside the region is valid
  * for every target (an inscribed polygon needs the region to be convex,

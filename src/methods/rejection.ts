@@ -5,7 +5,7 @@
  */
 import { findLogBound } from '../bounds/find-log-bound.js';
 import { Counters } from '../core/counters.js';
-import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
@@ -59,7 +59,13 @@ const KNOWN = ['proposal', 'logBound', 'squeeze', 'maxRejections', 'seed', 'stre
  * evaluations are counted in `stats.setupEvaluations`. Every evaluation of the
  * target while sampling also checks logf(x) ≤ log C + log g(x) and, when a
  * squeeze is given, s(x) ≤ logf(x). Each candidate consumes the uniforms of
- * `proposal.sample` and then one more for the acceptance test.
+ * `proposal.sample` and then one more for the acceptance test. A logDensity
+ * (or squeeze) value that is NaN, +Infinity or not a number throws
+ * {@link NonFiniteDensityError}. After that error or an
+ * {@link EnvelopeViolationError} the sampler is unusable: every later call
+ * throws the same error (a {@link StalledSamplerError} leaves it usable);
+ * after `fill` throws, `out` holds the draws completed before the failure
+ * and is unchanged beyond them.
  *
  * @param target - the target
  * @param options - the proposal and optional bound, squeeze and uniform source
