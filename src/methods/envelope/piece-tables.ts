@@ -4,12 +4,13 @@
  * piece: envelope, squeeze, inversion. @internal
  *
  * @remarks
- * Piece j lies on [lo[j], hi[j]] and is sampled from its high end xh[j]
- * in direction dir[j] (±1) over the width w[j]. Its envelope is stored in
- * height form (see {@link pieceLogEnvelopeAt}): relative log height href[j]
- * at the high end, rate sig[j], transform kind[j]; q[j] is the inversion
- * constant ({@link pieceConstant}). Its squeeze is the line
- * sqv[j] + sqs[j]·(x − sqa[j]) in log space (sqv = −Infinity: none).
+ * Piece j lies on [lo[j], hi[j]] and is sampled from its high end
+ * highEnd[j] in direction direction[j] (±1) over width[j]. Its envelope is
+ * stored in height form (see {@link pieceLogEnvelopeAt}): relative log
+ * height highLogHeight[j] at the high end, rate[j], transform kind[j];
+ * inversion[j] is the inversion constant ({@link pieceConstant}). Its
+ * squeeze is the line squeezeValue[j] + squeezeSlope[j]·(x − squeezeAnchor[j])
+ * in log space (squeezeValue = −Infinity: none).
  * Every stored log value is relative to `ref`.
  *
  * @packageDocumentation
@@ -23,15 +24,15 @@ export interface Tables {
   lo: Float64Array;
   hi: Float64Array;
   kind: Uint8Array;
-  xh: Float64Array;
-  dir: Float64Array;
-  w: Float64Array;
-  href: Float64Array;
-  sig: Float64Array;
-  q: Float64Array;
-  sqa: Float64Array;
-  sqv: Float64Array;
-  sqs: Float64Array;
+  highEnd: Float64Array;
+  direction: Float64Array;
+  width: Float64Array;
+  highLogHeight: Float64Array;
+  rate: Float64Array;
+  inversion: Float64Array;
+  squeezeAnchor: Float64Array;
+  squeezeValue: Float64Array;
+  squeezeSlope: Float64Array;
   logAreas: Float64Array;
   logSqueezeAreas: Float64Array;
   shape: Uint8Array;
@@ -48,14 +49,14 @@ export interface Tables {
 
 /** log envelope of piece j at x, relative to t.ref (the kernels' formula). @internal */
 export function pieceLogEnvelope(t: Tables, j: number, x: number): number {
-  const h = t.xh[j];
-  return pieceLogEnvelopeAt(t.kind[j], t.href[j], t.sig[j], t.dir[j] > 0 ? x - h : h - x);
+  const h = t.highEnd[j];
+  return pieceLogEnvelopeAt(t.kind[j], t.highLogHeight[j], t.rate[j], t.direction[j] > 0 ? x - h : h - x);
 }
 
 /** log squeeze of piece j at x, relative to t.ref (−Infinity: none). @internal */
 export function pieceLogSqueeze(t: Tables, j: number, x: number): number {
-  const sv = t.sqv[j];
-  return sv === -Infinity ? -Infinity : sv + t.sqs[j] * (x - t.sqa[j]);
+  const sv = t.squeezeValue[j];
+  return sv === -Infinity ? -Infinity : sv + t.squeezeSlope[j] * (x - t.squeezeAnchor[j]);
 }
 
 /**
@@ -63,7 +64,7 @@ export function pieceLogSqueeze(t: Tables, j: number, x: number): number {
  * from the high end), clamped to the piece. @internal
  */
 export function pieceInverse(t: Tables, j: number, u: number): number {
-  const x = t.xh[j] + t.dir[j] * invertPiece(t.kind[j], t.q[j], t.sig[j], t.w[j], u);
+  const x = t.highEnd[j] + t.direction[j] * invertPiece(t.kind[j], t.inversion[j], t.rate[j], t.width[j], u);
   return x < t.lo[j] ? t.lo[j] : x > t.hi[j] ? t.hi[j] : x;
 }
 

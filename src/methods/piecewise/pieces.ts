@@ -84,15 +84,15 @@ export function buildTables(g: CellView): Tables {
     lo: Float64Array.from(P.lo),
     hi: Float64Array.from(P.hi),
     kind: Uint8Array.from(P.kind),
-    xh: Float64Array.from(P.xh),
-    dir: Float64Array.from(P.dir),
-    w: new Float64Array(m),
-    href: Float64Array.from(P.href),
-    sig: Float64Array.from(P.sig),
-    q: new Float64Array(m),
-    sqa: Float64Array.from(P.sqa),
-    sqv: Float64Array.from(P.sqv),
-    sqs: Float64Array.from(P.sqs),
+    highEnd: Float64Array.from(P.xh),
+    direction: Float64Array.from(P.dir),
+    width: new Float64Array(m),
+    highLogHeight: Float64Array.from(P.href),
+    rate: Float64Array.from(P.sig),
+    inversion: new Float64Array(m),
+    squeezeAnchor: Float64Array.from(P.sqa),
+    squeezeValue: Float64Array.from(P.sqv),
+    squeezeSlope: Float64Array.from(P.sqs),
     logAreas: new Float64Array(m),
     logSqueezeAreas: new Float64Array(m),
     shape: Uint8Array.from(P.shape),
@@ -103,21 +103,21 @@ export function buildTables(g: CellView): Tables {
   };
   for (let j = 0; j < m; j++) {
     const w = t.hi[j] - t.lo[j];
-    t.w[j] = w;
+    t.width[j] = w;
     const kind = t.kind[j];
     if (kind === T_LOG) {
-      t.q[j] = pieceConstant(T_LOG, t.href[j], t.sig[j], w);
-      t.logAreas[j] = pieceLogArea(T_LOG, t.href[j], t.sig[j], w);
+      t.inversion[j] = pieceConstant(T_LOG, t.highLogHeight[j], t.rate[j], w);
+      t.logAreas[j] = pieceLogArea(T_LOG, t.highLogHeight[j], t.rate[j], w);
     } else {
-      t.q[j] = pieceConstant(T_INV_SQRT, -1, t.sig[j], w);
-      t.logAreas[j] = t.href[j] + pieceLogArea(T_INV_SQRT, -1, t.sig[j], w);
+      t.inversion[j] = pieceConstant(T_INV_SQRT, -1, t.rate[j], w);
+      t.logAreas[j] = t.highLogHeight[j] + pieceLogArea(T_INV_SQRT, -1, t.rate[j], w);
     }
-    const sv = t.sqv[j];
+    const sv = t.squeezeValue[j];
     if (sv === -Infinity || w === Infinity) t.logSqueezeAreas[j] = -Infinity;
     else {
-      const s0 = sv + t.sqs[j] * (t.lo[j] - t.sqa[j]);
-      const s1 = sv + t.sqs[j] * (t.hi[j] - t.sqa[j]);
-      t.logSqueezeAreas[j] = pieceLogArea(T_LOG, Math.max(s0, s1), Math.abs(t.sqs[j]), w);
+      const s0 = sv + t.squeezeSlope[j] * (t.lo[j] - t.squeezeAnchor[j]);
+      const s1 = sv + t.squeezeSlope[j] * (t.hi[j] - t.squeezeAnchor[j]);
+      t.logSqueezeAreas[j] = pieceLogArea(T_LOG, Math.max(s0, s1), Math.abs(t.squeezeSlope[j]), w);
     }
     if (!(t.logAreas[j] < Infinity)) {
       throw new ShapeViolationError(`${g.api}: internal: the envelope piece on [${t.lo[j]}, ${t.hi[j]}] has no finite area`, [t.lo[j], t.hi[j]]);

@@ -121,7 +121,7 @@ function makeTail(kind: number, lo: number, hi: number, ax: number, ay: number, 
   const th = hx === Infinity || hx === -Infinity ? Infinity : ay + slope * (hx - ax);
   const logArea = th === Infinity || th !== th ? Infinity : pieceLogArea(kind, th, sig, w);
   const q = logArea < Infinity ? pieceConstant(kind, th, sig, w) : NaN;
-  return { lo, hi, ax, ay, slope, hx, dir, w, sig, th, q, logArea };
+  return { lo, hi, anchor: ax, anchorValue: ay, slope, highEnd: hx, direction: dir, width: w, rate: sig, highValue: th, inversion: q, logArea };
 }
 
 
@@ -411,7 +411,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
     throw new ImproperDensityError(`${api}: the table's envelope area is ${total} (relative to e^${ref}) on [${lower}, ${upper}]`);
   }
   return {
-    api, kind, ref, lower, upper, n, x, l, y, c, logUp, logLo, up, lo, sL, sR, left, right,
-    ...regions, pw: null,
+    api, kind, ref, lower, upper, n, x, l, y, chordSlope: c, logUp, logLo, up, lo, leftLineSlope: sL, rightLineSlope: sR, left, right,
+    ...regions, piecewise: null,
   };
 }

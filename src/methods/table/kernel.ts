@@ -114,12 +114,12 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const r = -(own ? tab[o + 2] : tab[o + 4]) - 1;
   let pos = b + v * st.cells.invT[r];
   pos = pos < 0 ? 0 : pos >= 1 ? BELOW_ONE : pos;
-  const type = tb.regType[r];
-  const pw = tb.pw;
+  const type = tb.regionType[r];
+  const pw = tb.piecewise;
   if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
     return pw === null ? hullTailCandidate(st, counters, type, pos, blk) : piecewiseTailCandidate(st, counters, pw, type, pos, blk);
   }
-  const i = tb.regStrip[r];
+  const i = tb.regionStrip[r];
   const a = tb.x[i];
   const bb = tb.x[i + 1];
   let x = a + (bb - a) * pos;
@@ -143,11 +143,11 @@ function hullTailCandidate(st: TableState, counters: Counters, type: number, pos
   const kind = tb.kind;
   const ref = tb.ref;
   const p = (type === R_LEFT_TAIL ? tb.left : tb.right) as TailPiece;
-  const d = invertPiece(kind, p.q, p.sig, p.w, pos);
-  let x = p.hx + p.dir * d;
+  const d = invertPiece(kind, p.inversion, p.rate, p.width, pos);
+  let x = p.highEnd + p.direction * d;
   if (x < p.lo) x = p.lo;
   else if (x > p.hi) x = p.hi;
-  const lenv = logHeight(kind, p.ay + p.slope * (x - p.ax));
+  const lenv = logHeight(kind, p.anchorValue + p.slope * (x - p.anchor));
   const lf = evaluate(st, counters, x);
   if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
   const u = blk.next();
@@ -165,14 +165,14 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
   const th = kind === T_LOG ? Math.log(hv) : -1 / Math.sqrt(hv);
   // chord squeeze, anchored at its higher end
   const y = tb.y;
-  const ci = tb.c[i];
+  const ci = tb.chordSlope[i];
   const sq = ci === ci ? (y[i] >= y[i + 1] ? y[i] + ci * (x - a) : y[i + 1] + ci * (x - bb)) : -Infinity;
   if (th < sq) {
     st.accepted = true;
     return;
   }
-  const sl = tb.sL[i];
-  const sr = tb.sR[i];
+  const sl = tb.leftLineSlope[i];
+  const sr = tb.rightLineSlope[i];
   const tl = sl === sl ? y[i] + sl * (x - a) : Infinity;
   const tr = sr === sr ? y[i + 1] + sr * (x - bb) : Infinity;
   const ul = tl < tr ? tl : tr;
@@ -197,7 +197,7 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
  * the piece's envelope or squeeze throws {@link EnvelopeViolationError}.
  */
 function piecewiseTailCandidate(st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock): number {
-  const t = pw.t;
+  const t = pw.tables;
   const ref = st.table.ref;
   const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
   const cum = type === R_LEFT_TAIL ? pw.cumL : pw.cumR;
@@ -225,7 +225,7 @@ function piecewiseTailCandidate(st: TableState, counters: Counters, pw: Piecewis
 
 /** A cap of a table over a piecewise envelope at x in strip i with height hv: the piece's squeeze and envelope at x, then the target. Sets `st.accepted`. */
 function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number): void {
-  const t = pw.t;
+  const t = pw.tables;
   const ref = st.table.ref;
   let j = pw.first[i];
   const jEnd = pw.last[i];

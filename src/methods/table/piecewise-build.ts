@@ -90,7 +90,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
     total += area[j];
   }
   if (!(total > 0 && total < Infinity)) throw new InvalidTargetError(`${api}: the piecewise envelope has area ${total} (relative to e^${ref})`);
-  const finite = (j: number): boolean => t.lo[j] > -Infinity && t.hi[j] < Infinity && t.w[j] > 0;
+  const finite = (j: number): boolean => t.lo[j] > -Infinity && t.hi[j] < Infinity && t.width[j] > 0;
   const eps = inp.tailMass * total;
   // body: pieces jL..jR
   let jL = 0;
@@ -233,7 +233,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
   const rightArea = right.cum.length > 0 ? right.cum[right.cum.length - 1] : 0;
   const regions = stripRegions(n, x, logUp, up, lo, leftArea, rightArea);
   const nan = (k: number): Float64Array => new Float64Array(k).fill(NaN);
-  const pw: PiecewiseStrips = { t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum };
+  const pw: PiecewiseStrips = { tables: t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum };
   const table: StripTable = {
     api,
     kind: T_LOG,
@@ -244,17 +244,17 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
     x,
     l,
     y: nan(n + 1),
-    c: nan(n),
+    chordSlope: nan(n),
     logUp,
     logLo,
     up,
     lo,
-    sL: nan(n),
-    sR: nan(n),
+    leftLineSlope: nan(n),
+    rightLineSlope: nan(n),
     left: null,
     right: null,
     ...regions,
-    pw,
+    piecewise: pw,
   };
   return { table, violations };
 }

@@ -21,16 +21,16 @@ export interface TailPiece {
   lo: number;
   hi: number;
   /** Anchor of the line (an end of the body) and its transformed value there. */
-  ax: number;
-  ay: number;
+  anchor: number;
+  anchorValue: number;
   /** Slope of the line in transformed space. */
   slope: number;
-  hx: number;
-  dir: number;
-  w: number;
-  sig: number;
-  th: number;
-  q: number;
+  highEnd: number;
+  direction: number;
+  width: number;
+  rate: number;
+  highValue: number;
+  inversion: number;
   /** Relative log area (add ref). */
   logArea: number;
 }
@@ -38,9 +38,9 @@ export interface TailPiece {
 /** The regions of a strip table and their relative areas (see {@link stripRegions}). @internal */
 export interface StripRegions {
   /** Regions: type, strip index, relative area. */
-  readonly regType: Int8Array;
-  readonly regStrip: Int32Array;
-  readonly regArea: Float64Array;
+  readonly regionType: Int8Array;
+  readonly regionStrip: Int32Array;
+  readonly regionArea: Float64Array;
   readonly regions: number;
   /** Relative areas: sure rectangles, caps, tails. */
   readonly sureArea: number;
@@ -66,7 +66,7 @@ export interface StripTable extends StripRegions {
   /** Transformed values at the boundaries (relative to ref). */
   readonly y: Float64Array;
   /** Chord slopes (NaN where an end has density 0). */
-  readonly c: Float64Array;
+  readonly chordSlope: Float64Array;
   /** Per strip: log of the constant envelope M_i (absolute). */
   readonly logUp: Float64Array;
   /** Per strip: log of the constant squeeze m_i (absolute). */
@@ -75,19 +75,19 @@ export interface StripTable extends StripRegions {
   readonly up: Float64Array;
   readonly lo: Float64Array;
   /** Per strip: slopes of the left and right upper lines (chords of the neighbours; NaN when absent). */
-  readonly sL: Float64Array;
-  readonly sR: Float64Array;
+  readonly leftLineSlope: Float64Array;
+  readonly rightLineSlope: Float64Array;
   /** Tails (null when empty). */
   readonly left: TailPiece | null;
   readonly right: TailPiece | null;
   /** Set when the table was built over a piecewise envelope (then the T-concave fields y, c, sL, sR, left, right are unused). */
-  readonly pw: PiecewiseStrips | null;
+  readonly piecewise: PiecewiseStrips | null;
 }
 
 /** The piecewise part of a strip table built over a piecewise envelope. @internal */
 export interface PiecewiseStrips {
   /** The piecewise envelope the table was built on. */
-  readonly t: Tables;
+  readonly tables: Tables;
   /** Per strip: indices of its first and last piece (equal when a piece is subdivided; a run of light pieces otherwise). */
   readonly first: Int32Array;
   readonly last: Int32Array;
@@ -145,6 +145,6 @@ export function stripRegions(n: number, x: Float64Array, logUp: Float64Array, up
     add(R_RIGHT_TAIL, n, rightArea);
     tailArea += rightArea;
   }
-  return { regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea };
+  return { regionType: regType, regionStrip: regStrip, regionArea: regArea, regions: r, sureArea, capArea, tailArea };
 }
 

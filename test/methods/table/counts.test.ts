@@ -73,9 +73,9 @@ describe('tableSampler biased twin: a table whose caps are never accepted', () =
       const table = buildStripTable({ api: 'twin', hull: setup.hull, logDensity: setup.target.logDensity, counters, strips: 10, tailMass: 1e-6 });
       if (broken) {
         // no upper lines (every cap candidate is rejected above them) and no chord squeeze
-        table.sL.fill(-Infinity);
-        table.sR.fill(-Infinity);
-        table.c.fill(NaN);
+        table.leftLineSlope.fill(-Infinity);
+        table.rightLineSlope.fill(-Infinity);
+        table.chordSlope.fill(NaN);
       }
       const cells = buildAliasCells(table);
       const out = new Float64Array(20_000);
