@@ -19,21 +19,21 @@ export function describeHull(h: Hull): EnvelopeDescription {
     pieces.push({
       lower: h.lo[j],
       upper: h.hi[j],
-      anchor: h.ax[j],
-      value: h.at[j],
-      slope: h.sl[j],
-      squeezeAnchor: h.sqx[j],
-      squeezeValue: h.sqt[j],
-      squeezeSlope: h.sqs[j],
+      anchor: h.lineAnchor[j],
+      value: h.lineValue[j],
+      slope: h.lineSlope[j],
+      squeezeAnchor: h.squeezeAnchor[j],
+      squeezeValue: h.squeezeValue[j],
+      squeezeSlope: h.squeezeSlope[j],
       logArea: la,
     });
     areas.push(la);
   }
   const sq: number[] = [];
   for (let i = 0; i + 1 < k; i++) {
-    const y0 = h.ty[i];
-    const y1 = h.ty[i + 1];
-    const w = h.tx[i + 1] - h.tx[i];
+    const y0 = h.touchValue[i];
+    const y1 = h.touchValue[i + 1];
+    const w = h.touchX[i + 1] - h.touchX[i];
     sq.push(h.ref + pieceLogArea(h.kind, Math.max(y0, y1), Math.abs((y1 - y0) / w), w));
   }
   return {
@@ -41,8 +41,8 @@ export function describeHull(h: Hull): EnvelopeDescription {
     construction: h.tangent ? 'tangent' : 'secant',
     logScale: h.ref,
     support: [h.lower, h.upper],
-    touchPoints: Array.from(h.tx.subarray(0, k)),
-    touchLogDensities: Array.from(h.tl.subarray(0, k)),
+    touchPoints: Array.from(h.touchX.subarray(0, k)),
+    touchLogDensities: Array.from(h.touchLogDensity.subarray(0, k)),
     pieces,
     logEnvelopeArea: logSumExp(areas),
     logSqueezeArea: logSumExp(sq),

@@ -83,26 +83,26 @@ export class Hull implements HullView {
   dirty = true;
 
   // touch points
-  tx!: Float64Array; // x
-  tl!: Float64Array; // absolute log-density
-  tg!: Float64Array; // derivative of the log-density (tangent construction)
-  ty!: Float64Array; // transformed value (relative to ref)
-  ts!: Float64Array; // transformed slope (tangent construction)
+  touchX!: Float64Array; // x
+  touchLogDensity!: Float64Array; // absolute log-density
+  touchDerivative!: Float64Array; // derivative of the log-density (tangent construction)
+  touchValue!: Float64Array; // transformed value (relative to ref)
+  touchSlope!: Float64Array; // transformed slope (tangent construction)
   // pieces
   lo!: Float64Array;
   hi!: Float64Array;
-  ax!: Float64Array; // line anchor
-  at!: Float64Array; // line value at anchor
-  sl!: Float64Array; // line slope
-  sqx!: Float64Array; // squeeze anchor
-  sqt!: Float64Array; // squeeze value at anchor (-Infinity: none)
-  sqs!: Float64Array; // squeeze slope
-  hx!: Float64Array; // high end
-  dir!: Float64Array; // +1 or -1: direction from the high end into the piece
-  wd!: Float64Array; // width
-  sig!: Float64Array; // |slope|
-  pq!: Float64Array; // inversion constant
-  th!: Float64Array; // line value at the high end
+  lineAnchor!: Float64Array; // line anchor
+  lineValue!: Float64Array; // line value at anchor
+  lineSlope!: Float64Array; // line slope
+  squeezeAnchor!: Float64Array; // squeeze anchor
+  squeezeValue!: Float64Array; // squeeze value at anchor (-Infinity: none)
+  squeezeSlope!: Float64Array; // squeeze slope
+  highEnd!: Float64Array; // high end
+  direction!: Float64Array; // +1 or -1: direction from the high end into the piece
+  width!: Float64Array; // width
+  rate!: Float64Array; // |slope|
+  inversion!: Float64Array; // inversion constant
+  highValue!: Float64Array; // line value at the high end
   logArea!: Float64Array; // relative log area
   area!: Float64Array; // relative area
 
@@ -150,27 +150,27 @@ export class Hull implements HullView {
       return b;
     };
     const k = old > 0 ? this.k : 0;
-    this.tx = copy(this.tx, cap, k);
-    this.tl = copy(this.tl, cap, k);
-    this.tg = copy(this.tg, cap, k);
-    this.ty = copy(this.ty, cap, k);
-    this.ts = copy(this.ts, cap, k);
+    this.touchX = copy(this.touchX, cap, k);
+    this.touchLogDensity = copy(this.touchLogDensity, cap, k);
+    this.touchDerivative = copy(this.touchDerivative, cap, k);
+    this.touchValue = copy(this.touchValue, cap, k);
+    this.touchSlope = copy(this.touchSlope, cap, k);
     const p = 2 * cap;
     const n = 2 * k;
     this.lo = copy(this.lo, p, n);
     this.hi = copy(this.hi, p, n);
-    this.ax = copy(this.ax, p, n);
-    this.at = copy(this.at, p, n);
-    this.sl = copy(this.sl, p, n);
-    this.sqx = copy(this.sqx, p, n);
-    this.sqt = copy(this.sqt, p, n);
-    this.sqs = copy(this.sqs, p, n);
-    this.hx = copy(this.hx, p, n);
-    this.dir = copy(this.dir, p, n);
-    this.wd = copy(this.wd, p, n);
-    this.sig = copy(this.sig, p, n);
-    this.pq = copy(this.pq, p, n);
-    this.th = copy(this.th, p, n);
+    this.lineAnchor = copy(this.lineAnchor, p, n);
+    this.lineValue = copy(this.lineValue, p, n);
+    this.lineSlope = copy(this.lineSlope, p, n);
+    this.squeezeAnchor = copy(this.squeezeAnchor, p, n);
+    this.squeezeValue = copy(this.squeezeValue, p, n);
+    this.squeezeSlope = copy(this.squeezeSlope, p, n);
+    this.highEnd = copy(this.highEnd, p, n);
+    this.direction = copy(this.direction, p, n);
+    this.width = copy(this.width, p, n);
+    this.rate = copy(this.rate, p, n);
+    this.inversion = copy(this.inversion, p, n);
+    this.highValue = copy(this.highValue, p, n);
     this.logArea = copy(this.logArea, p, n);
     this.area = copy(this.area, p, n);
     // the guide table is rebuilt from `area` before the next draw (dirty), so its old contents need not be kept
@@ -193,12 +193,12 @@ export class Hull implements HullView {
 
   /** Position of touch point i. */
   touchPointX(i: number): number {
-    return this.tx[i];
+    return this.touchX[i];
   }
 
   /** logDensity at touch point i. */
   touchPointLogDensity(i: number): number {
-    return this.tl[i];
+    return this.touchLogDensity[i];
   }
 
   /** Quantiles of the envelope at the increasing probabilities `ps`. */
@@ -219,16 +219,16 @@ export class Hull implements HullView {
       const a = h.area[j];
       let frac = a > 0 ? (v - before) / a : 0.5;
       // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
-      if (h.dir[j] < 0) frac = 1 - frac;
+      if (h.direction[j] < 0) frac = 1 - frac;
       if (!(frac >= 0)) frac = 0;
       if (frac >= 1) frac = 0.9999999999999999;
-      const w = h.wd[j];
+      const w = h.width[j];
       if (!(w > 0) || !(a > 0)) {
         out.push(h.lo[j]);
         continue;
       }
-      const d = invertPiece(h.kind, h.pq[j], h.sig[j], w, frac);
-      let x = h.hx[j] + h.dir[j] * d;
+      const d = invertPiece(h.kind, h.inversion[j], h.rate[j], w, frac);
+      let x = h.highEnd[j] + h.direction[j] * d;
       if (x < h.lo[j]) x = h.lo[j];
       else if (x > h.hi[j]) x = h.hi[j];
       out.push(x);
@@ -246,9 +246,9 @@ export class Hull implements HullView {
       if (!(hi >= lo) || hi < a || lo > b) continue;
       const p = a > lo ? a : lo;
       const q = b < hi ? b : hi;
-      const sl = h.sl[j];
+      const sl = h.lineSlope[j];
       for (const z of [p, q]) {
-        let t = h.at[j] + sl * (z - h.ax[j]);
+        let t = h.lineValue[j] + sl * (z - h.lineAnchor[j]);
         if (t !== t) t = Infinity;
         const v = logHeight(h.kind, t);
         if (v > best) best = v;
@@ -261,18 +261,18 @@ export class Hull implements HullView {
 
   /** Slope of the chord between touch points i and i + 1 in transformed space. */
   chord(i: number): number {
-    return (this.ty[i + 1] - this.ty[i]) / (this.tx[i + 1] - this.tx[i]);
+    return (this.touchValue[i + 1] - this.touchValue[i]) / (this.touchX[i + 1] - this.touchX[i]);
   }
 
   /** Slope of the envelope line on the left tail. */
   leftTailSlope(): number {
-    if (this.tangent) return this.ts[0];
+    if (this.tangent) return this.touchSlope[0];
     return this.k >= 2 ? this.chord(0) : NaN;
   }
 
   /** Slope of the envelope line on the right tail. */
   rightTailSlope(): number {
-    if (this.tangent) return this.ts[this.k - 1];
+    if (this.tangent) return this.touchSlope[this.k - 1];
     return this.k >= 2 ? this.chord(this.k - 2) : NaN;
   }
 
@@ -305,18 +305,18 @@ export class Hull implements HullView {
     const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
     this.lo[j] = lo;
     this.hi[j] = hi;
-    this.ax[j] = ax;
-    this.at[j] = at;
-    this.sl[j] = sl;
-    this.sqx[j] = sqx;
-    this.sqt[j] = sqt;
-    this.sqs[j] = sqs;
-    this.hx[j] = hx;
-    this.dir[j] = dir;
-    this.wd[j] = w;
-    this.sig[j] = s;
-    this.th[j] = th;
-    this.pq[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
+    this.lineAnchor[j] = ax;
+    this.lineValue[j] = at;
+    this.lineSlope[j] = sl;
+    this.squeezeAnchor[j] = sqx;
+    this.squeezeValue[j] = sqt;
+    this.squeezeSlope[j] = sqs;
+    this.highEnd[j] = hx;
+    this.direction[j] = dir;
+    this.width[j] = w;
+    this.rate[j] = s;
+    this.highValue[j] = th;
+    this.inversion[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
     this.logArea[j] = la;
     this.area[j] = Math.exp(la);
   }
@@ -360,8 +360,8 @@ export class Hull implements HullView {
 
   /** Rebuilds the two pieces of interval i (touch points i and i + 1). */
   private buildInterval(i: number): void {
-    const tx = this.tx;
-    const ty = this.ty;
+    const tx = this.touchX;
+    const ty = this.touchValue;
     const a = tx[i];
     const b = tx[i + 1];
     const ya = ty[i];
@@ -384,8 +384,8 @@ export class Hull implements HullView {
       return;
     }
     if (this.tangent) {
-      const s0 = this.ts[i];
-      const s1 = this.ts[i + 1];
+      const s0 = this.touchSlope[i];
+      const s1 = this.touchSlope[i + 1];
       let f = s0 - s1 > 0 ? (mi - s1) / (s0 - s1) : 0.5;
       if (!(f >= 0)) f = f < 0 ? 0 : 0.5;
       else if (f > 1) f = 1;
@@ -428,8 +428,8 @@ export class Hull implements HullView {
   /** Rebuilds the two tail pieces. */
   buildTails(): void {
     const k = this.k;
-    const tx = this.tx;
-    const ty = this.ty;
+    const tx = this.touchX;
+    const ty = this.touchValue;
     const last = 2 * k - 1;
     const sL = this.leftTailSlope();
     const sR = this.rightTailSlope();
@@ -454,9 +454,9 @@ export class Hull implements HullView {
   }
 
   private setTransformed(i: number): void {
-    const y = transformValue(this.kind, this.tl[i] - this.ref);
-    this.ty[i] = y;
-    this.ts[i] = this.tangent ? transformSlope(this.kind, y, this.tg[i]) : NaN;
+    const y = transformValue(this.kind, this.touchLogDensity[i] - this.ref);
+    this.touchValue[i] = y;
+    this.touchSlope[i] = this.tangent ? transformSlope(this.kind, y, this.touchDerivative[i]) : NaN;
   }
 
   // ----- tolerances and shape checks -----------------------------------------
@@ -516,9 +516,9 @@ export class Hull implements HullView {
    */
   explainViolation(x: number, l: number, context: string): void {
     const k = this.k;
-    const tx = this.tx;
-    const ty = this.ty;
-    const tl = this.tl;
+    const tx = this.touchX;
+    const ty = this.touchValue;
+    const tl = this.touchLogDensity;
     let p = 0;
     while (p < k && tx[p] <= x) p++;
     // at a touch point the target disagrees with its own earlier value: not a shape question
@@ -538,11 +538,11 @@ export class Hull implements HullView {
       if (this.tangent) {
         for (let i = p - 1; i <= p; i++) {
           if (i < 0 || i >= k) continue;
-          const tan = ty[i] + this.ts[i] * (x - tx[i]);
-          const tol = this.tolY(tl[i], l, ty[i], y) + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(this.ts[i] * (x - tx[i]));
+          const tan = ty[i] + this.touchSlope[i] * (x - tx[i]);
+          const tol = this.tolY(tl[i], l, ty[i], y) + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(this.touchSlope[i] * (x - tx[i]));
           if (!(tan >= y - tol)) {
             this.shapeError(
-              `the target lies above the tangent of the transformed density at the touch point ${tx[i]} (slope ${this.ts[i]}, log-density ${tl[i]}, derivative ${this.tg[i]}) at x = ${x} (log-density ${l}); a T-concave target lies below all its tangents (or dLogDensity is wrong)`,
+              `the target lies above the tangent of the transformed density at the touch point ${tx[i]} (slope ${this.touchSlope[i]}, log-density ${tl[i]}, derivative ${this.touchDerivative[i]}) at x = ${x} (log-density ${l}); a T-concave target lies below all its tangents (or dLogDensity is wrong)`,
               Math.min(tx[i], x),
               Math.max(tx[i], x),
             );
@@ -569,7 +569,7 @@ export class Hull implements HullView {
    */
   insert(x: number, l: number, g: number, grow: boolean): boolean {
     const k = this.k;
-    const tx = this.tx;
+    const tx = this.touchX;
     if (l === -Infinity) {
       if (k === 0) return false;
       if (x < tx[0]) {
@@ -605,11 +605,11 @@ export class Hull implements HullView {
     // shape checks against the neighbours, before anything changes
     const y = transformValue(this.kind, l - this.ref);
     const sNew = this.tangent ? transformSlope(this.kind, y, g) : NaN;
-    const ty = this.ty;
-    const tl = this.tl;
+    const ty = this.touchValue;
+    const tl = this.touchLogDensity;
     if (this.tangent) {
-      const ts = this.ts;
-      const tg = this.tg;
+      const ts = this.touchSlope;
+      const tg = this.touchDerivative;
       if (p > 0) this.checkTangentPair(tx[p - 1], ty[p - 1], ts[p - 1], tl[p - 1], tg[p - 1], x, y, sNew, l, g);
       if (p < k) this.checkTangentPair(x, y, sNew, l, g, tx[p], ty[p], ts[p], tl[p], tg[p]);
     } else {
@@ -626,23 +626,23 @@ export class Hull implements HullView {
     // shift touch points
     const n = 2 * k;
     if (p < k) {
-      this.tx.copyWithin(p + 1, p, k);
-      this.tl.copyWithin(p + 1, p, k);
-      this.tg.copyWithin(p + 1, p, k);
-      this.ty.copyWithin(p + 1, p, k);
-      this.ts.copyWithin(p + 1, p, k);
+      this.touchX.copyWithin(p + 1, p, k);
+      this.touchLogDensity.copyWithin(p + 1, p, k);
+      this.touchDerivative.copyWithin(p + 1, p, k);
+      this.touchValue.copyWithin(p + 1, p, k);
+      this.touchSlope.copyWithin(p + 1, p, k);
     }
     // shift pieces: old pieces [1 + 2p, 2k) move right by 2
     const from = 1 + 2 * p;
     if (k > 0 && from < n) {
-      const arrays = [this.lo, this.hi, this.ax, this.at, this.sl, this.sqx, this.sqt, this.sqs, this.hx, this.dir, this.wd, this.sig, this.pq, this.th, this.logArea, this.area];
+      const arrays = [this.lo, this.hi, this.lineAnchor, this.lineValue, this.lineSlope, this.squeezeAnchor, this.squeezeValue, this.squeezeSlope, this.highEnd, this.direction, this.width, this.rate, this.inversion, this.highValue, this.logArea, this.area];
       for (let q = 0; q < arrays.length; q++) arrays[q].copyWithin(from + 2, from, n);
     }
-    this.tx[p] = x;
-    this.tl[p] = l;
-    this.tg[p] = g;
-    this.ty[p] = y;
-    this.ts[p] = sNew;
+    this.touchX[p] = x;
+    this.touchLogDensity[p] = l;
+    this.touchDerivative[p] = g;
+    this.touchValue[p] = y;
+    this.touchSlope[p] = sNew;
     this.k = k + 1;
     const kk = this.k;
     // rebuild the intervals that depend on the new point, and the tails
@@ -657,8 +657,8 @@ export class Hull implements HullView {
   maxRelativeHeight(): number {
     let h = -Infinity;
     for (let j = 0; j < 2 * this.k; j++) {
-      if (!(this.wd[j] > 0)) continue;
-      const v = logHeight(this.kind, this.th[j]);
+      if (!(this.width[j] > 0)) continue;
+      const v = logHeight(this.kind, this.highValue[j]);
       if (v > h) h = v;
     }
     return h;

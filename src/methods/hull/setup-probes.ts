@@ -36,7 +36,7 @@ export class SetupProbes {
   next(): number {
     const h = this.hull;
     const k = h.k;
-    const tx = h.tx;
+    const tx = h.touchX;
     const spread = k > 1 ? tx[k - 1] - tx[0] : 0;
     const base = Math.max(spread, this.scale, Math.abs(tx[0]) * 4.4e-16, 5e-324);
     if (!h.tangent && k < 3) {
@@ -48,24 +48,24 @@ export class SetupProbes {
     const sL = h.leftTailSlope();
     if (h.lower === -Infinity) {
       if (!(sL * 1e300 > 1)) return this.outward(-1, base);
-    } else if (h.kind !== T_LOG && tx[0] > h.lower && !(h.ty[0] + sL * (h.lower - tx[0]) < 0)) {
+    } else if (h.kind !== T_LOG && tx[0] > h.lower && !(h.touchValue[0] + sL * (h.lower - tx[0]) < 0)) {
       return this.towardBound(-1);
     }
     const sR = h.rightTailSlope();
     if (h.upper === Infinity) {
       if (!(-sR * 1e300 > 1)) return this.outward(1, base);
-    } else if (h.kind !== T_LOG && tx[k - 1] < h.upper && !(h.ty[k - 1] + sR * (h.upper - tx[k - 1]) < 0)) {
+    } else if (h.kind !== T_LOG && tx[k - 1] < h.upper && !(h.touchValue[k - 1] + sR * (h.upper - tx[k - 1]) < 0)) {
       return this.towardBound(1);
     }
     // the hull must not rise far above the touch points
     let topTouch = -Infinity;
-    for (let i = 0; i < k; i++) if (h.tl[i] > topTouch) topTouch = h.tl[i];
+    for (let i = 0; i < k; i++) if (h.touchLogDensity[i] > topTouch) topTouch = h.touchLogDensity[i];
     let worst = -1;
     let worstH = topTouch - h.ref + SETUP_MAX_RELATIVE_HEIGHT;
     const last = 2 * k - 1;
     for (let j = 0; j <= last; j++) {
-      if (!(h.wd[j] > 0)) continue;
-      const height = logHeight(h.kind, h.th[j]);
+      if (!(h.width[j] > 0)) continue;
+      const height = logHeight(h.kind, h.highValue[j]);
       if (!(height <= worstH)) {
         worst = j;
         worstH = height;
@@ -97,9 +97,9 @@ export class SetupProbes {
       } else {
         this.leftStep = base;
       }
-      const x = h.tx[0] - this.leftStep;
+      const x = h.touchX[0] - this.leftStep;
       if (!(x > -1e300)) this.improper(-1);
-      return x > h.lower ? x : h.tx[0] - 0.5 * (h.tx[0] - h.lower);
+      return x > h.lower ? x : h.touchX[0] - 0.5 * (h.touchX[0] - h.lower);
     }
     if (this.rightStep > 0) {
       this.rightStep *= this.rightGrowth;
@@ -107,15 +107,15 @@ export class SetupProbes {
     } else {
       this.rightStep = base;
     }
-    const x = h.tx[k - 1] + this.rightStep;
+    const x = h.touchX[k - 1] + this.rightStep;
     if (!(x < 1e300)) this.improper(1);
-    return x < h.upper ? x : h.tx[k - 1] + 0.5 * (h.upper - h.tx[k - 1]);
+    return x < h.upper ? x : h.touchX[k - 1] + 0.5 * (h.upper - h.touchX[k - 1]);
   }
 
   private towardBound(side: number): number {
     const h = this.hull;
     const k = h.k;
-    const t = side < 0 ? h.tx[0] : h.tx[k - 1];
+    const t = side < 0 ? h.touchX[0] : h.touchX[k - 1];
     const bnd = side < 0 ? h.lower : h.upper;
     const mid = t + 0.5 * (bnd - t);
     return Math.abs(bnd - t) <= 1e-12 * Math.max(1, Math.abs(t)) || mid === t ? bnd : mid;
@@ -124,9 +124,9 @@ export class SetupProbes {
   private improper(side: number): never {
     const h = this.hull;
     const k = h.k;
-    const x = side < 0 ? h.tx[0] : h.tx[k - 1];
+    const x = side < 0 ? h.touchX[0] : h.touchX[k - 1];
     throw new ImproperDensityError(
-      `${h.api}: the ${side < 0 ? 'left' : 'right'} tail does not decay: logDensity keeps ${side < 0 ? 'increasing towards -Infinity' : 'increasing towards +Infinity'} (last touch point x = ${x}, logDensity = ${side < 0 ? h.tl[0] : h.tl[k - 1]}); the density has infinite mass, or its mode lies beyond ±1e300`,
+      `${h.api}: the ${side < 0 ? 'left' : 'right'} tail does not decay: logDensity keeps ${side < 0 ? 'increasing towards -Infinity' : 'increasing towards +Infinity'} (last touch point x = ${x}, logDensity = ${side < 0 ? h.touchLogDensity[0] : h.touchLogDensity[k - 1]}); the density has infinite mass, or its mode lies beyond ±1e300`,
     );
   }
 }

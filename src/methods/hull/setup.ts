@@ -178,7 +178,7 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
     if (x !== x) break;
     if (++refinements > SETUP_MAX_REFINEMENTS) {
       throw new ImproperDensityError(
-        `${api}: no integrable envelope after ${SETUP_MAX_REFINEMENTS} setup refinements on [${hull.lower}, ${hull.upper}] (${hull.k} touch points from ${hull.tx[0]} to ${hull.tx[hull.k - 1]}); the target may not be ${hull.shapeName()} or its tails may not decay`,
+        `${api}: no integrable envelope after ${SETUP_MAX_REFINEMENTS} setup refinements on [${hull.lower}, ${hull.upper}] (${hull.k} touch points from ${hull.touchX[0]} to ${hull.touchX[hull.k - 1]}); the target may not be ${hull.shapeName()} or its tails may not decay`,
       );
     }
     const p = probe(x);
