@@ -44,10 +44,10 @@ export type { RatioOfUniformsOptions, RatioOfUniformsRegion, RatioOfUniformsSamp
 export { partitionedFill, partRange } from './random/partition.js';
 export { adaptiveRejectionSampler, DEFAULT_MAX_PIECES } from './methods/adaptive-rejection.js';
 export type { AdaptiveRejectionOptions, AdaptiveRejectionSampler } from './methods/adaptive-rejection.js';
-export { evaluateEnvelope } from './methods/hull/describe.js';
-export type { EnvelopeDescription, EnvelopePiece, EnvelopeValue } from './methods/hull/describe.js';
-export type { TransformName } from './methods/hull/transforms.js';
-export { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from './methods/hull/hull.js';
+export { evaluateEnvelope } from './methods/envelope/description.js';
+export type { EnvelopeDescription, EnvelopePiece, EnvelopeValue } from './methods/envelope/description.js';
+export type { TransformName } from './methods/envelope/transforms.js';
+export { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from './methods/envelope/tolerance.js';
 export { envelopeSvg } from './checks/envelope-svg.js';
 export type { EnvelopeSvgOptions } from './checks/envelope-svg.js';
 export {

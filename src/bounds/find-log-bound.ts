@@ -4,7 +4,8 @@
  * @packageDocumentation
  */
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
-import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../core/errors.js';
+import { ImproperDensityError, InvalidTargetError } from '../core/errors.js';
+import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Target } from '../core/types.js';
 import { checkOptionKeys, checkTarget } from '../core/validate.js';
 import { maximizeLog } from './maximize.js';
@@ -75,8 +76,7 @@ export function findLogBound(target: Target, proposal: Proposal, opts: FindLogBo
   let evaluations = 0;
   const h = (x: number): number => {
     evaluations++;
-    const lf = logf(x);
-    if (lf !== lf || lf === Infinity) throw new NonFiniteDensityError(api, x, lf);
+    const lf = checkLogDensity(api, x, logf(x));
     if (lf === -Infinity) return -Infinity;
     const lg = logg(x);
     if (lg !== lg || lg === Infinity) {

@@ -4,7 +4,8 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError, NonFiniteDensityError } from '../core/errors.js';
+import { InvalidTargetError } from '../core/errors.js';
+import { checkLogDensity } from '../core/evaluate.js';
 
 /** Options of {@link maximizeLog}. @internal */
 export interface MaximizeOptions {
@@ -64,9 +65,7 @@ export function maximizeLog(
   const hs: number[] = [];
   const f = (x: number): number => {
     evaluations++;
-    const v = h(x);
-    if (v !== v || v === Infinity) throw new NonFiniteDensityError(api, x, v);
-    return v;
+    return checkLogDensity(api, x, h(x));
   };
   const probe = (x: number): number => {
     if (!(x >= lower && x <= upper) || !Number.isFinite(x)) return -Infinity;

@@ -5,8 +5,8 @@
  */
 import { InvalidTargetError } from '../core/errors.js';
 import type { Target } from '../core/types.js';
-import { evaluateEnvelope } from '../methods/hull/describe.js';
-import type { EnvelopeDescription } from '../methods/hull/describe.js';
+import { evaluateEnvelope } from '../methods/envelope/description.js';
+import type { EnvelopeDescription } from '../methods/envelope/description.js';
 
 /** Options of {@link envelopeSvg}. */
 export interface EnvelopeSvgOptions {

@@ -3,7 +3,9 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError, NonFiniteDensityError } from './errors.js';
+import { InvalidTargetError } from './errors.js';
+import { DEFAULT_MAX_REJECTIONS } from './counters.js';
+import { checkLogDensity } from './evaluate.js';
 import type { Target } from './types.js';
 
 /** A target whose optional members have been checked. @internal */
@@ -83,14 +85,11 @@ export function checkSupport(api: string, name: string, support: readonly [numbe
 }
 
 /**
- * Evaluates `logDensity(x)` and throws {@link NonFiniteDensityError} on `NaN`
- * or `+Infinity`. Use in setup code; kernels inline the same test.
- * @internal
+ * Evaluates `logDensity(x)` and checks it with {@link checkLogDensity}
+ * (the one check every method uses). @internal
  */
 export function evalLog(api: string, logDensity: (x: number) => number, x: number): number {
-  const v = logDensity(x);
-  if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(api, x, v);
-  return v;
+  return checkLogDensity(api, x, logDensity(x));
 }
 
 /** Throws unless `v` is a finite number. @internal */
@@ -135,4 +134,20 @@ export function checkFillArray(api: string, out: unknown): void {
   if (!(out instanceof Float64Array)) {
     throw new InvalidTargetError(`${api}.fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
   }
+}
+
+/**
+ * Resolves `options.maxRejections` of every sampler: the default
+ * ({@link DEFAULT_MAX_REJECTIONS}) when undefined, else an integer in
+ * [1, 2^53 − 1]. @internal
+ */
+export function resolveMaxRejections(api: string, v: unknown): number {
+  return v === undefined ? DEFAULT_MAX_REJECTIONS : checkInteger(api, 'options.maxRejections', v, 1, Number.MAX_SAFE_INTEGER);
+}
+
+/** Resolves a boolean option `name` (as written in messages, e.g. `options.fast`): `dflt` when undefined. @internal */
+export function resolveBoolean(api: string, name: string, v: unknown, dflt: boolean): boolean {
+  if (v === undefined) return dflt;
+  if (typeof v !== 'boolean') throw new InvalidTargetError(`${api}: ${name} must be a boolean, got ${String(v)}`);
+  return v;
 }

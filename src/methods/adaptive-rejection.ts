@@ -3,14 +3,15 @@
  *
  * @packageDocumentation
  */
-import { checkFillArray } from '../core/validate.js';
-import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { wrapDraws } from '../core/draws.js';
+import { InvalidTargetError } from '../core/errors.js';
+import { resolveBoolean } from '../core/validate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
-import type { EnvelopeDescription } from './hull/describe.js';
+import type { EnvelopeDescription } from './envelope/description.js';
 import { hullFill } from './hull/kernel.js';
 import { setupHull } from './hull/setup.js';
-import type { TransformName } from './hull/transforms.js';
+import type { TransformName } from './envelope/transforms.js';
 import { createTableSampler } from './table-sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
@@ -53,13 +54,22 @@ export interface AdaptiveRejectionOptions extends SamplerOptions {
   /**
    * Draw from a table built once from the hull instead of adapting it: the
    * fast path for many draws from a fixed target. `adaptiveRejectionSampler(t,
-   * { fast: true, ...rest })` is {@link tableSampler}`(t, rest)` with its
-   * default strips and tail mass (see there for the method, the stream and
-   * the counts); `maxPieces` then has no effect, since the table sampler never
-   * adapts.
+   * { fast: true, ...rest })` is {@link tableSampler}`(t, rest)` (see there
+   * for the method, the stream and the counts), with the same options;
+   * `maxPieces` then has no effect, since the table sampler never adapts.
    * @defaultValue false
    */
   fast?: boolean;
+  /**
+   * With `fast: true` only: as {@link TableSamplerOptions.strips}.
+   * @defaultValue {@link DEFAULT_TABLE_STRIPS} (500)
+   */
+  strips?: number;
+  /**
+   * With `fast: true` only: as {@link TableSamplerOptions.tailMass}.
+   * @defaultValue {@link DEFAULT_TABLE_TAIL_MASS} (1e-6)
+   */
+  tailMass?: number;
 }
 
 /** A sampler built on an adaptive hull; also describes its current envelope. */
@@ -68,7 +78,7 @@ export interface AdaptiveRejectionSampler extends Sampler {
   readonly envelope: EnvelopeDescription;
 }
 
-const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'seed', 'stream', 'uniform'] as const;
+const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'strips', 'tailMass', 'seed', 'stream', 'uniform'] as const;
 
 /**
  * Adaptive rejection sampling (Gilks & Wild 1992; derivative-free form
@@ -128,35 +138,19 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  */
 export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejectionOptions): AdaptiveRejectionSampler {
   const api = 'adaptiveRejectionSampler';
-  const fast = options === null || typeof options !== 'object' ? undefined : options.fast;
-  if (fast !== undefined && typeof fast !== 'boolean') {
-    throw new InvalidTargetError(`${api}: options.fast must be a boolean, got ${String(fast)}`);
+  const opts = options === null || typeof options !== 'object' ? undefined : options;
+  const fast = resolveBoolean(api, 'options.fast', opts?.fast, false);
+  if (!fast && (opts?.strips !== undefined || opts?.tailMass !== undefined)) {
+    throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts?.strips)}, tailMass ${String(opts?.tailMass)})`);
   }
   const setup = setupHull(api, target, options, KNOWN);
-  if (fast === true) return createTableSampler(api, setup, undefined);
+  if (fast) return createTableSampler(api, setup, options);
   const { hull, counters, uniform, maxRejections } = setup;
 
-  let failure: unknown;
-  const scratch = new Float64Array(1);
-  const run = (out: Float64Array, n: number): void => {
-    if (failure !== undefined) throw failure;
-    try {
-      hullFill(hull, out, n, counters, uniform, maxRejections);
-    } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) failure = e;
-      throw e;
-    }
-  };
+  const draws = wrapDraws(api, (out, n) => hullFill(hull, out, n, counters, uniform, maxRejections));
   return {
-    sample(): number {
-      run(scratch, 1);
-      return scratch[0];
-    },
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(api, out);
-      run(out, out.length);
-      return out;
-    },
+    sample: draws.sample,
+    fill: draws.fill,
     get stats(): SamplerStats {
       return counters.snapshot();
     },

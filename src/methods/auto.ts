@@ -6,13 +6,14 @@
  */
 import { ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import { checkFillArray, checkInteger, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { tableSampler } from './table-sampler.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { adaptiveRejectionSampler } from './adaptive-rejection.js';
 import { piecewiseSampler } from './piecewise.js';
-import { NOISE } from './piecewise/grid.js';
-import { Evaluator, scanTarget } from './piecewise/scan.js';
+import { PIECEWISE_NOISE as NOISE } from './piecewise/cells.js';
+import { Evaluator } from '../core/evaluate.js';
+import { scanTarget } from './piecewise/scan.js';
 import type { ScanPoint } from './piecewise/scan.js';
 import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
 
@@ -67,6 +68,12 @@ export interface RefusedMethod {
 export interface ExactChoice {
   /** The method doing the work. */
   readonly method: ExactMethod;
+  /**
+   * True when a strip table serves the draws (the fast path, chosen from
+   * `expectedDraws`): {@link tableSampler} for `'adaptive-rejection'`,
+   * `piecewiseSampler(t, { fast: true })` for `'piecewise'`. Since 0.1.0.
+   */
+  readonly table: boolean;
   /** The transform, for `'adaptive-rejection'`. */
   readonly transform: 'log' | 'inverse-sqrt' | undefined;
   /** The power r, for `'ratio-of-uniforms'`. */
@@ -170,7 +177,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   const t = checkTarget(api, target);
   checkOptionKeys(api, options, KNOWN);
   const opts: ExactSamplerOptions = options ?? {};
-  if (opts.maxRejections !== undefined) checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  if (opts.maxRejections !== undefined) resolveMaxRejections(api, opts.maxRejections);
   if (opts.expectedDraws !== undefined) checkInteger(api, 'options.expectedDraws', opts.expectedDraws, 0, Number.MAX_SAFE_INTEGER);
   const fast = (opts.expectedDraws ?? 1) >= FAST_PATH_MIN_DRAWS;
   const fastNote = fast ? `; ${opts.expectedDraws} expected draws >= ${FAST_PATH_MIN_DRAWS}, so the table-driven fast path serves it` : '';
@@ -268,6 +275,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
     const reason = rejected.length === 0 ? p.reason : `${p.reason}; tried first: ${rejected.map((r) => r.method).join(', ')}`;
     const choice: ExactChoice = Object.freeze({
       method: p.method,
+      table: fast && p.method !== 'ratio-of-uniforms',
       transform: p.transform,
       power: p.power,
       reason,
@@ -278,7 +286,10 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
       choice,
       sampler: s,
       sample: () => s.sample(),
-      fill: (out: Float64Array) => s.fill(out),
+      fill: (out: Float64Array) => {
+        checkFillArray(api, out); // the error names exactSampler, not the method it delegates to
+        return s.fill(out);
+      },
       get stats(): SamplerStats {
         const st = s.stats;
         return { ...st, setupEvaluations: st.setupEvaluations + setupOther };

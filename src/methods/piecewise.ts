@@ -3,25 +3,31 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
+import { wrapDraws } from '../core/draws.js';
+import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections } from '../core/validate.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
-import { GuideTable } from './hull/guide-table.js';
-import { T_LOG } from './hull/transforms.js';
-import { CLASS_NAMES, Grid, NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/grid.js';
-import type { Tables } from './piecewise/grid.js';
-import { evaluateTables, pieceLogEnvelope, piecewiseFill } from './piecewise/kernel.js';
+import { GuideTable } from './envelope/guide-table.js';
+import { T_LOG } from './envelope/transforms.js';
+import { CLASS_NAMES, PIECEWISE_NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/cells.js';
+import { Grid } from './piecewise/grid.js';
+import type { Tables } from './envelope/piece-tables.js';
+import { evaluateTables, pieceLogEnvelope } from './envelope/piece-tables.js';
+import { piecewiseFill } from './piecewise/kernel.js';
 import type { KernelState } from './piecewise/kernel.js';
-import { Evaluator, scanTarget } from './piecewise/scan.js';
+import { Evaluator } from '../core/evaluate.js';
+import { scanTarget } from './piecewise/scan.js';
+import { lastAtOrBelow } from './envelope/arith.js';
 import { buildAliasCells } from './table/alias.js';
-import type { StripTable } from './table/build.js';
+import type { StripTable } from './table/strip-table.js';
 import { describeTable } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
 import { buildPiecewiseStripTable } from './table/piecewise-build.js';
-import { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS, tableDraws } from './table-sampler.js';
+import { tableDraws } from './table/draws.js';
+import { MAX_TABLE_STRIPS, resolveTableOptions } from './table/options.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
 
@@ -244,55 +250,23 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * envelope and lower squeeze that are valid because of the cell's shape.
  *
  * @remarks
- * **Why curvature, not monotonicity.** Between two curvature changes log f
- * is concave or convex, and that alone gives a two-sided bound by straight
- * lines in log space: on a concave cell the tangents (or, without
- * derivatives, the chords of the neighbouring cells extended, as in
- * Gilks 1992) lie above log f and the chord below; on a convex cell the
- * chord lies above and the tangents below. Such bounds hold across an
- * extremum too, so extrema need no exact location (they are reported in
- * the description, from the grid), while curvature changes are located to
- * 2^−24 of the cell they were found in, so that the part of a cell on the
- * wrong side of one is too short to matter (the error is of order
- * |(log f)'''|·δ³ for a miss δ, far below the check tolerance). A cell
- * whose data contradict both shapes (a kink or a jump of log f) is halved
- * until it is consistent or until no double lies inside it.
- *
- * **Scan.** From a centre (the mode hint, else a global maximisation),
- * geometric rays go to both ends with two probes per doubling of the
- * distance (seeing features at every scale, the decay of the tails, and a
- * density unbounded at a finite end), and uniform grids sharing
- * `scanPoints` points cover five nested windows, each twice as far from
- * the centre as the outermost ray probe within e^5, e^10, e^20, e^40, e^80
- * of the maximum (or higher than the probe before it); `breakpoints` are
- * added. Nested windows keep a fine grid near the mass whatever the tails.
- * Each cell's curvature class comes from the derivative (tangent
- * construction: l'(a) ≥ chord slope ≥ l'(b) is concave) or from second
- * divided differences (secant construction), with a rounding allowance of
- * 64 ulps of the values involved ({@link PIECEWISE_NOISE}); a curvature
- * below it counts as linear, and a verdict made uncertain by neighbouring
- * cells of very different widths is not used (the wider cell is halved).
- * Cells whose density is below e^−1500 of the maximum at both ends have
- * zero area in double precision and are never selected. With dLogDensity
- * the setup first checks that the derivative lies between the chords around
- * each scan point, as it must for a smooth density, and refuses an
- * inconsistent one.
- *
- * **Tails** beyond the outermost scan points (far out: the rays go until
- * 2^64·max(1, |centre|) from the centre, further while the density still rises): an
- * exponential piece (tangent or chord) when log f is concave there, else a
- * piece under T(f) = −1/√f (Hörmann 1995) when that transform is concave
- * there (densities decaying like |x|^−2 or faster, such as Student-t
- * with df ≥ 1). A tail that does not decrease throws
- * {@link ImproperDensityError}; one that decays slower than |x|^−2 throws
- * {@link ShapeViolationError} (use {@link ratioOfUniformsSampler} with a
- * power, or truncate).
- *
- * **Refinement.** Cells whose envelope-minus-squeeze area is among the
- * largest are halved (and tails moved outwards) until
- * (envelope area)/(squeeze area) ≤ `targetAreaRatio` or `maxPieces`. Every
- * new point is first compared with the envelope it falls in; a
- * contradiction means a shape was misread, and the cell is reclassified.
+ * **Method.** The support is scanned (rays from the mode hint or a global
+ * maximum to both ends, plus nested uniform grids of `scanPoints` points and
+ * the `breakpoints`); each cell between scan points is classified as
+ * concave, convex or linear in log f (from `dLogDensity`, or from second
+ * divided differences) and bounded by straight lines in log space valid for
+ * its class; curvature changes are located to 2^−24 of their cell; cells
+ * whose data contradict both shapes are halved. The tails get an
+ * exponential piece where log f is concave there, else a piece under
+ * T(f) = −1/√f (Hörmann 1995) for tails decaying like |x|^−2 or faster
+ * (a tail that does not decrease throws {@link ImproperDensityError}, a
+ * heavier one {@link ShapeViolationError}: use
+ * {@link ratioOfUniformsSampler} with a power, or truncate). Cells are
+ * halved until (envelope area)/(squeeze area) ≤ `targetAreaRatio` or
+ * `maxPieces`. With `dLogDensity` the setup also refuses a derivative
+ * inconsistent with logDensity. The design and its rounding allowances
+ * ({@link PIECEWISE_NOISE}) are described in DEVELOPERS.md, "The piecewise
+ * method".
  *
  * **Sampling.** Pieces are chosen by a guide table (Chen & Asau 1974) over
  * their areas (log-sum-exp); an exponential piece is inverted exactly with
@@ -335,8 +309,7 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * outside it (a feature the scan missed) is added to the grid and the
  * envelope rebuilt before any draw is made (at most
  * {@link PIECEWISE_TABLE_REPAIR_ROUNDS} rounds, then
- * {@link EnvelopeViolationError}). Measured on the worked multimodal
- * example: about 20–30 ns per draw instead of 90–160 ns (bench/README.md).
+ * {@link EnvelopeViolationError}). Timings: bench/README.md.
  *
  * @param target - the target (bounded density; multimodal is fine)
  * @param options - breakpoints, scan size, refinement goal and cap, construction, adapt, uniform source
@@ -370,21 +343,15 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const scanPoints = opts.scanPoints === undefined ? DEFAULT_SCAN_POINTS : checkInteger(api, 'options.scanPoints', opts.scanPoints, 16, 1_000_000);
   const ratio = opts.targetAreaRatio === undefined ? DEFAULT_TARGET_AREA_RATIO : checkRatio(api, opts.targetAreaRatio);
   const maxPieces = opts.maxPieces === undefined ? DEFAULT_PIECEWISE_MAX_PIECES : checkInteger(api, 'options.maxPieces', opts.maxPieces, 16, 10_000_000);
-  const derivativeFree = checkBoolean(api, 'options.derivativeFree', opts.derivativeFree);
-  const adapt = checkBoolean(api, 'options.adapt', opts.adapt);
-  const maxRejections = opts.maxRejections === undefined
-    ? DEFAULT_MAX_REJECTIONS
-    : checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
-  const fast = checkBoolean(api, 'options.fast', opts.fast);
+  const derivativeFree = resolveBoolean(api, 'options.derivativeFree', opts.derivativeFree, false);
+  const adapt = resolveBoolean(api, 'options.adapt', opts.adapt, false);
+  const maxRejections = resolveMaxRejections(api, opts.maxRejections);
+  const fast = resolveBoolean(api, 'options.fast', opts.fast, false);
   if (fast && adapt) throw new InvalidTargetError(`${api}: options.fast and options.adapt cannot both be true (the table of the fast path does not change after setup)`);
   if (!fast && (opts.strips !== undefined || opts.tailMass !== undefined)) {
     throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts.strips)}, tailMass ${String(opts.tailMass)})`);
   }
-  const strips = opts.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', opts.strips, 2, MAX_TABLE_STRIPS);
-  const tailMass = opts.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
-  if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
-    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
-  }
+  const { strips, tailMass } = resolveTableOptions(api, opts);
   const uniform = resolveUniform(api, opts);
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
 
@@ -464,14 +431,7 @@ function createPiecewiseTable(
   const stripAt = (x: number): number => {
     const xs = built.x;
     if (!(x >= xs[0] && x <= xs[built.n])) return -1;
-    let a = 0;
-    let b = built.n - 1;
-    while (a < b) {
-      const m = (a + b + 1) >> 1;
-      if (xs[m] <= x) a = m;
-      else b = m - 1;
-    }
-    return a;
+    return lastAtOrBelow(xs, 0, built.n - 1, x);
   };
   return {
     sample: draws.sample,
@@ -496,18 +456,12 @@ function createPiecewiseTable(
   };
 }
 
-/**
- * Rounding allowance of the shape tests, relative to the magnitudes involved
- * (64·2^−52): a curvature smaller than this much of |log f| is "linear".
- */
-export const PIECEWISE_NOISE = NOISE;
+export { PIECEWISE_NOISE } from './piecewise/cells.js';
 
 /** The sampler. */
 class Piecewise implements PiecewiseSampler {
   private readonly state: KernelState;
-  private readonly one = new Float64Array(1);
   private repairs = 0;
-  private failure: unknown;
   private readonly setupEvaluations: number;
 
   constructor(
@@ -539,6 +493,9 @@ class Piecewise implements PiecewiseSampler {
       pendingBound: NaN,
       pendingWhat: 'envelope',
     };
+    const draws = wrapDraws(api, (out, n) => this.run(out, n));
+    this.sample = draws.sample;
+    this.fill = draws.fill;
   }
 
   get stats(): PiecewiseStats {
@@ -557,29 +514,16 @@ class Piecewise implements PiecewiseSampler {
     return evaluateTables(this.state.t, x).logSqueeze;
   }
 
-  sample(): number {
-    this.run(this.one, 1);
-    return this.one[0];
-  }
+  readonly sample: () => number;
+  readonly fill: (out: Float64Array) => Float64Array;
 
-  fill(out: Float64Array): Float64Array {
-    checkFillArray(this.api, out);
-    this.run(out, out.length);
-    return out;
-  }
-
+  /** The kernel, with the repairs in between (adapt); wrapped by {@link wrapDraws} in the constructor. */
   private run(out: Float64Array, n: number): void {
-    if (this.failure !== undefined) throw this.failure;
-    try {
-      let i = 0;
-      for (;;) {
-        i = piecewiseFill(this.state, out, i, n);
-        if (i < 0) return;
-        this.repair();
-      }
-    } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) this.failure = e;
-      throw e;
+    let i = 0;
+    for (;;) {
+      i = piecewiseFill(this.state, out, i, n);
+      if (i < 0) return;
+      this.repair();
     }
   }
 
@@ -656,7 +600,7 @@ function checkDerivative(api: string, pts: readonly ScanPoint[]): void {
     if (!(p.l > -Infinity && q.l > -Infinity && r.l > -Infinity) || !Number.isFinite(q.g)) continue;
     const s0 = (q.l - p.l) / (q.x - p.x);
     const s1 = (r.l - q.l) / (r.x - q.x);
-    const e = 1e-6 * (Math.abs(s0) + Math.abs(s1) + Math.abs(q.g)) + (NOISE * (Math.abs(p.l) + 2 * Math.abs(q.l) + Math.abs(r.l) + 4)) / Math.min(q.x - p.x, r.x - q.x);
+    const e = 1e-6 * (Math.abs(s0) + Math.abs(s1) + Math.abs(q.g)) + (PIECEWISE_NOISE * (Math.abs(p.l) + 2 * Math.abs(q.l) + Math.abs(r.l) + 4)) / Math.min(q.x - p.x, r.x - q.x);
     checked++;
     if (q.g < Math.min(s0, s1) - e || q.g > Math.max(s0, s1) + e) {
       bad++;
@@ -695,8 +639,3 @@ function checkRatio(api: string, v: unknown): number {
   return v;
 }
 
-function checkBoolean(api: string, name: string, v: unknown): boolean {
-  if (v === undefined) return false;
-  if (typeof v !== 'boolean') throw new InvalidTargetError(`${api}: ${name} must be a boolean, got ${String(v)}`);
-  return v;
-}

@@ -4,10 +4,12 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { checkLogDensity } from '../core/evaluate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, checkFillArray } from '../core/validate.js';
+import { wrapDraws } from '../core/draws.js';
+import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 
@@ -152,7 +154,10 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', '
  * that |x − s|·(f(x)/M)^(r/(r+1)) is within the v-bound of its side (the
  * rectangle contains the region's slice at x); a violation throws
  * {@link EnvelopeViolationError} — it means a sup was underestimated.
- * The equivalent dominating function is exposed as `logEnvelope(x)`.
+ * The equivalent dominating function is exposed as `logEnvelope(x)`. After
+ * such an error or a {@link NonFiniteDensityError} the sampler is unusable:
+ * every later call throws the same error; after `fill` throws, `out` holds
+ * the draws completed before the failure and is unchanged beyond them.
  *
  * Squeeze: none is built in, because no squeeze inside the region is valid
  * for every target (an inscribed polygon needs the region to be convex,
@@ -188,10 +193,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   if (squeeze !== undefined && typeof squeeze !== 'function') {
     throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
-  const maxRejections =
-    options.maxRejections === undefined
-      ? DEFAULT_MAX_REJECTIONS
-      : checkInteger(api, 'options.maxRejections', options.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const t = checkTarget(api, target);
   const rect = computeRectangle(api, t, power, shift);
@@ -201,7 +203,6 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
 /** The sampler; all constants fixed at construction, one flat kernel for sample and fill. */
 class RatioOfUniforms implements RatioOfUniformsSampler {
   private readonly counters = new Counters();
-  private readonly one = new Float64Array(1);
   private readonly r1: number;
   private readonly vWidth: number;
   private readonly ratio: number;
@@ -247,6 +248,9 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       scaledVMax: rect.vMax,
       logRectangleArea: LM + Math.log(this.vWidth),
     });
+    const draws = wrapDraws(api, (out, n) => this.run(out, n));
+    this.sample = draws.sample;
+    this.fill = draws.fill;
   }
 
   get stats(): SamplerStats {
@@ -272,16 +276,8 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     return LM + Math.min(0, this.ratio * (logV - Math.log(Math.abs(d))));
   }
 
-  sample(): number {
-    this.run(this.one, 1);
-    return this.one[0];
-  }
-
-  fill(out: Float64Array): Float64Array {
-    checkFillArray(this.api, out);
-    this.run(out, out.length);
-    return out;
-  }
+  readonly sample: () => number;
+  readonly fill: (out: Float64Array) => Float64Array;
 
   /** The kernel: fills out[0..n) (constants in locals, no allocation). */
   private run(out: Float64Array, n: number): void {
@@ -316,17 +312,16 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
           const lhs = r1 * Math.log(u);
           let q = -Infinity;
           if (squeeze !== undefined) {
-            q = squeeze(x);
-            if (q !== q || q === Infinity || typeof q !== 'number') throw new NonFiniteDensityError(`${api} (squeeze)`, x, q);
+            q = checkLogDensity(`${api} (squeeze)`, x, squeeze(x));
             if (q <= LM && lhs <= q - LM) {
               c.samples++;
               out[i] = x;
               break;
             }
           }
-          const lf = logf(x);
+          const raw = logf(x);
           c.densityEvaluations++;
-          if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(api, x, lf);
+          const lf = checkLogDensity(api, x, raw);
           if (lf > LM) throw new EnvelopeViolationError(api, x, lf, LM, 'envelope');
           const d = x - s;
           if (d > vPlus || -d > vMinus) {

@@ -4,11 +4,13 @@
  * @packageDocumentation
  */
 import { findLogBound } from '../bounds/find-log-bound.js';
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
+import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkFinite, checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
+import { wrapDraws } from '../core/draws.js';
+import { checkFinite, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 
 /** Options of {@link rejectionSampler}. */
@@ -57,7 +59,13 @@ const KNOWN = ['proposal', 'logBound', 'squeeze', 'maxRejections', 'seed', 'stre
  * evaluations are counted in `stats.setupEvaluations`. Every evaluation of the
  * target while sampling also checks logf(x) ≤ log C + log g(x) and, when a
  * squeeze is given, s(x) ≤ logf(x). Each candidate consumes the uniforms of
- * `proposal.sample` and then one more for the acceptance test.
+ * `proposal.sample` and then one more for the acceptance test. A logDensity
+ * (or squeeze) value that is NaN, +Infinity or not a number throws
+ * {@link NonFiniteDensityError}. After that error or an
+ * {@link EnvelopeViolationError} the sampler is unusable: every later call
+ * throws the same error (a {@link StalledSamplerError} leaves it usable);
+ * after `fill` throws, `out` holds the draws completed before the failure
+ * and is unchanged beyond them.
  *
  * @param target - the target
  * @param options - the proposal and optional bound, squeeze and uniform source
@@ -85,9 +93,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   if (squeeze !== undefined && typeof squeeze !== 'function') {
     throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
-  const maxRejections = options.maxRejections === undefined
-    ? DEFAULT_MAX_REJECTIONS
-    : checkInteger(api, 'options.maxRejections', options.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const counters = new Counters();
 
@@ -117,17 +123,16 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
         const threshold = logV + logEnv;
         let s = -Infinity;
         if (squeeze !== undefined) {
-          s = squeeze(x);
-          if (s !== s) throw new NonFiniteDensityError(`${api} (squeeze)`, x, s);
+          s = checkLogDensity(`${api} (squeeze)`, x, squeeze(x));
           if (s > logEnv + tol) throw new EnvelopeViolationError(api, x, s, logEnv, 'envelope');
           if (threshold <= s) {
             counters.samples++;
             return x;
           }
         }
-        const lf = logf(x);
+        const raw = logf(x);
         counters.densityEvaluations++;
-        if (lf !== lf || lf === Infinity) throw new NonFiniteDensityError(api, x, lf);
+        const lf = checkLogDensity(api, x, raw);
         if (lf > logEnv + tol) throw new EnvelopeViolationError(api, x, lf, logEnv, 'envelope');
         if (s > lf + tol) throw new EnvelopeViolationError(api, x, lf, s, 'squeeze');
         if (threshold <= lf) {
@@ -141,13 +146,12 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
     }
   };
 
+  const draws = wrapDraws(api, (out, n) => {
+    for (let i = 0; i < n; i++) out[i] = one();
+  });
   return {
-    sample: one,
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(api, out);
-      for (let i = 0; i < out.length; i++) out[i] = one();
-      return out;
-    },
+    sample: draws.sample,
+    fill: draws.fill,
     get stats(): SamplerStats {
       return counters.snapshot();
     },

@@ -4,54 +4,19 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
-import type { SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
-import type { Counters } from '../core/counters.js';
-import type { AliasCells } from './table/alias.js';
-import type { StripTable } from './table/build.js';
-import { checkInteger, checkFillArray } from '../core/validate.js';
-import type { AdaptiveRejectionSampler } from './adaptive-rejection.js';
-import type { EnvelopeDescription } from './hull/describe.js';
+import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
+import type { EnvelopeDescription } from './envelope/description.js';
 import { setupHull } from './hull/setup.js';
 import type { HullSetup } from './hull/setup.js';
-import type { TransformName } from './hull/transforms.js';
+import type { TransformName } from './envelope/transforms.js';
 import { buildAliasCells } from './table/alias.js';
 import { buildStripTable } from './table/build.js';
 import { describeTable, describeTableEnvelope } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
-import { tableFill } from './table/kernel.js';
-import { UniformBlock } from '../random/uniform-block.js';
-import type { MersenneTwister } from '../random/mersenne-twister.js';
-import type { TableState } from './table/kernel.js';
+import { tableDraws } from './table/draws.js';
+import { resolveTableOptions } from './table/options.js';
 
-/**
- * Default of {@link TableSamplerOptions.strips}.
- *
- * @remarks
- * With n strips (three quarters placed at equal mass of √f), the caps — the
- * part of the table that needs a second uniform — take about 7/n of the
- * area of a standard normal: 1.4 % at 500 strips; the target is evaluated at
- * a far smaller fraction of draws (about 8e-5 per draw for the normal, 8e-4
- * for gamma(2.5); see the fast-path count tests), since the caps have their
- * own chord squeeze and upper lines. 500 strips give at most 1,002 regions,
- * so the alias table has 1,024 cells of 40 bytes (40 KB, about a core's L1
- * data cache). More strips lower the cap share (1,000: 0.7 %) at no
- * measurable change of the time per draw up to a few thousand strips, but
- * setup costs about one logDensity call and a few microseconds of
- * unoptimized code per strip (measured: bench/fast-path.mjs).
- */
-export const DEFAULT_TABLE_STRIPS = 500;
-
-/** Largest accepted {@link TableSamplerOptions.strips}. */
-export const MAX_TABLE_STRIPS = 1 << 20;
-
-/**
- * Default of {@link TableSamplerOptions.tailMass}: the body of the table
- * covers the target's mass but about 1e-6 on each side (estimated from a
- * coarse look at the target); draws beyond it come from the exact tails,
- * which evaluate the target.
- */
-export const DEFAULT_TABLE_TAIL_MASS = 1e-6;
+export { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './table/options.js';
 
 /** Options of {@link tableSampler}. */
 export interface TableSamplerOptions extends SamplerOptions {
@@ -93,7 +58,9 @@ export interface TableSamplerOptions extends SamplerOptions {
 }
 
 /** A table-driven sampler; `envelope` describes the table as pieces (constant on strips), `table` the strips themselves. */
-export interface TableSampler extends AdaptiveRejectionSampler {
+export interface TableSampler extends Sampler {
+  /** Snapshot of the envelope the table draws from (constant pieces on the strips, the tails); fresh arrays on every access. */
+  readonly envelope: EnvelopeDescription;
   /** Snapshot of the strip table; fresh arrays on every access. */
   readonly table: TableDescription;
 }
@@ -195,11 +162,7 @@ export function tableSampler(target: Target, options?: TableSamplerOptions): Tab
  * @internal
  */
 export function createTableSampler(api: string, setup: HullSetup, options: TableSamplerOptions | undefined): TableSampler {
-  const strips = options?.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', options.strips, 2, MAX_TABLE_STRIPS);
-  const tailMass = options?.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
-  if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
-    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
-  }
+  const { strips, tailMass } = resolveTableOptions(api, options);
   const { hull, counters, uniform, maxRejections } = setup;
   const logDensity = setup.target.logDensity;
   const table = buildStripTable({ api, hull, logDensity, counters, strips, tailMass });
@@ -221,45 +184,3 @@ export function createTableSampler(api: string, setup: HullSetup, options: Table
   };
 }
 
-/**
- * `sample` and `fill` of a table (either builder): the sampler's own MT19937
- * (from `seed`) is read in blocks, an injected uniform one value at a time;
- * an error other than a stall or a bad uniform value is kept and thrown by
- * every later call.
- * @internal
- */
-export function tableDraws(
-  api: string,
-  table: StripTable,
-  cells: AliasCells,
-  logDensity: (x: number) => number,
-  counters: Counters,
-  uniform: Uniform,
-  ownsUniform: boolean,
-  maxRejections: number,
-): { sample(): number; fill(out: Float64Array): Float64Array } {
-  const blk = ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
-  const st: TableState = { table, cells, logDensity, accepted: false };
-  let failure: unknown;
-  const scratch = new Float64Array(1);
-  const run = (out: Float64Array, n: number): void => {
-    if (failure !== undefined) throw failure;
-    try {
-      tableFill(st, out, n, counters, blk, maxRejections);
-    } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) failure = e;
-      throw e;
-    }
-  };
-  return {
-    sample(): number {
-      run(scratch, 1);
-      return scratch[0];
-    },
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(api, out);
-      run(out, out.length);
-      return out;
-    },
-  };
-}

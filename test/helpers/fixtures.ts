@@ -5,8 +5,9 @@ import type { Target } from '../../src/core/types.js';
 
 /**
  * Worked example: f(x) = exp(−x²/2)·(sin²(6x) + 3·cos²(x)·sin²(4x) + 1), a
- * multimodal unnormalized density. Values computed by quadrature
- * (/work/shared/REFERENCES.md, measured independently of this code):
+ * multimodal unnormalized density (invented for the tests). Values computed
+ * by quadrature independently of this code (test/reference/README.md;
+ * regenerate with `node test/reference/multimodal-quadrature.mjs`):
  * Z on the line 5.894340, Z on [−3, 3] 5.879611, sup f = 4.149073,
  * sup f / (U(−3, 3) density) = 24.8944, sup f / φ = 10.9403.
  */
@@ -46,9 +47,9 @@ export function multimodalTruncated(): Target {
 
 /** Published/quadrature constants for the worked example (see {@link multimodalLogDensity}). */
 export const MULTIMODAL = {
-  zLine: 5.89434, // quadrature, REFERENCES.md
-  zTruncated: 5.879611, // quadrature, REFERENCES.md
-  supF: 4.149073, // quadrature, REFERENCES.md
-  cUniform: 24.8944, // quadrature, REFERENCES.md
-  cNormal: 10.9403, // quadrature, REFERENCES.md
+  zLine: 5.89434, // quadrature, test/reference/README.md
+  zTruncated: 5.879611, // quadrature, test/reference/README.md
+  supF: 4.149073, // quadrature, test/reference/README.md
+  cUniform: 24.8944, // quadrature, test/reference/README.md
+  cNormal: 10.9403, // quadrature, test/reference/README.md
 } as const;

@@ -7,7 +7,6 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   EnvelopeViolationError,
-  ExactDrawError,
   ImproperDensityError,
   InvalidTargetError,
   NonFiniteDensityError,
@@ -68,7 +67,7 @@ describe('piecewiseSampler: the worked example f(x) = exp(−x²/2)(sin²6x + 3c
   const ref3 = quadratureCdf(multimodalLogDensity, -3, 3);
   const refLine = quadratureCdf(multimodalLogDensity, -12, 12); // mass beyond |x| = 12 is below e^−72·5
 
-  it('the quadrature references reproduce Z from REFERENCES.md (5.879611 on [−3, 3], 5.894340 on the line)', () => {
+  it('the quadrature references reproduce Z from test/reference/README.md (5.879611 on [−3, 3], 5.894340 on the line)', () => {
     expect(Math.abs(ref3.total / MULTIMODAL.zTruncated - 1)).toBeLessThan(2e-6);
     expect(Math.abs(refLine.total / MULTIMODAL.zLine - 1)).toBeLessThan(2e-6);
   });
@@ -81,9 +80,13 @@ describe('piecewiseSampler: the worked example f(x) = exp(−x²/2)(sin²6x + 3c
       const s = piecewiseSampler(make(), { seed: 20261201 });
       const xs = draw(s, N);
       const st = s.stats;
-      expect(st.acceptanceRate).toBeGreaterThanOrEqual(0.95); // issue 5
-      // acceptance of rejection = Z / (envelope area) (Devroye 1986, II.3); Z by quadrature (REFERENCES.md)
+      // requirement (issue 5): acceptance ≥ 0.95 with no hand-given constant; the default refinement
+      // goal (targetAreaRatio 1.01) aims at about 1/1.01
+      expect(st.acceptanceRate).toBeGreaterThanOrEqual(0.95);
+      // acceptance of rejection = Z / (envelope area) (Devroye 1986, II.3); Z by quadrature (test/reference/README.md)
       expectRate(st.samples, st.proposals, Z / Math.exp(s.envelope.logEnvelopeArea), label);
+      // regression guard: only proposals above the squeeze are evaluated, about 1 − 1/1.01 ≈ 1 % by the
+      // default refinement goal; 0.05 is a margin above it
       expect(st.densityEvaluations / st.samples).toBeLessThan(0.05);
       expectInSupport(xs, lo, hi);
     });
@@ -99,7 +102,7 @@ describe('piecewiseSampler: the worked example f(x) = exp(−x²/2)(sin²6x + 3c
   }
 
   it('plain rejection for comparison: C = 25 with U(−3, 3) accepts Z/25 ≈ 0.235, C = 11 with N(0, 1) accepts Z/11 ≈ 0.536', () => {
-    // acceptance Z_f/(C·Z_g) (REFERENCES.md, Devroye 1986 II.3); sup f/g = 24.8944 and 10.9403 (REFERENCES.md) are below C
+    // acceptance Z_f/(C·Z_g) (test/reference/README.md, Devroye 1986 II.3); sup f/g = 24.8944 and 10.9403 (test/reference/README.md) are below C
     const u = rejectionSampler(multimodalTruncated(), { proposal: uniformProposal(-3, 3), logBound: Math.log(25), seed: 3 });
     draw(u, N);
     expectRate(u.stats.samples, u.stats.proposals, MULTIMODAL.zTruncated / 25, 'uniform C = 25');
@@ -131,7 +134,7 @@ describe('piecewiseSampler: mixtures, a narrow spike, heavy tails', () => {
         const opts: PiecewiseOptions = { seed: 11, derivativeFree };
         const s = piecewiseSampler(mix.target, opts);
         expectFits(draw(s, N), mix.cdf, label);
-        expect(s.stats.acceptanceRate).toBeGreaterThan(0.95);
+        expect(s.stats.acceptanceRate).toBeGreaterThan(0.95); // requirement (issue 5), as above
         expectRejects(draw(piecewiseSampler(twin.target, opts), N), mix.cdf, `${label} twin`);
       });
     }
@@ -187,7 +190,7 @@ describe('piecewiseSampler: mixtures, a narrow spike, heavy tails', () => {
 });
 
 describe('piecewiseSampler: property (fast-check): random mixtures of 2 to 5 normals', () => {
-  it('the envelope dominates the target and the squeeze lies below it at random points, or construction throws a typed error', () => {
+  it('every random mixture builds, and its envelope dominates the target and its squeeze lies below it at random points', () => {
     // Ranges: weights [0.05, 1], locations [−10, 10], sds [0.05, 5] (log-uniform): a narrowest component
     // of 1/400 of the spread, within what the 1024-point scan resolves (see the sampler's Limits remark).
     const comp = fc.record({
@@ -199,13 +202,8 @@ describe('piecewiseSampler: property (fast-check): random mixtures of 2 to 5 nor
     fc.assert(
       fc.property(fc.array(comp, { minLength: 2, maxLength: 5 }), fc.boolean(), fc.integer({ min: 1, max: 1e9 }), (cs, withDerivative, seed) => {
         const mix = normalMixture(cs.map((c) => c.w), cs.map((c) => c.mu), cs.map((c) => Math.exp(c.ls)), withDerivative);
-        let s: PiecewiseSampler;
-        try {
-          s = piecewiseSampler(mix.target, { seed });
-        } catch (e) {
-          expect(e).toBeInstanceOf(ExactDrawError);
-          return;
-        }
+        // every case must build: a refusal of a bounded, smooth mixture in these ranges is a defect
+        const s: PiecewiseSampler = piecewiseSampler(mix.target, { seed });
         built++;
         const u = mersenneTwister(seed);
         const pts: number[] = [];
@@ -220,7 +218,7 @@ describe('piecewiseSampler: property (fast-check): random mixtures of 2 to 5 nor
       }),
       { numRuns: 60, seed: 20261201 },
     );
-    expect(built).toBeGreaterThan(50);
+    expect(built).toBe(60);
   });
 });
 

@@ -8,7 +8,7 @@ describe('mersenneTwister', () => {
     // ISO/IEC 14882:2011 [rand.predef]: the 10000th consecutive invocation of a
     // default-constructed mt19937 (seed 5489) produces 4123659995. The first
     // output, 3499211612, is the well-known first value of that stream (from memory;
-    // also listed in the project's REFERENCES.md).
+    // also listed in test/reference/README.md).
     expect(u.uint32()).toBe(3499211612);
     let last = 0;
     for (let i = 2; i <= 10000; i++) last = u.uint32();

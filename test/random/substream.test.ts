@@ -99,7 +99,7 @@ describe('substream', () => {
   it('substream(2026, 3) regression snapshot of the first 5 values', () => {
     // REGRESSION SNAPSHOT, not a correctness reference: these values were
     // recorded from this implementation and guard the stability of the
-    // substream derivation (a change is a breaking change, see DESIGN.md).
+    // substream derivation (a change is a breaking change: DEVELOPERS.md, "Stream-stability policy").
     const u = substream(2026, 3);
     expect(Array.from({ length: 5 }, () => u())).toEqual(SNAPSHOT);
   });

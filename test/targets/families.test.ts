@@ -220,7 +220,7 @@ describe('gammaTarget', () => {
     }
   });
 
-  it('gammaTarget cdf is accurate at shape >= 1000 (series, not @stdlib): P(1e4, 1e4) ≈ 0.50133 (REFERENCES.md)', () => {
+  it('gammaTarget cdf is accurate at shape >= 1000 (series, not @stdlib): P(1e4, 1e4) ≈ 0.50133 (test/reference/README.md)', () => {
     expect(gammaTarget(1e4, 1).cdf(1e4)).toBeCloseTo(0.50133, 5);
     expect(gammaTarget(1e4, 2).cdf(5e3)).toBeCloseTo(0.50133, 5);
   });

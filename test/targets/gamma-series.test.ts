@@ -21,7 +21,7 @@ function poissonQ(n: number, x: number): number {
 }
 
 describe('gamma-series: regularized incomplete gamma', () => {
-  it('P(1e4, 1e4) ≈ 0.50133 (value of the independent series in REFERENCES.md)', () => {
+  it('P(1e4, 1e4) ≈ 0.50133 (value of the independent series, test/reference/README.md)', () => {
     expect(P(1e4, 1e4)).toBeCloseTo(0.50133, 5);
   });
 
@@ -69,13 +69,13 @@ describe('gamma-series: regularized incomplete gamma', () => {
     }
   });
 
-  it('P(a, x) matches @stdlib gamma cdf where @stdlib is accurate (shape 2.5, 10, 100; REFERENCES.md)', () => {
+  it('P(a, x) matches @stdlib gamma cdf where @stdlib is accurate (shape 2.5, 10, 100; test/reference/README.md)', () => {
     for (const a of [2.5, 10, 100]) {
       const sd = Math.sqrt(a);
       for (let k = -4; k <= 4; k += 0.5) {
         const x = a + k * sd;
         if (x <= 0) continue;
-        // REFERENCES.md: @stdlib is within 1.1e-13 at these shapes, mean ± 4 sd
+        // test/reference/README.md: @stdlib is within 1.1e-13 at these shapes, mean ± 4 sd
         expect(Math.abs(P(a, x) - gammaCdf(x, a, 1)), `a = ${a}, x = ${x}`).toBeLessThan(5e-13);
       }
     }

@@ -5,30 +5,12 @@
  *
  * @packageDocumentation
  */
-import { ImproperDensityError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
-import { GuideTable } from './guide-table.js';
-import { T_LOG, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from './transforms.js';
-
-/**
- * Absolute part of the tolerance, in log-density units, of every comparison
- * between the target and the hull (envelope and squeeze checks, shape
- * checks): `logf(x) ≤ log envelope(x) + tol` with
- * `tol = 1e-9 + 1e-12·(|log envelope| + |logf|)` (roughly).
- *
- * @remarks
- * Why not 0: a log-density is computed with rounding error relative to the
- * size of its intermediate terms, not of its result — a normalized gamma
- * log-density at shape 1e4 subtracts lnΓ(1e4) ≈ 8.2e4 and keeps an absolute
- * error near 1e-11 although the result is about −5. Why so small: a target
- * that exceeds the envelope by a factor e^tol ≈ 1 + 1e-9 biases the draws by
- * at most about 1e-9 in total variation, far below what any sample can
- * detect, while every shape error of practical size (a second mode, a tail
- * heavier than the transform allows) is many orders of magnitude larger.
- */
-export const HULL_LOG_TOLERANCE_ABSOLUTE = 1e-9;
-
-/** Relative part of the hull tolerance (see {@link HULL_LOG_TOLERANCE_ABSOLUTE}): unnormalized targets with log heights far from 0. */
-export const HULL_LOG_TOLERANCE_RELATIVE = 1e-12;
+import { ImproperDensityError, NonFiniteDensityError } from '../../core/errors.js';
+import { belowChord, shapeError, shapeName, transformedTolerance } from '../envelope/concavity.js';
+import { GuideTable } from '../envelope/guide-table.js';
+import type { HullView } from '../envelope/hull-view.js';
+import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
+import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -42,12 +24,6 @@ export const INV_SQRT_MIN_RELATIVE_LOG_HEIGHT = -600;
 /** How far (in log units) the hull may rise above the highest touch point during setup before a point is added where it peaks. @internal */
 export const SETUP_MAX_RELATIVE_HEIGHT = 600;
 
-/** Result codes of {@link Hull.insert}. @internal */
-export const INSERTED = 0;
-/** The point was not used (duplicate, capacity reached, or too low under inverse-sqrt). @internal */
-export const SKIPPED = 1;
-/** The point had density 0 outside the touch points: the effective support was shrunk to it. @internal */
-export const SHRUNK = 2;
 
 /** Target functions the engine evaluates. @internal */
 export interface HullTarget {
@@ -79,7 +55,7 @@ export function nonFiniteDerivative(api: string, x: number, value: number): neve
  * are those of f/e^ref, ref being the hull's maximum log height.
  * @internal
  */
-export class Hull {
+export class Hull implements HullView {
   readonly api: string;
   /** {@link T_LOG} or {@link T_INV_SQRT}. */
   readonly kind: number;
@@ -105,34 +81,28 @@ export class Hull {
   readonly guideTable: GuideTable;
   /** True when the guide table must be rebuilt before the next draw. */
   dirty = true;
-  /** Length scale used when setup needs to step outward. */
-  setupScale = 1;
-  private leftStep = 0;
-  private rightStep = 0;
-  private leftGrowth = 2;
-  private rightGrowth = 2;
 
   // touch points
-  tx!: Float64Array; // x
-  tl!: Float64Array; // absolute log-density
-  tg!: Float64Array; // derivative of the log-density (tangent construction)
-  ty!: Float64Array; // transformed value (relative to ref)
-  ts!: Float64Array; // transformed slope (tangent construction)
+  touchX!: Float64Array; // x
+  touchLogDensity!: Float64Array; // absolute log-density
+  touchDerivative!: Float64Array; // derivative of the log-density (tangent construction)
+  touchValue!: Float64Array; // transformed value (relative to ref)
+  touchSlope!: Float64Array; // transformed slope (tangent construction)
   // pieces
   lo!: Float64Array;
   hi!: Float64Array;
-  ax!: Float64Array; // line anchor
-  at!: Float64Array; // line value at anchor
-  sl!: Float64Array; // line slope
-  sqx!: Float64Array; // squeeze anchor
-  sqt!: Float64Array; // squeeze value at anchor (-Infinity: none)
-  sqs!: Float64Array; // squeeze slope
-  hx!: Float64Array; // high end
-  dir!: Float64Array; // +1 or -1: direction from the high end into the piece
-  wd!: Float64Array; // width
-  sig!: Float64Array; // |slope|
-  pq!: Float64Array; // inversion constant
-  th!: Float64Array; // line value at the high end
+  lineAnchor!: Float64Array; // line anchor
+  lineValue!: Float64Array; // line value at anchor
+  lineSlope!: Float64Array; // line slope
+  squeezeAnchor!: Float64Array; // squeeze anchor
+  squeezeValue!: Float64Array; // squeeze value at anchor (-Infinity: none)
+  squeezeSlope!: Float64Array; // squeeze slope
+  highEnd!: Float64Array; // high end
+  direction!: Float64Array; // +1 or -1: direction from the high end into the piece
+  width!: Float64Array; // width
+  rate!: Float64Array; // |slope|
+  inversion!: Float64Array; // inversion constant
+  highValue!: Float64Array; // line value at the high end
   logArea!: Float64Array; // relative log area
   area!: Float64Array; // relative area
 
@@ -163,9 +133,8 @@ export class Hull {
   /**
    * (Re)allocates the arrays for `cap` touch points (2·cap pieces) as views
    * of one ArrayBuffer (with the guide table's arrays), keeping the used
-   * parts. One backing store instead of 24: a fresh hull (a Gibbs step) spent most of its time allocating
-   * typed arrays and collecting them (measured: 47 µs per fresh sampler and
-   * draw, about three quarters of it allocation and garbage collection).
+   * parts. One backing store instead of 24 keeps a fresh hull (a Gibbs step)
+   * cheap to allocate and collect (figures: CHANGELOG.md, "Measurements").
    */
   private allocate(cap: number): void {
     const old = this.cap;
@@ -181,27 +150,27 @@ export class Hull {
       return b;
     };
     const k = old > 0 ? this.k : 0;
-    this.tx = copy(this.tx, cap, k);
-    this.tl = copy(this.tl, cap, k);
-    this.tg = copy(this.tg, cap, k);
-    this.ty = copy(this.ty, cap, k);
-    this.ts = copy(this.ts, cap, k);
+    this.touchX = copy(this.touchX, cap, k);
+    this.touchLogDensity = copy(this.touchLogDensity, cap, k);
+    this.touchDerivative = copy(this.touchDerivative, cap, k);
+    this.touchValue = copy(this.touchValue, cap, k);
+    this.touchSlope = copy(this.touchSlope, cap, k);
     const p = 2 * cap;
     const n = 2 * k;
     this.lo = copy(this.lo, p, n);
     this.hi = copy(this.hi, p, n);
-    this.ax = copy(this.ax, p, n);
-    this.at = copy(this.at, p, n);
-    this.sl = copy(this.sl, p, n);
-    this.sqx = copy(this.sqx, p, n);
-    this.sqt = copy(this.sqt, p, n);
-    this.sqs = copy(this.sqs, p, n);
-    this.hx = copy(this.hx, p, n);
-    this.dir = copy(this.dir, p, n);
-    this.wd = copy(this.wd, p, n);
-    this.sig = copy(this.sig, p, n);
-    this.pq = copy(this.pq, p, n);
-    this.th = copy(this.th, p, n);
+    this.lineAnchor = copy(this.lineAnchor, p, n);
+    this.lineValue = copy(this.lineValue, p, n);
+    this.lineSlope = copy(this.lineSlope, p, n);
+    this.squeezeAnchor = copy(this.squeezeAnchor, p, n);
+    this.squeezeValue = copy(this.squeezeValue, p, n);
+    this.squeezeSlope = copy(this.squeezeSlope, p, n);
+    this.highEnd = copy(this.highEnd, p, n);
+    this.direction = copy(this.direction, p, n);
+    this.width = copy(this.width, p, n);
+    this.rate = copy(this.rate, p, n);
+    this.inversion = copy(this.inversion, p, n);
+    this.highValue = copy(this.highValue, p, n);
     this.logArea = copy(this.logArea, p, n);
     this.area = copy(this.area, p, n);
     // the guide table is rebuilt from `area` before the next draw (dirty), so its old contents need not be kept
@@ -212,30 +181,98 @@ export class Hull {
 
   /** Name of the shape assumption, for messages. */
   shapeName(): string {
-    return this.kind === T_LOG ? 'log-concave' : 'T-concave for T(f) = -1/sqrt(f)';
+    return shapeName(this.kind);
   }
 
-  /** Number of pieces. */
-  get pieces(): number {
-    return 2 * this.k;
+  // ----- the view the table builder reads (HullView) ---------------------------
+
+  /** Number of touch points. */
+  touchPointCount(): number {
+    return this.k;
+  }
+
+  /** Position of touch point i. */
+  touchPointX(i: number): number {
+    return this.touchX[i];
+  }
+
+  /** logDensity at touch point i. */
+  touchPointLogDensity(i: number): number {
+    return this.touchLogDensity[i];
+  }
+
+  /** Quantiles of the envelope at the increasing probabilities `ps`. */
+  envelopeQuantiles(ps: readonly number[]): number[] {
+    const h = this;
+    const n = 2 * h.k;
+    let total = 0;
+    for (let j = 0; j < n; j++) total += h.area[j];
+    const out: number[] = [];
+    let j = 0;
+    let before = 0;
+    for (const p of ps) {
+      const v = p * total;
+      while (j < n - 1 && before + h.area[j] <= v) {
+        before += h.area[j];
+        j++;
+      }
+      const a = h.area[j];
+      let frac = a > 0 ? (v - before) / a : 0.5;
+      // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
+      if (h.direction[j] < 0) frac = 1 - frac;
+      if (!(frac >= 0)) frac = 0;
+      if (frac >= 1) frac = 0.9999999999999999;
+      const w = h.width[j];
+      if (!(w > 0) || !(a > 0)) {
+        out.push(h.lo[j]);
+        continue;
+      }
+      const d = invertPiece(h.kind, h.inversion[j], h.rate[j], w, frac);
+      let x = h.highEnd[j] + h.direction[j] * d;
+      if (x < h.lo[j]) x = h.lo[j];
+      else if (x > h.hi[j]) x = h.hi[j];
+      out.push(x);
+    }
+    return out;
+  }
+
+  /** Maximum of the envelope (log, absolute) over [a, b]. */
+  maxLogEnvelope(a: number, b: number): number {
+    const h = this;
+    let best = -Infinity;
+    for (let j = 0; j < 2 * h.k; j++) {
+      const lo = h.lo[j];
+      const hi = h.hi[j];
+      if (!(hi >= lo) || hi < a || lo > b) continue;
+      const p = a > lo ? a : lo;
+      const q = b < hi ? b : hi;
+      const sl = h.lineSlope[j];
+      for (const z of [p, q]) {
+        let t = h.lineValue[j] + sl * (z - h.lineAnchor[j]);
+        if (t !== t) t = Infinity;
+        const v = logHeight(h.kind, t);
+        if (v > best) best = v;
+      }
+    }
+    return best + h.ref;
   }
 
   // ----- lines ---------------------------------------------------------------
 
   /** Slope of the chord between touch points i and i + 1 in transformed space. */
   chord(i: number): number {
-    return (this.ty[i + 1] - this.ty[i]) / (this.tx[i + 1] - this.tx[i]);
+    return (this.touchValue[i + 1] - this.touchValue[i]) / (this.touchX[i + 1] - this.touchX[i]);
   }
 
   /** Slope of the envelope line on the left tail. */
   leftTailSlope(): number {
-    if (this.tangent) return this.ts[0];
+    if (this.tangent) return this.touchSlope[0];
     return this.k >= 2 ? this.chord(0) : NaN;
   }
 
   /** Slope of the envelope line on the right tail. */
   rightTailSlope(): number {
-    if (this.tangent) return this.ts[this.k - 1];
+    if (this.tangent) return this.touchSlope[this.k - 1];
     return this.k >= 2 ? this.chord(this.k - 2) : NaN;
   }
 
@@ -268,18 +305,18 @@ export class Hull {
     const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
     this.lo[j] = lo;
     this.hi[j] = hi;
-    this.ax[j] = ax;
-    this.at[j] = at;
-    this.sl[j] = sl;
-    this.sqx[j] = sqx;
-    this.sqt[j] = sqt;
-    this.sqs[j] = sqs;
-    this.hx[j] = hx;
-    this.dir[j] = dir;
-    this.wd[j] = w;
-    this.sig[j] = s;
-    this.th[j] = th;
-    this.pq[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
+    this.lineAnchor[j] = ax;
+    this.lineValue[j] = at;
+    this.lineSlope[j] = sl;
+    this.squeezeAnchor[j] = sqx;
+    this.squeezeValue[j] = sqt;
+    this.squeezeSlope[j] = sqs;
+    this.highEnd[j] = hx;
+    this.direction[j] = dir;
+    this.width[j] = w;
+    this.rate[j] = s;
+    this.highValue[j] = th;
+    this.inversion[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
     this.logArea[j] = la;
     this.area[j] = Math.exp(la);
   }
@@ -323,8 +360,8 @@ export class Hull {
 
   /** Rebuilds the two pieces of interval i (touch points i and i + 1). */
   private buildInterval(i: number): void {
-    const tx = this.tx;
-    const ty = this.ty;
+    const tx = this.touchX;
+    const ty = this.touchValue;
     const a = tx[i];
     const b = tx[i + 1];
     const ya = ty[i];
@@ -347,8 +384,8 @@ export class Hull {
       return;
     }
     if (this.tangent) {
-      const s0 = this.ts[i];
-      const s1 = this.ts[i + 1];
+      const s0 = this.touchSlope[i];
+      const s1 = this.touchSlope[i + 1];
       let f = s0 - s1 > 0 ? (mi - s1) / (s0 - s1) : 0.5;
       if (!(f >= 0)) f = f < 0 ? 0 : 0.5;
       else if (f > 1) f = 1;
@@ -391,8 +428,8 @@ export class Hull {
   /** Rebuilds the two tail pieces. */
   buildTails(): void {
     const k = this.k;
-    const tx = this.tx;
-    const ty = this.ty;
+    const tx = this.touchX;
+    const ty = this.touchValue;
     const last = 2 * k - 1;
     const sL = this.leftTailSlope();
     const sR = this.rightTailSlope();
@@ -417,28 +454,23 @@ export class Hull {
   }
 
   private setTransformed(i: number): void {
-    const y = transformValue(this.kind, this.tl[i] - this.ref);
-    this.ty[i] = y;
-    this.ts[i] = this.tangent ? transformSlope(this.kind, y, this.tg[i]) : NaN;
+    const y = transformValue(this.kind, this.touchLogDensity[i] - this.ref);
+    this.touchValue[i] = y;
+    this.touchSlope[i] = this.tangent ? transformSlope(this.kind, y, this.touchDerivative[i]) : NaN;
   }
 
   // ----- tolerances and shape checks -----------------------------------------
 
   /** Tolerance in transformed units for comparisons between points of log-density la, lb and transformed values ya, yb. */
   private tolY(la: number, lb: number, ya: number, yb: number): number {
-    const tolL = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(la) + Math.abs(lb));
-    if (this.kind === T_LOG) return tolL;
-    return 0.5 * Math.max(-ya, -yb) * tolL;
+    return transformedTolerance(this.kind, la, lb, ya, yb);
   }
 
   private context = '';
 
   private shapeError(detail: string, a: number, b: number): never {
     if (this.context !== '') detail = `${this.context}; ${detail}`;
-    const hint = this.kind === T_LOG
-      ? " (for heavier tails try transform: 'inverse-sqrt'; for several modes use piecewiseSampler)"
-      : ' (for several modes use piecewiseSampler)';
-    throw new ShapeViolationError(`${this.api}: target is not ${this.shapeName()} on [${a}, ${b}]: ${detail}${hint}`, [a, b]);
+    throw shapeError(this.api, this.kind, detail, a, b);
   }
 
   /**
@@ -462,9 +494,7 @@ export class Hull {
 
   /** Secant construction, points x0 < x1 < x2: the middle one must not lie below the chord of the outer ones. */
   private checkSecantTriple(x0: number, y0: number, l0: number, x1: number, y1: number, l1: number, x2: number, y2: number, l2: number): void {
-    const interp = y0 + (y2 - y0) * ((x1 - x0) / (x2 - x0));
-    const tol = Math.max(this.tolY(l0, l1, y0, y1), this.tolY(l1, l2, y1, y2));
-    if (!(y1 - interp >= -tol)) {
+    if (belowChord(this.kind, x0, y0, l0, x1, y1, l1, x2, y2, l2)) {
       this.shapeError(
         `the chord slopes of the transformed density must not increase, but they are ${(y1 - y0) / (x1 - x0)} on [${x0}, ${x1}] and ${(y2 - y1) / (x2 - x1)} on [${x1}, ${x2}] (log-density ${l0}, ${l1}, ${l2})`,
         x0,
@@ -486,9 +516,9 @@ export class Hull {
    */
   explainViolation(x: number, l: number, context: string): void {
     const k = this.k;
-    const tx = this.tx;
-    const ty = this.ty;
-    const tl = this.tl;
+    const tx = this.touchX;
+    const ty = this.touchValue;
+    const tl = this.touchLogDensity;
     let p = 0;
     while (p < k && tx[p] <= x) p++;
     // at a touch point the target disagrees with its own earlier value: not a shape question
@@ -508,11 +538,11 @@ export class Hull {
       if (this.tangent) {
         for (let i = p - 1; i <= p; i++) {
           if (i < 0 || i >= k) continue;
-          const tan = ty[i] + this.ts[i] * (x - tx[i]);
-          const tol = this.tolY(tl[i], l, ty[i], y) + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(this.ts[i] * (x - tx[i]));
+          const tan = ty[i] + this.touchSlope[i] * (x - tx[i]);
+          const tol = this.tolY(tl[i], l, ty[i], y) + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(this.touchSlope[i] * (x - tx[i]));
           if (!(tan >= y - tol)) {
             this.shapeError(
-              `the target lies above the tangent of the transformed density at the touch point ${tx[i]} (slope ${this.ts[i]}, log-density ${tl[i]}, derivative ${this.tg[i]}) at x = ${x} (log-density ${l}); a T-concave target lies below all its tangents (or dLogDensity is wrong)`,
+              `the target lies above the tangent of the transformed density at the touch point ${tx[i]} (slope ${this.touchSlope[i]}, log-density ${tl[i]}, derivative ${this.touchDerivative[i]}) at x = ${x} (log-density ${l}); a T-concave target lies below all its tangents (or dLogDensity is wrong)`,
               Math.min(tx[i], x),
               Math.max(tx[i], x),
             );
@@ -531,34 +561,37 @@ export class Hull {
    * (ignored by the secant construction) — checks the shape against its
    * neighbours and rebuilds only the pieces that depend on it.
    * @param grow - allow the arrays to grow (setup); otherwise the point is skipped at `maxK`
-   * @returns {@link INSERTED}, {@link SKIPPED} or {@link SHRUNK}
+   * @returns true when the point was used (a new touch point, or a point of
+   * density 0 outside the touch points, to which the effective support was
+   * shrunk); false when it was skipped (duplicate, capacity reached, or too
+   * low under inverse-sqrt)
    * @throws {@link ShapeViolationError} when the new point contradicts the shape assumption
    */
-  insert(x: number, l: number, g: number, grow: boolean): number {
+  insert(x: number, l: number, g: number, grow: boolean): boolean {
     const k = this.k;
-    const tx = this.tx;
+    const tx = this.touchX;
     if (l === -Infinity) {
-      if (k === 0) return SKIPPED;
+      if (k === 0) return false;
       if (x < tx[0]) {
         if (x > this.lower) {
           this.lower = x;
           this.buildTails();
         }
-        return SHRUNK;
+        return true;
       }
       if (x > tx[k - 1]) {
         if (x < this.upper) {
           this.upper = x;
           this.buildTails();
         }
-        return SHRUNK;
+        return true;
       }
       // density 0 between two points of positive density
       let i = 0;
       while (i + 1 < k && tx[i + 1] < x) i++;
       this.shapeError(`logDensity(${x}) is -Infinity between touch points of finite log-density, so the support is not an interval`, tx[i], tx[i + 1]);
     }
-    if (this.kind !== T_LOG && l - this.ref < INV_SQRT_MIN_RELATIVE_LOG_HEIGHT) return SKIPPED;
+    if (this.kind !== T_LOG && l - this.ref < INV_SQRT_MIN_RELATIVE_LOG_HEIGHT) return false;
     // position: first index with tx[p] > x
     let a = 0;
     let b = k;
@@ -568,15 +601,15 @@ export class Hull {
       else b = m;
     }
     const p = a;
-    if (p > 0 && tx[p - 1] === x) return SKIPPED;
+    if (p > 0 && tx[p - 1] === x) return false;
     // shape checks against the neighbours, before anything changes
     const y = transformValue(this.kind, l - this.ref);
     const sNew = this.tangent ? transformSlope(this.kind, y, g) : NaN;
-    const ty = this.ty;
-    const tl = this.tl;
+    const ty = this.touchValue;
+    const tl = this.touchLogDensity;
     if (this.tangent) {
-      const ts = this.ts;
-      const tg = this.tg;
+      const ts = this.touchSlope;
+      const tg = this.touchDerivative;
       if (p > 0) this.checkTangentPair(tx[p - 1], ty[p - 1], ts[p - 1], tl[p - 1], tg[p - 1], x, y, sNew, l, g);
       if (p < k) this.checkTangentPair(x, y, sNew, l, g, tx[p], ty[p], ts[p], tl[p], tg[p]);
     } else {
@@ -585,31 +618,31 @@ export class Hull {
       if (p + 1 < k) this.checkSecantTriple(x, y, l, tx[p], ty[p], tl[p], tx[p + 1], ty[p + 1], tl[p + 1]);
     }
     if (k >= this.cap) {
-      if (!grow) return SKIPPED;
+      if (!grow) return false;
       this.allocate(Math.max(2 * this.cap, 8));
     } else if (!grow && k >= this.maxK) {
-      return SKIPPED;
+      return false;
     }
     // shift touch points
     const n = 2 * k;
     if (p < k) {
-      this.tx.copyWithin(p + 1, p, k);
-      this.tl.copyWithin(p + 1, p, k);
-      this.tg.copyWithin(p + 1, p, k);
-      this.ty.copyWithin(p + 1, p, k);
-      this.ts.copyWithin(p + 1, p, k);
+      this.touchX.copyWithin(p + 1, p, k);
+      this.touchLogDensity.copyWithin(p + 1, p, k);
+      this.touchDerivative.copyWithin(p + 1, p, k);
+      this.touchValue.copyWithin(p + 1, p, k);
+      this.touchSlope.copyWithin(p + 1, p, k);
     }
     // shift pieces: old pieces [1 + 2p, 2k) move right by 2
     const from = 1 + 2 * p;
     if (k > 0 && from < n) {
-      const arrays = [this.lo, this.hi, this.ax, this.at, this.sl, this.sqx, this.sqt, this.sqs, this.hx, this.dir, this.wd, this.sig, this.pq, this.th, this.logArea, this.area];
+      const arrays = [this.lo, this.hi, this.lineAnchor, this.lineValue, this.lineSlope, this.squeezeAnchor, this.squeezeValue, this.squeezeSlope, this.highEnd, this.direction, this.width, this.rate, this.inversion, this.highValue, this.logArea, this.area];
       for (let q = 0; q < arrays.length; q++) arrays[q].copyWithin(from + 2, from, n);
     }
-    this.tx[p] = x;
-    this.tl[p] = l;
-    this.tg[p] = g;
-    this.ty[p] = y;
-    this.ts[p] = sNew;
+    this.touchX[p] = x;
+    this.touchLogDensity[p] = l;
+    this.touchDerivative[p] = g;
+    this.touchValue[p] = y;
+    this.touchSlope[p] = sNew;
     this.k = k + 1;
     const kk = this.k;
     // rebuild the intervals that depend on the new point, and the tails
@@ -617,115 +650,15 @@ export class Hull {
     const i1 = Math.min(kk - 2, p + (this.tangent ? 0 : 1));
     for (let i = i0; i <= i1; i++) this.buildInterval(i);
     this.buildTails();
-    return INSERTED;
-  }
-
-  // ----- setup helpers --------------------------------------------------------
-
-  /**
-   * The next point setup should probe so that the envelope becomes valid
-   * and integrable, or NaN when it already is.
-   * @throws {@link ImproperDensityError} when a tail cannot be bounded
-   */
-  setupDeficiency(): number {
-    const k = this.k;
-    const tx = this.tx;
-    const spread = k > 1 ? tx[k - 1] - tx[0] : 0;
-    const base = Math.max(spread, this.setupScale, Math.abs(tx[0]) * 4.4e-16, 5e-324);
-    if (!this.tangent && k < 3) {
-      // derivative-free hulls need three touch points
-      if (this.upper > tx[k - 1]) return this.outward(1, base);
-      if (this.lower < tx[0]) return this.outward(-1, base);
-      return tx[0] + 0.5 * (tx[1] - tx[0]);
-    }
-    const sL = this.leftTailSlope();
-    if (this.lower === -Infinity) {
-      if (!(sL * 1e300 > 1)) return this.outward(-1, base);
-    } else if (this.kind !== T_LOG && tx[0] > this.lower && !(this.ty[0] + sL * (this.lower - tx[0]) < 0)) {
-      return this.towardBound(-1);
-    }
-    const sR = this.rightTailSlope();
-    if (this.upper === Infinity) {
-      if (!(-sR * 1e300 > 1)) return this.outward(1, base);
-    } else if (this.kind !== T_LOG && tx[k - 1] < this.upper && !(this.ty[k - 1] + sR * (this.upper - tx[k - 1]) < 0)) {
-      return this.towardBound(1);
-    }
-    // the hull must not rise far above the touch points
-    let topTouch = -Infinity;
-    for (let i = 0; i < k; i++) if (this.tl[i] > topTouch) topTouch = this.tl[i];
-    let worst = -1;
-    let worstH = topTouch - this.ref + SETUP_MAX_RELATIVE_HEIGHT;
-    const last = 2 * k - 1;
-    for (let j = 0; j <= last; j++) {
-      if (!(this.wd[j] > 0)) continue;
-      const h = logHeight(this.kind, this.th[j]);
-      if (!(h <= worstH)) {
-        worst = j;
-        worstH = h;
-        if (h !== h) break;
-      }
-    }
-    if (worst === 0) return this.towardBound(-1);
-    if (worst === last) return this.towardBound(1);
-    if (worst > 0) {
-      // probe where the line peaks: the end of the piece that is not a touch point
-      const i = (worst - 1) >> 1;
-      const z = (worst & 1) === 1 ? this.hi[worst] : this.lo[worst];
-      const a = tx[i];
-      const b = tx[i + 1];
-      return z > a && z < b ? z : a + 0.5 * (b - a);
-    }
-    return NaN;
-  }
-
-  /** A point outside the touch points on side `side`, further out at each call. */
-  private outward(side: number, base: number): number {
-    const k = this.k;
-    if (side < 0) {
-      // accelerating steps (×2, ×4, ×8, …): a tail that never decays reaches 1e300 in a few dozen probes
-      if (this.leftStep > 0) {
-        this.leftStep *= this.leftGrowth;
-        this.leftGrowth *= 2;
-      } else {
-        this.leftStep = base;
-      }
-      const x = this.tx[0] - this.leftStep;
-      if (!(x > -1e300)) this.improper(-1);
-      return x > this.lower ? x : this.tx[0] - 0.5 * (this.tx[0] - this.lower);
-    }
-    if (this.rightStep > 0) {
-      this.rightStep *= this.rightGrowth;
-      this.rightGrowth *= 2;
-    } else {
-      this.rightStep = base;
-    }
-    const x = this.tx[k - 1] + this.rightStep;
-    if (!(x < 1e300)) this.improper(1);
-    return x < this.upper ? x : this.tx[k - 1] + 0.5 * (this.upper - this.tx[k - 1]);
-  }
-
-  private towardBound(side: number): number {
-    const k = this.k;
-    const t = side < 0 ? this.tx[0] : this.tx[k - 1];
-    const bnd = side < 0 ? this.lower : this.upper;
-    const mid = t + 0.5 * (bnd - t);
-    return Math.abs(bnd - t) <= 1e-12 * Math.max(1, Math.abs(t)) || mid === t ? bnd : mid;
-  }
-
-  private improper(side: number): never {
-    const k = this.k;
-    const x = side < 0 ? this.tx[0] : this.tx[k - 1];
-    throw new ImproperDensityError(
-      `${this.api}: the ${side < 0 ? 'left' : 'right'} tail does not decay: logDensity keeps ${side < 0 ? 'increasing towards -Infinity' : 'increasing towards +Infinity'} (last touch point x = ${x}, logDensity = ${side < 0 ? this.tl[0] : this.tl[k - 1]}); the density has infinite mass, or its mode lies beyond ±1e300`,
-    );
+    return true;
   }
 
   /** Largest relative log height of the hull over pieces of positive width. */
   maxRelativeHeight(): number {
     let h = -Infinity;
     for (let j = 0; j < 2 * this.k; j++) {
-      if (!(this.wd[j] > 0)) continue;
-      const v = logHeight(this.kind, this.th[j]);
+      if (!(this.width[j] > 0)) continue;
+      const v = logHeight(this.kind, this.highValue[j]);
       if (v > h) h = v;
     }
     return h;

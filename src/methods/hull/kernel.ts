@@ -4,11 +4,13 @@
  * @packageDocumentation
  */
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, NonFiniteDensityError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { Uniform } from '../../core/types.js';
-import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE, nonFiniteDerivative } from './hull.js';
+import { logTolerance } from '../envelope/tolerance.js';
+import { T_LOG, invertPiece } from '../envelope/transforms.js';
+import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
-import { T_LOG } from './transforms.js';
 
 /**
  * Fills `out[0..n)` with draws from the target under the hull `h`.
@@ -21,7 +23,7 @@ import { T_LOG } from './transforms.js';
  * squeeze still evaluates). Otherwise logDensity is evaluated (and counted),
  * checked for NaN/+Infinity, against the envelope and against the squeeze
  * (both within the hull tolerance), and the candidate is accepted when
- * u3 < f/envelope. Every evaluated candidate, accepted or not, becomes a
+ * u3 < f/envelope. The kernel mutates the hull for adaptation: every evaluated candidate, accepted or not, becomes a
  * touch point while the hull has room (the updating step of Gilks & Wild
  * 1992; see {@link Hull.insert}); one where the density is 0 outside the
  * touch points shrinks the effective support instead. No
@@ -39,24 +41,24 @@ export function hullFill(
   const api = h.api;
   const lo = h.lo;
   const hi = h.hi;
-  const ax = h.ax;
-  const at = h.at;
-  const sl = h.sl;
-  const sqx = h.sqx;
-  const sqt = h.sqt;
-  const sqs = h.sqs;
-  const hx = h.hx;
-  const dir = h.dir;
-  const wd = h.wd;
-  const sig = h.sig;
-  const pq = h.pq;
+  const ax = h.lineAnchor;
+  const at = h.lineValue;
+  const sl = h.lineSlope;
+  const sqx = h.squeezeAnchor;
+  const sqt = h.squeezeValue;
+  const sqs = h.squeezeSlope;
+  const hx = h.highEnd;
+  const dir = h.direction;
+  const wd = h.width;
+  const sig = h.rate;
+  const pq = h.inversion;
   const gt = h.guideTable;
   const cum = gt.cum;
   const guide = gt.guide;
-  const isLog = h.kind === T_LOG;
+  const kind = h.kind;
+  const isLog = kind === T_LOG;
   const logf = h.target.logDensity;
   const ref = h.ref;
-  const tolBase = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(ref);
   for (let i = 0; i < n; i++) {
     let rejections = 0;
     for (;;) {
@@ -67,12 +69,7 @@ export function hullFill(
       const v = u1 * gt.total;
       while (cum[j] <= v) j++;
       const u2 = uniform();
-      const w = wd[j];
-      const q = pq[j];
-      let d: number;
-      if (isLog) d = q === 0 ? u2 * w : -Math.log1p(-u2 * q) / sig[j];
-      else d = w === Infinity ? u2 / ((1 - u2) * q) : (u2 * w) / (1 + (1 - u2) * q * w);
-      if (d > w) d = w;
+      const d = invertPiece(kind, pq[j], sig[j], wd[j], u2);
       let x = hx[j] + dir[j] * d;
       if (x < lo[j]) x = lo[j];
       else if (x > hi[j]) x = hi[j];
@@ -98,11 +95,11 @@ export function hullFill(
         lenv = -2 * Math.log(-t);
         lsq = c === -Infinity ? -Infinity : -2 * Math.log(-c);
       }
-      const lf = logf(x);
+      const raw = logf(x);
       counters.densityEvaluations++;
-      if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(api, x, lf);
+      const lf = checkLogDensity(api, x, raw);
       const lr = lf - ref;
-      const tol = tolBase + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(lr === -Infinity ? 0 : lr);
+      const tol = logTolerance(ref, lr);
       if (lr > lenv + tol) {
         h.explainViolation(x, lf, `target is above the envelope at x = ${x} (log target ${lf}, log envelope ${lenv + ref})`);
         throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');

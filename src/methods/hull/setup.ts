@@ -5,17 +5,18 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../../core/counters.js';
+import { Counters } from '../../core/counters.js';
 import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
-import type { Target, Uniform } from '../../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget, evalLog } from '../../core/validate.js';
+import type { SamplerOptions, Target, Uniform } from '../../core/types.js';
+import type { TransformName } from '../envelope/transforms.js';
+import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, resolveMaxRejections } from '../../core/validate.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import { resolveUniform } from '../../random/resolve.js';
-import type { AdaptiveRejectionOptions } from '../adaptive-rejection.js';
-import { Hull, SKIPPED, nonFiniteDerivative } from './hull.js';
+import { Hull, nonFiniteDerivative } from './hull.js';
+import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe } from './start.js';
-import { T_INV_SQRT, T_LOG } from './transforms.js';
+import { T_INV_SQRT, T_LOG } from '../envelope/transforms.js';
 
 /**
  * Default of {@link AdaptiveRejectionOptions.maxPieces}: 100 pieces, i.e. 50
@@ -55,31 +56,75 @@ export interface HullSetup {
   readonly ownsUniform: boolean;
 }
 
+/** The hull options every hull-based sampler reads (a structural subset of their options types). @internal */
+export interface HullOptionsInput extends SamplerOptions {
+  readonly startPoints?: readonly number[];
+  readonly maxPieces?: number;
+  readonly derivativeFree?: boolean;
+  readonly transform?: TransformName;
+  readonly maxRejections?: number;
+}
+
+/** The hull options, resolved once: defaults applied, every value validated. @internal */
+export interface ResolvedHullOptions {
+  readonly target: CheckedTarget;
+  /** Transform id. */
+  readonly kind: number;
+  /** Tangent construction (the target has dLogDensity and derivativeFree is not set). */
+  readonly tangent: boolean;
+  readonly maxPieces: number;
+  readonly maxRejections: number;
+  /** Checked start points, or undefined (automatic). */
+  readonly startPoints: readonly number[] | undefined;
+  readonly uniform: Uniform;
+  /** True when `uniform` is a fresh MT19937 created from `seed` (not injected). */
+  readonly ownsUniform: boolean;
+}
+
 /**
- * Validates the hull options of `options` (and rejects keys not in `known`),
- * resolves the uniform source and builds a valid, integrable hull.
+ * Checks the target, rejects keys not in `known`, and resolves the hull
+ * options into a complete object (in this order, so that the first bad
+ * input is the one reported).
  * @internal
  */
-export function setupHull(api: string, target: Target, options: AdaptiveRejectionOptions | undefined, known: readonly string[]): HullSetup {
+export function resolveHullOptions(api: string, target: Target, options: HullOptionsInput | undefined, known: readonly string[]): ResolvedHullOptions {
   const t = checkTarget(api, target);
   checkOptionKeys(api, options, known);
-  const opts: AdaptiveRejectionOptions = options ?? {};
+  const opts: HullOptionsInput = options ?? {};
   const transform = opts.transform ?? 'log';
   if (transform !== 'log' && transform !== 'inverse-sqrt') {
     throw new InvalidTargetError(`${api}: options.transform must be 'log' or 'inverse-sqrt', got ${String(transform)}`);
   }
-  const derivativeFree = opts.derivativeFree ?? false;
-  if (typeof derivativeFree !== 'boolean') {
-    throw new InvalidTargetError(`${api}: options.derivativeFree must be a boolean, got ${String(derivativeFree)}`);
-  }
+  const derivativeFree = resolveBoolean(api, 'options.derivativeFree', opts.derivativeFree, false);
   const maxPieces = opts.maxPieces === undefined ? DEFAULT_MAX_PIECES : checkInteger(api, 'options.maxPieces', opts.maxPieces, 2, 1_000_000);
-  const maxRejections = opts.maxRejections === undefined
-    ? DEFAULT_MAX_REJECTIONS
-    : checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
-  const start = opts.startPoints === undefined ? undefined : checkStartPoints(api, opts.startPoints, t.lower, t.upper);
+  const maxRejections = resolveMaxRejections(api, opts.maxRejections);
+  const startPoints = opts.startPoints === undefined ? undefined : checkStartPoints(api, opts.startPoints, t.lower, t.upper);
   const uniform = resolveUniform(api, opts);
-  const kind = transform === 'log' ? T_LOG : T_INV_SQRT;
-  const tangent = t.dLogDensity !== undefined && !derivativeFree;
+  return {
+    target: t,
+    kind: transform === 'log' ? T_LOG : T_INV_SQRT,
+    tangent: t.dLogDensity !== undefined && !derivativeFree,
+    maxPieces,
+    maxRejections,
+    startPoints,
+    uniform,
+    ownsUniform: opts.uniform === undefined,
+  };
+}
+
+/**
+ * Resolves the hull options ({@link resolveHullOptions}) and builds a
+ * valid, integrable hull.
+ * @internal
+ */
+export function setupHull(api: string, target: Target, options: HullOptionsInput | undefined, known: readonly string[]): HullSetup {
+  return buildHull(api, resolveHullOptions(api, target, options, known));
+}
+
+/** Builds a valid, integrable hull from resolved options. @internal */
+export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
+  const { target: t, kind, tangent, maxPieces, maxRejections, uniform } = o;
+  const start = o.startPoints;
   const counters = new Counters();
   const logf = t.logDensity;
   const dlogf = t.dLogDensity;
@@ -123,17 +168,17 @@ export function setupHull(api: string, target: Target, options: AdaptiveRejectio
     );
   }
   const hull = new Hull(api, kind, tangent, { logDensity: logf, dLogDensity: dlogf }, t.lower, t.upper, ref, Math.max(Math.floor(maxPieces / 2), nUsable) + 4);
-  hull.setupScale = scale > 0 && scale < Infinity ? scale : 1;
+  const next = new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1);
   for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true);
   for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
   let stuck = 0;
   let refinements = 0;
   for (;;) {
-    const x = hull.setupDeficiency();
+    const x = next.next();
     if (x !== x) break;
     if (++refinements > SETUP_MAX_REFINEMENTS) {
       throw new ImproperDensityError(
-        `${api}: no integrable envelope after ${SETUP_MAX_REFINEMENTS} setup refinements on [${hull.lower}, ${hull.upper}] (${hull.k} touch points from ${hull.tx[0]} to ${hull.tx[hull.k - 1]}); the target may not be ${hull.shapeName()} or its tails may not decay`,
+        `${api}: no integrable envelope after ${SETUP_MAX_REFINEMENTS} setup refinements on [${hull.lower}, ${hull.upper}] (${hull.k} touch points from ${hull.touchX[0]} to ${hull.touchX[hull.k - 1]}); the target may not be ${hull.shapeName()} or its tails may not decay`,
       );
     }
     const p = probe(x);
@@ -141,14 +186,14 @@ export function setupHull(api: string, target: Target, options: AdaptiveRejectio
       if (++stuck > 20) break;
       continue;
     }
-    if (hull.insert(p.x, p.l, p.g, true) === SKIPPED && ++stuck > 20) break;
+    if (!hull.insert(p.x, p.l, p.g, true) && ++stuck > 20) break;
   }
   const top = hull.maxRelativeHeight();
   if (top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);
   hull.maxK = Math.max(Math.floor(maxPieces / 2), hull.k);
   hull.derivativeEvaluations = derivativeCalls;
   hull.buildGuide();
-  return { hull, target: t, counters, uniform, maxRejections, ownsUniform: opts.uniform === undefined };
+  return { hull, target: t, counters, uniform, maxRejections, ownsUniform: o.ownsUniform };
 }
 
 function checkStartPoints(api: string, pts: readonly number[], lower: number, upper: number): number[] {

@@ -5,60 +5,9 @@
  * @packageDocumentation
  */
 import { maximizeLog } from '../../bounds/maximize.js';
-import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
+import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
+import type { Evaluator } from '../../core/evaluate.js';
 import type { CheckedTarget } from '../../core/validate.js';
-
-/**
- * Counted, checked access to the target. Every call of `logDensity` (and of
- * `dLogDensity`) made while building goes through here, so that the counts
- * are exact and the evaluation budget bounds every setup loop. @internal
- */
-export class Evaluator {
-  /** Calls of logDensity so far. */
-  evaluations = 0;
-  /** Calls of dLogDensity so far. */
-  derivativeEvaluations = 0;
-
-  /**
-   * @param api - API name for messages
-   * @param logf - the log-density
-   * @param dlogf - its derivative, or undefined (secant construction)
-   * @param budget - maximal number of logDensity calls
-   */
-  constructor(
-    readonly api: string,
-    readonly logf: (x: number) => number,
-    readonly dlogf: ((x: number) => number) | undefined,
-    readonly budget: number,
-  ) {}
-
-  /** logDensity(x), checked for NaN and +Infinity. */
-  l(x: number): number {
-    if (++this.evaluations > this.budget) {
-      throw new ShapeViolationError(
-        `${this.api}: setup used ${this.budget} evaluations of logDensity without reaching a valid envelope; the target's shape could not be classified (a derivative inconsistent with logDensity, or a density with features at every scale?)`,
-      );
-    }
-    const v = this.logf(x);
-    if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(this.api, x, v);
-    return v;
-  }
-
-  /**
-   * dLogDensity(x) at a point where logDensity is `l`; NaN when there is no
-   * derivative, when l is -Infinity, or when the derivative is ±Infinity
-   * (no usable tangent there). A NaN derivative at a point of positive
-   * density throws.
-   */
-  g(x: number, l: number): number {
-    const d = this.dlogf;
-    if (d === undefined || l === -Infinity) return NaN;
-    this.derivativeEvaluations++;
-    const v = d(x);
-    if (typeof v !== 'number' || v !== v) throw new NonFiniteDensityError(`${this.api} (dLogDensity)`, x, v);
-    return v === Infinity || v === -Infinity ? NaN : v;
-  }
-}
 
 /** A scanned point. @internal */
 export interface ScanPoint {
@@ -129,11 +78,11 @@ export function scanTarget(
   let c: number | undefined;
   let lc = -Infinity;
   if (t.mode !== undefined) {
-    lc = ev.l(t.mode);
+    lc = ev.logDensity(t.mode);
     if (lc > -Infinity) c = t.mode;
   }
   if (c === undefined) {
-    const r = maximizeLog(api, (x: number) => ev.l(x), lower, upper, {});
+    const r = maximizeLog(api, (x: number) => ev.logDensity(x), lower, upper, {});
     if (r.risingTail === 'upper' && upper === Infinity) {
       throw new ImproperDensityError(`${api}: no decay found in the upper tail: logDensity keeps rising towards +Infinity (best point ${r.x}, logDensity ${r.value})`);
     }
@@ -141,7 +90,7 @@ export function scanTarget(
       throw new ImproperDensityError(`${api}: no decay found in the lower tail: logDensity keeps rising towards -Infinity (best point ${r.x}, logDensity ${r.value})`);
     }
     c = r.x;
-    lc = ev.l(c);
+    lc = ev.logDensity(c);
     if (!(lc > -Infinity)) {
       throw new InvalidTargetError(`${api}: the maximisation ended at x = ${c} where logDensity is -Infinity; give target.mode inside the support`);
     }
@@ -169,7 +118,7 @@ export function scanTarget(
       if (!Number.isFinite(x)) break;
       if (dir > 0 ? x >= end : x <= end) break;
       if (x === prevX) continue;
-      const l = ev.l(x);
+      const l = ev.logDensity(x);
       out.push({ x, l, g: NaN });
       if (l > logMax) logMax = l;
       if (l === -Infinity) zeros++;
@@ -191,7 +140,7 @@ export function scanTarget(
       for (let k = 1; k <= APPROACH_STEPS && span > 0; k++) {
         const x = end - dir * span * Math.pow(2, -k);
         if (x === end || x === lastX) break;
-        const l = ev.l(x);
+        const l = ev.logDensity(x);
         out.push({ x, l, g: NaN });
         if (l > logMax) logMax = l;
         if (l > -Infinity && last > -Infinity) rises.push(l - last);
@@ -199,7 +148,7 @@ export function scanTarget(
         lastX = x;
       }
       checkBoundedAtEnd(api, dir, end, rises, lastX);
-      const le = ev.l(end);
+      const le = ev.logDensity(end);
       if (le > logMax) logMax = le;
       out.push({ x: end, l: le, g: NaN });
     } else if (!stopped) {
@@ -244,10 +193,10 @@ export function scanTarget(
     for (let i = 0; i < m; i++) {
       const t = (i + (k + 1) / (levels + 1)) / m;
       const x = lo * (1 - t) + hi * t;
-      if (x > lo && x < hi) all.push({ x, l: ev.l(x), g: NaN });
+      if (x > lo && x < hi) all.push({ x, l: ev.logDensity(x), g: NaN });
     }
   }
-  for (const x of extra) all.push({ x, l: ev.l(x), g: NaN });
+  for (const x of extra) all.push({ x, l: ev.logDensity(x), g: NaN });
   for (const p of all) if (p.l > logMax) logMax = p.l;
 
   all.sort((p, q) => p.x - q.x);
@@ -267,7 +216,7 @@ export function scanTarget(
   const effLower = kept[0].l === -Infinity || Number.isFinite(lower) ? kept[0].x : -Infinity;
   const effUpper = kept[kept.length - 1].l === -Infinity || Number.isFinite(upper) ? kept[kept.length - 1].x : Infinity;
   checkBeyondZeros(api, ev, kept, lower, upper);
-  if (useDerivative) for (const p of kept) p.g = ev.g(p.x, p.l);
+  if (useDerivative) for (const p of kept) p.g = ev.derivative(p.x, p.l);
   return { points: kept, lower: effLower, upper: effUpper, centre, logMax, core: [a, b] };
 }
 
@@ -305,7 +254,7 @@ function checkBeyondZeros(api: string, ev: Evaluator, kept: readonly ScanPoint[]
       const x = edge + dir * width * Math.pow(2, k / 2);
       if (!Number.isFinite(x) || (dir > 0 ? x > bound : x < bound)) break;
       if (dir > 0 ? x <= end.x : x >= end.x) continue;
-      const l = ev.l(x);
+      const l = ev.logDensity(x);
       if (l === -Infinity) {
         zeroAt = x;
         continue;

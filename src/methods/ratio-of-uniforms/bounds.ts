@@ -5,6 +5,7 @@
  */
 import { maximizeLog } from '../../bounds/maximize.js';
 import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { CheckedTarget } from '../../core/validate.js';
 
 /**
@@ -86,15 +87,11 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
   const lf = (x: number): number => {
     evaluations++;
     const v = logDensity(x);
-    if (typeof v !== 'number' || v !== v) throw new NonFiniteDensityError(api, x, v);
-    if (v === Infinity) {
-      if (x === lower || x === upper) {
-        infiniteAt = x;
-        return -Infinity;
-      }
-      throw new NonFiniteDensityError(api, x, v);
+    if (v === Infinity && (x === lower || x === upper)) {
+      infiniteAt = x;
+      return -Infinity;
     }
-    return v;
+    return checkLogDensity(api, x, v);
   };
 
   // 1. sup of log f (u-bound: sup f^(1/(r+1)) = exp(sup log f / (r + 1))).

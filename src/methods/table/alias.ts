@@ -41,8 +41,8 @@
  * the last place.
  * @internal
  */
-import type { StripTable } from './build.js';
-import { R_SURE } from './build.js';
+import type { StripTable } from './strip-table.js';
+import { R_SURE } from './strip-table.js';
 
 /** Doubles per cell: P, B0, S0, B1, S1. @internal */
 export const CELL_STRIDE = 5;
@@ -66,9 +66,9 @@ export function buildAliasCells(t: StripTable): AliasCells {
   while (1 << bits < nr) bits++;
   const K = 1 << bits;
   let total = 0;
-  for (let r = 0; r < nr; r++) total += t.regArea[r];
+  for (let r = 0; r < nr; r++) total += t.regionArea[r];
   const q = new Float64Array(K);
-  for (let r = 0; r < nr; r++) q[r] = (t.regArea[r] * K) / total;
+  for (let r = 0; r < nr; r++) q[r] = (t.regionArea[r] * K) / total;
   const P = new Float64Array(K);
   const A = new Int32Array(K);
   const small = new Int32Array(K);
@@ -91,7 +91,7 @@ export function buildAliasCells(t: StripTable): AliasCells {
   }
   // what is left has q = 1 up to rounding
   let biggest = 0;
-  for (let r = 1; r < nr; r++) if (t.regArea[r] > t.regArea[biggest]) biggest = r;
+  for (let r = 1; r < nr; r++) if (t.regionArea[r] > t.regionArea[biggest]) biggest = r;
   for (const [arr, m] of [[small, ns], [large, nl]] as const) {
     for (let k = 0; k < m; k++) {
       const j = arr[k];
@@ -115,8 +115,8 @@ export function buildAliasCells(t: StripTable): AliasCells {
   const tab = new Float64Array(K * CELL_STRIDE);
   const invT = new Float64Array(nr);
   for (let r = 0; r < nr; r++) invT[r] = 1 / T[r];
-  const regType = t.regType;
-  const regStrip = t.regStrip;
+  const regType = t.regionType;
+  const regStrip = t.regionStrip;
   const xs = t.x;
   for (let j = 0; j < K; j++) {
     const base = j * CELL_STRIDE;

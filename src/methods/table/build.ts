@@ -58,129 +58,24 @@
  *
  * @packageDocumentation
  */
-import type { PiecewiseStrips } from './piecewise-build.js';
-import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
-import { evalLog } from '../../core/validate.js';
 import type { Counters } from '../../core/counters.js';
-import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../hull/hull.js';
-import type { Hull } from '../hull/hull.js';
-import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea } from '../hull/transforms.js';
-
-/** Region types of the alias table. @internal */
-export const R_SURE = 0;
-/** The cap of a strip, between its squeeze and its envelope. @internal */
-export const R_CAP = 2;
-/** The left tail. @internal */
-export const R_LEFT_TAIL = 3;
-/** The right tail. @internal */
-export const R_RIGHT_TAIL = 4;
+import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
+import { notConcave, shapeError } from '../envelope/concavity.js';
+import type { HullView } from '../envelope/hull-view.js';
+import { T_LOG, logHeight, pieceConstant, pieceLogArea } from '../envelope/transforms.js';
+import { stripRegions } from './strip-table.js';
+import type { StripTable, TailPiece } from './strip-table.js';
 
 /** Number of quantiles of the hull's envelope in the coarse grid. @internal */
 export const COARSE_POINTS = 81;
 /** The coarse quantiles run from this probability to 1 minus it, on a logistic scale. @internal */
 export const COARSE_EDGE = 1e-10;
 
-/** A tail piece: the back-transform of a line on [lo, hi], sampled from its high end `hx`. @internal */
-export interface TailPiece {
-  lo: number;
-  hi: number;
-  /** Anchor of the line (an end of the body) and its transformed value there. */
-  ax: number;
-  ay: number;
-  /** Slope of the line in transformed space. */
-  slope: number;
-  hx: number;
-  dir: number;
-  w: number;
-  sig: number;
-  th: number;
-  q: number;
-  /** Relative log area (add ref). */
-  logArea: number;
-}
-
-/** The regions of a strip table and their relative areas (see {@link stripRegions}). @internal */
-export interface StripRegions {
-  /** Regions: type, strip index, relative area. */
-  readonly regType: Int8Array;
-  readonly regStrip: Int32Array;
-  readonly regArea: Float64Array;
-  readonly regions: number;
-  /** Relative areas: sure rectangles, caps, tails. */
-  readonly sureArea: number;
-  readonly capArea: number;
-  readonly tailArea: number;
-}
-
-/** The strip table (everything but the alias cells); its regions are those of {@link stripRegions}. @internal */
-export interface StripTable extends StripRegions {
-  readonly api: string;
-  readonly kind: number;
-  /** Reference log height: relative values are those of f/e^ref. */
-  readonly ref: number;
-  /** Effective support. */
-  readonly lower: number;
-  readonly upper: number;
-  /** Number of strips. */
-  readonly n: number;
-  /** Boundaries x_0..x_n. */
-  readonly x: Float64Array;
-  /** logDensity at the boundaries. */
-  readonly l: Float64Array;
-  /** Transformed values at the boundaries (relative to ref). */
-  readonly y: Float64Array;
-  /** Chord slopes (NaN where an end has density 0). */
-  readonly c: Float64Array;
-  /** Per strip: log of the constant envelope M_i (absolute). */
-  readonly logUp: Float64Array;
-  /** Per strip: log of the constant squeeze m_i (absolute). */
-  readonly logLo: Float64Array;
-  /** Per strip: M_i/e^ref and m_i/e^ref. */
-  readonly up: Float64Array;
-  readonly lo: Float64Array;
-  /** Per strip: slopes of the left and right upper lines (chords of the neighbours; NaN when absent). */
-  readonly sL: Float64Array;
-  readonly sR: Float64Array;
-  /** Tails (null when empty). */
-  readonly left: TailPiece | null;
-  readonly right: TailPiece | null;
-  /** Set when the table was built over a piecewise envelope (then the T-concave fields y, c, sL, sR, left, right are unused). */
-  readonly pw: PiecewiseStrips | null;
-}
-
-/** Tolerance in transformed units for comparisons of points with log-densities la, lb (the hull's formula). @internal */
-export function tolY(kind: number, la: number, lb: number, ya: number, yb: number): number {
-  const tolL = HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(la) + Math.abs(lb));
-  if (kind === T_LOG) return tolL;
-  return 0.5 * Math.max(-ya, -yb) * tolL;
-}
-
-/**
- * True when (x1, y1) lies below the chord of (x0, y0) and (x2, y2) by more
- * than the tolerance: three points that no T-concave function passes through.
- * @internal
- */
-export function notConcave(kind: number, x0: number, y0: number, l0: number, x1: number, y1: number, l1: number, x2: number, y2: number, l2: number): boolean {
-  if (l0 === -Infinity || l2 === -Infinity) return false;
-  if (l1 === -Infinity) return true;
-  const interp = y0 + (y2 - y0) * ((x1 - x0) / (x2 - x0));
-  const tol = Math.max(tolY(kind, l0, l1, y0, y1), tolY(kind, l1, l2, y1, y2));
-  return !(y1 - interp >= -tol);
-}
-
-/** The shape error of the table, naming the interval. @internal */
-export function tableShapeError(api: string, kind: number, detail: string, a: number, b: number): ShapeViolationError {
-  const name = kind === T_LOG ? 'log-concave' : 'T-concave for T(f) = -1/sqrt(f)';
-  const hint = kind === T_LOG
-    ? " (for heavier tails try transform: 'inverse-sqrt'; for several modes use piecewiseSampler)"
-    : ' (for several modes use piecewiseSampler)';
-  return new ShapeViolationError(`${api}: target is not ${name} on [${a}, ${b}]: ${detail}${hint}`, [a, b]);
-}
-
 /** Inputs of {@link buildStripTable}. @internal */
 export interface StripTableInput {
   readonly api: string;
-  readonly hull: Hull;
+  readonly hull: HullView;
   readonly logDensity: (x: number) => number;
   readonly counters: Counters;
   readonly strips: number;
@@ -211,60 +106,6 @@ function expLinearInverse(A: number, B: number, w: number, p: number, m: number)
   return s > w ? w : s;
 }
 
-/** Quantiles of the hull's envelope at the increasing probabilities `ps`. */
-function hullQuantiles(h: Hull, ps: readonly number[]): number[] {
-  const n = 2 * h.k;
-  let total = 0;
-  for (let j = 0; j < n; j++) total += h.area[j];
-  const out: number[] = [];
-  let j = 0;
-  let before = 0;
-  for (const p of ps) {
-    const v = p * total;
-    while (j < n - 1 && before + h.area[j] <= v) {
-      before += h.area[j];
-      j++;
-    }
-    const a = h.area[j];
-    let frac = a > 0 ? (v - before) / a : 0.5;
-    // invertPiece measures the mass from the piece's high end, which is its upper end when dir = −1
-    if (h.dir[j] < 0) frac = 1 - frac;
-    if (!(frac >= 0)) frac = 0;
-    if (frac >= 1) frac = 0.9999999999999999;
-    const w = h.wd[j];
-    if (!(w > 0) || !(a > 0)) {
-      out.push(h.lo[j]);
-      continue;
-    }
-    const d = invertPiece(h.kind, h.pq[j], h.sig[j], w, frac);
-    let x = h.hx[j] + h.dir[j] * d;
-    if (x < h.lo[j]) x = h.lo[j];
-    else if (x > h.hi[j]) x = h.hi[j];
-    out.push(x);
-  }
-  return out;
-}
-
-/** Maximum of the hull's envelope (log, absolute) over [a, b]. */
-function hullMaxLog(h: Hull, a: number, b: number): number {
-  let best = -Infinity;
-  for (let j = 0; j < 2 * h.k; j++) {
-    const lo = h.lo[j];
-    const hi = h.hi[j];
-    if (!(hi >= lo) || hi < a || lo > b) continue;
-    const p = a > lo ? a : lo;
-    const q = b < hi ? b : hi;
-    const sl = h.sl[j];
-    for (const z of [p, q]) {
-      let t = h.at[j] + sl * (z - h.ax[j]);
-      if (t !== t) t = Infinity;
-      const v = logHeight(h.kind, t);
-      if (v > best) best = v;
-    }
-  }
-  return best + h.ref;
-}
-
 function makeTail(kind: number, lo: number, hi: number, ax: number, ay: number, slope: number): TailPiece {
   let hx: number;
   let dir: number;
@@ -280,58 +121,9 @@ function makeTail(kind: number, lo: number, hi: number, ax: number, ay: number, 
   const th = hx === Infinity || hx === -Infinity ? Infinity : ay + slope * (hx - ax);
   const logArea = th === Infinity || th !== th ? Infinity : pieceLogArea(kind, th, sig, w);
   const q = logArea < Infinity ? pieceConstant(kind, th, sig, w) : NaN;
-  return { lo, hi, ax, ay, slope, hx, dir, w, sig, th, q, logArea };
+  return { lo, hi, anchor: ax, anchorValue: ay, slope, highEnd: hx, direction: dir, width: w, rate: sig, highValue: th, inversion: q, logArea };
 }
 
-
-/**
- * The regions of a table of n strips with boundaries x, per-strip constant
- * envelope `up` and squeeze `lo` (relative heights; `logUp` −Infinity for a
- * strip of zero density), and tails of relative areas `leftArea`,
- * `rightArea` (0: none): for each strip its sure rectangle w·lo and its cap
- * w·(up − lo), where positive, then the tails. Shared by both table builders.
- * @internal
- */
-export function stripRegions(n: number, x: Float64Array, logUp: Float64Array, up: Float64Array, lo: Float64Array, leftArea: number, rightArea: number): StripRegions {
-  const maxReg = 2 * n + 2;
-  const regType = new Int8Array(maxReg);
-  const regStrip = new Int32Array(maxReg);
-  const regArea = new Float64Array(maxReg);
-  let r = 0;
-  let sureArea = 0;
-  let capArea = 0;
-  let tailArea = 0;
-  const add = (type: number, strip: number, a: number): void => {
-    regType[r] = type;
-    regStrip[r] = strip;
-    regArea[r] = a;
-    r++;
-  };
-  for (let i = 0; i < n; i++) {
-    const w = x[i + 1] - x[i];
-    if (!(w > 0) || logUp[i] === -Infinity) continue;
-    const sa = w * lo[i];
-    // the cap's area by subtraction: an absolute error of about 1e-16·w·M, far below any effect on the draws
-    const ca = w * (up[i] - lo[i]);
-    if (sa > 0) {
-      add(R_SURE, i, sa);
-      sureArea += sa;
-    }
-    if (ca > 0) {
-      add(R_CAP, i, ca);
-      capArea += ca;
-    }
-  }
-  if (leftArea > 0) {
-    add(R_LEFT_TAIL, -1, leftArea);
-    tailArea += leftArea;
-  }
-  if (rightArea > 0) {
-    add(R_RIGHT_TAIL, n, rightArea);
-    tailArea += rightArea;
-  }
-  return { regType, regStrip, regArea, regions: r, sureArea, capArea, tailArea };
-}
 
 /**
  * Builds the strip table from a hull after setup (see the module remarks).
@@ -344,7 +136,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   const upper = h.upper;
   const evaluate = (x: number): number => {
     counters.setupEvaluations++;
-    return evalLog(api, logDensity, x);
+    return checkLogDensity(api, x, logDensity(x));
   };
 
   // ----- coarse model ---------------------------------------------------------
@@ -352,8 +144,8 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   const S = Math.log((1 - COARSE_EDGE) / COARSE_EDGE);
   for (let i = 0; i < COARSE_POINTS; i++) ps.push(1 / (1 + Math.exp(S - (2 * S * i) / (COARSE_POINTS - 1))));
   const pts = new Map<number, number>();
-  for (let i = 0; i < h.k; i++) pts.set(h.tx[i], h.tl[i]);
-  const qs = hullQuantiles(h, ps);
+  for (let i = 0; i < h.touchPointCount(); i++) pts.set(h.touchPointX(i), h.touchPointLogDensity(i));
+  const qs = h.envelopeQuantiles(ps);
   if (lower > -Infinity) qs.push(lower);
   if (upper < Infinity) qs.push(upper);
   for (const x of qs) if (!pts.has(x) && x >= lower && x <= upper) pts.set(x, evaluate(x));
@@ -486,15 +278,14 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   const l = new Float64Array(n + 1);
   let ref = -Infinity;
   // the ends may be coarse points already evaluated; inner boundaries are new points
-  // (the loop inlines evalLog: this is the one loop of setup that runs once per strip)
   for (let i = 0; i <= n; i++) {
     const xi = x[i];
     let v: number;
     if ((i === 0 || i === n) && pts.has(xi)) v = pts.get(xi) as number;
     else {
-      v = logDensity(xi);
+      const raw = logDensity(xi);
       counters.setupEvaluations++;
-      if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(api, xi, v);
+      v = checkLogDensity(api, xi, raw);
     }
     l[i] = v;
     if (v > ref) ref = v;
@@ -506,7 +297,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   while (l[f1] === -Infinity) f1--;
   for (let i = f0; i <= f1; i++) {
     if (l[i] === -Infinity) {
-      throw tableShapeError(api, kind, `logDensity(${x[i]}) is -Infinity between points of finite log-density, so the support is not an interval`, x[i - 1], x[i + 1]);
+      throw shapeError(api, kind, `logDensity(${x[i]}) is -Infinity between points of finite log-density, so the support is not an interval`, x[i - 1], x[i + 1]);
     }
   }
   const y = new Float64Array(n + 1);
@@ -527,7 +318,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
     const interp = y[i - 1] + (y[i + 1] - y[i - 1]) * ((x[i] - x[i - 1]) / (x[i + 1] - x[i - 1]));
     if (y[i] - interp >= 0) continue;
     if (notConcave(kind, x[i - 1], y[i - 1], l[i - 1], x[i], y[i], l[i], x[i + 1], y[i + 1], l[i + 1])) {
-      throw tableShapeError(
+      throw shapeError(
         api,
         kind,
         `the chord slopes of the transformed density must not increase, but they are ${c[i - 1]} on [${x[i - 1]}, ${x[i]}] and ${c[i]} on [${x[i]}, ${x[i + 1]}] (log-density ${l[i - 1]}, ${l[i]}, ${l[i + 1]})`,
@@ -581,7 +372,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
         }
       }
       const secant = t !== t ? Infinity : logHeight(kind, t) + ref;
-      const hullBound = hullMaxLog(h, x[i], x[i + 1]);
+      const hullBound = h.maxLogEnvelope(x[i], x[i + 1]);
       u = Math.min(secant, hullBound);
       const top = la > lb ? la : lb;
       if (!(u >= top)) u = top; // rounding: the bound can never be below the values it bounds
@@ -620,7 +411,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
     throw new ImproperDensityError(`${api}: the table's envelope area is ${total} (relative to e^${ref}) on [${lower}, ${upper}]`);
   }
   return {
-    api, kind, ref, lower, upper, n, x, l, y, c, logUp, logLo, up, lo, sL, sR, left, right,
-    ...regions, pw: null,
+    api, kind, ref, lower, upper, n, x, l, y, chordSlope: c, logUp, logLo, up, lo, leftLineSlope: sL, rightLineSlope: sR, left, right,
+    ...regions, piecewise: null,
   };
 }

@@ -3,10 +3,10 @@
  *
  * @packageDocumentation
  */
-import type { EnvelopeDescription, EnvelopePiece } from '../hull/describe.js';
-import { T_LOG, pieceLogArea, transformValue } from '../hull/transforms.js';
+import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description.js';
+import { T_LOG, pieceLogArea, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
-import type { StripTable, TailPiece } from './build.js';
+import type { StripTable, TailPiece } from './strip-table.js';
 
 /**
  * The strip table of a {@link TableSampler}: the body cut into strips, each
@@ -70,7 +70,7 @@ function tailPiece(t: StripTable, p: TailPiece | null, at: number): EnvelopePiec
   if (p === null) {
     return { lower: at, upper: at, anchor: at, value: -Infinity, slope: 0, squeezeAnchor: at, squeezeValue: -Infinity, squeezeSlope: 0, logArea: -Infinity };
   }
-  return { lower: p.lo, upper: p.hi, anchor: p.ax, value: p.ay, slope: p.slope, squeezeAnchor: p.ax, squeezeValue: -Infinity, squeezeSlope: 0, logArea: p.logArea + t.ref };
+  return { lower: p.lo, upper: p.hi, anchor: p.anchor, value: p.anchorValue, slope: p.slope, squeezeAnchor: p.anchor, squeezeValue: -Infinity, squeezeSlope: 0, logArea: p.logArea + t.ref };
 }
 
 /**
@@ -88,7 +88,7 @@ export function describeTableEnvelope(t: StripTable, derivativeEvaluations: numb
     const a = t.x[i];
     const b = t.x[i + 1];
     const w = b - a;
-    const ci = t.c[i];
+    const ci = t.chordSlope[i];
     const hasSq = ci === ci;
     const hiEnd = t.y[i] >= t.y[i + 1] ? a : b;
     const hiY = t.y[i] >= t.y[i + 1] ? t.y[i] : t.y[i + 1];

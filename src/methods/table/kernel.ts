@@ -4,16 +4,17 @@
  * @packageDocumentation
  */
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, NonFiniteDensityError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
-import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE } from '../hull/hull.js';
-import { T_LOG, invertPiece, logHeight, transformValue } from '../hull/transforms.js';
+import { notConcave, shapeError } from '../envelope/concavity.js';
+import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
+import { logTolerance } from '../envelope/tolerance.js';
+import { T_LOG, invertPiece, logHeight, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
-import type { StripTable, TailPiece } from './build.js';
-import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL, notConcave, tableShapeError } from './build.js';
-import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from '../piecewise/kernel.js';
-import type { PiecewiseStrips } from './piecewise-build.js';
+import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL } from './strip-table.js';
+import type { PiecewiseStrips, StripTable, TailPiece } from './strip-table.js';
 
 /** The largest double below 1. */
 const BELOW_ONE = 0.9999999999999999;
@@ -94,10 +95,9 @@ export function tableFill(st: TableState, out: Float64Array, n: number, counters
   }
 }
 
-/** Log-units tolerance of a comparison with log-density lf (the hull's). */
+/** Log-units tolerance of a comparison with the absolute log-density lf. */
 function tolLog(ref: number, lf: number): number {
-  const lr = lf - ref;
-  return HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * (Math.abs(ref) + Math.abs(lr === -Infinity ? 0 : lr));
+  return logTolerance(ref, lf - ref);
 }
 
 /**
@@ -114,12 +114,12 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const r = -(own ? tab[o + 2] : tab[o + 4]) - 1;
   let pos = b + v * st.cells.invT[r];
   pos = pos < 0 ? 0 : pos >= 1 ? BELOW_ONE : pos;
-  const type = tb.regType[r];
-  const pw = tb.pw;
+  const type = tb.regionType[r];
+  const pw = tb.piecewise;
   if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
     return pw === null ? hullTailCandidate(st, counters, type, pos, blk) : piecewiseTailCandidate(st, counters, pw, type, pos, blk);
   }
-  const i = tb.regStrip[r];
+  const i = tb.regionStrip[r];
   const a = tb.x[i];
   const bb = tb.x[i + 1];
   let x = a + (bb - a) * pos;
@@ -143,11 +143,11 @@ function hullTailCandidate(st: TableState, counters: Counters, type: number, pos
   const kind = tb.kind;
   const ref = tb.ref;
   const p = (type === R_LEFT_TAIL ? tb.left : tb.right) as TailPiece;
-  const d = invertPiece(kind, p.q, p.sig, p.w, pos);
-  let x = p.hx + p.dir * d;
+  const d = invertPiece(kind, p.inversion, p.rate, p.width, pos);
+  let x = p.highEnd + p.direction * d;
   if (x < p.lo) x = p.lo;
   else if (x > p.hi) x = p.hi;
-  const lenv = logHeight(kind, p.ay + p.slope * (x - p.ax));
+  const lenv = logHeight(kind, p.anchorValue + p.slope * (x - p.anchor));
   const lf = evaluate(st, counters, x);
   if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
   const u = blk.next();
@@ -165,14 +165,14 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
   const th = kind === T_LOG ? Math.log(hv) : -1 / Math.sqrt(hv);
   // chord squeeze, anchored at its higher end
   const y = tb.y;
-  const ci = tb.c[i];
+  const ci = tb.chordSlope[i];
   const sq = ci === ci ? (y[i] >= y[i + 1] ? y[i] + ci * (x - a) : y[i + 1] + ci * (x - bb)) : -Infinity;
   if (th < sq) {
     st.accepted = true;
     return;
   }
-  const sl = tb.sL[i];
-  const sr = tb.sR[i];
+  const sl = tb.leftLineSlope[i];
+  const sr = tb.rightLineSlope[i];
   const tl = sl === sl ? y[i] + sl * (x - a) : Infinity;
   const tr = sr === sr ? y[i + 1] + sr * (x - bb) : Infinity;
   const ul = tl < tr ? tl : tr;
@@ -197,7 +197,7 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
  * the piece's envelope or squeeze throws {@link EnvelopeViolationError}.
  */
 function piecewiseTailCandidate(st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock): number {
-  const t = pw.t;
+  const t = pw.tables;
   const ref = st.table.ref;
   const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
   const cum = type === R_LEFT_TAIL ? pw.cumL : pw.cumR;
@@ -225,7 +225,7 @@ function piecewiseTailCandidate(st: TableState, counters: Counters, pw: Piecewis
 
 /** A cap of a table over a piecewise envelope at x in strip i with height hv: the piece's squeeze and envelope at x, then the target. Sets `st.accepted`. */
 function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number): void {
-  const t = pw.t;
+  const t = pw.tables;
   const ref = st.table.ref;
   let j = pw.first[i];
   const jEnd = pw.last[i];
@@ -249,7 +249,7 @@ function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i
 /** Throws EnvelopeViolationError when lf lies above the piece's envelope or below its squeeze (relative logs env, sq). */
 function checkPiecewise(api: string, x: number, lf: number, ref: number, env: number, sq: number): void {
   const lr = lf - ref;
-  const tol = piecewiseTolerance(ref, lr);
+  const tol = logTolerance(ref, lr);
   if (lr > env + tol) throw new EnvelopeViolationError(api, x, lf, env + ref, 'envelope');
   if (lr < sq - tol) throw new EnvelopeViolationError(api, x, lf, sq + ref, 'squeeze');
 }
@@ -258,8 +258,7 @@ function checkPiecewise(api: string, x: number, lf: number, ref: number, env: nu
 function evaluate(st: TableState, counters: Counters, x: number): number {
   const lf = st.logDensity(x);
   counters.densityEvaluations++;
-  if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(st.table.api, x, lf);
-  return lf;
+  return checkLogDensity(st.table.api, x, lf);
 }
 
 /**
@@ -287,7 +286,7 @@ function violation(st: TableState, x: number, lf: number, bound: number, what: '
   const rel = what === 'envelope' ? 'above the envelope' : 'below the squeeze';
   for (const q of triples) {
     if (notConcave(kind, ...q)) {
-      throw tableShapeError(
+      throw shapeError(
         tb.api,
         kind,
         `target is ${rel} at x = ${x} (log target ${lf}, log ${what} ${bound}): the points ${q[0]}, ${q[3]}, ${q[6]} (log-density ${q[2]}, ${q[5]}, ${q[8]}) have increasing chord slopes of the transformed density`,

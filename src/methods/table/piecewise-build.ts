@@ -37,12 +37,14 @@
  * @internal
  */
 import type { Counters } from '../../core/counters.js';
-import { InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
-import { T_LOG } from '../hull/transforms.js';
-import type { Tables } from '../piecewise/grid.js';
-import { pieceLogEnvelope, pieceLogSqueeze, piecewiseTolerance } from '../piecewise/kernel.js';
-import { stripRegions } from './build.js';
-import type { StripTable } from './build.js';
+import { InvalidTargetError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
+import { pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
+import type { Tables } from '../envelope/piece-tables.js';
+import { logTolerance } from '../envelope/tolerance.js';
+import { T_LOG } from '../envelope/transforms.js';
+import { stripRegions } from './strip-table.js';
+import type { PiecewiseStrips, StripTable } from './strip-table.js';
 
 /** Strips per unit of log-envelope variation inside a piece (at most 0.1 per strip in massive pieces). @internal */
 const STRIPS_PER_LOG_UNIT = 10;
@@ -50,21 +52,6 @@ const STRIPS_PER_LOG_UNIT = 10;
 const STEEP_MIN_SHARE = 1e-4;
 /** A run of light pieces merged into one strip spans at most this much log-envelope variation. @internal */
 const MERGE_MAX_LOG_VARIATION = 0.5;
-
-/** The piecewise part of a strip table built by {@link buildPiecewiseStripTable}. @internal */
-export interface PiecewiseStrips {
-  /** The piecewise envelope the table was built on. */
-  readonly t: Tables;
-  /** Per strip: indices of its first and last piece (equal when a piece is subdivided; a run of light pieces otherwise). */
-  readonly first: Int32Array;
-  readonly last: Int32Array;
-  /** Pieces of the left tail region, left to right, and their cumulative relative areas. */
-  readonly tailL: Int32Array;
-  readonly cumL: Float64Array;
-  /** Pieces of the right tail region, left to right, and their cumulative relative areas. */
-  readonly tailR: Int32Array;
-  readonly cumR: Float64Array;
-}
 
 /** A boundary value outside the piecewise envelope or squeeze (for a repair). @internal */
 export interface BoundaryViolation {
@@ -103,7 +90,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
     total += area[j];
   }
   if (!(total > 0 && total < Infinity)) throw new InvalidTargetError(`${api}: the piecewise envelope has area ${total} (relative to e^${ref})`);
-  const finite = (j: number): boolean => t.lo[j] > -Infinity && t.hi[j] < Infinity && t.w[j] > 0;
+  const finite = (j: number): boolean => t.lo[j] > -Infinity && t.hi[j] < Infinity && t.width[j] > 0;
   const eps = inp.tailMass * total;
   // body: pieces jL..jR
   let jL = 0;
@@ -180,12 +167,12 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
   const violations: BoundaryViolation[] = [];
   for (let b = 0; b <= n; b++) {
     const xb = x[b];
-    const v = logDensity(xb);
+    const raw = logDensity(xb);
     counters.setupEvaluations++;
-    if (v !== v || v === Infinity || typeof v !== 'number') throw new NonFiniteDensityError(api, xb, v);
+    const v = checkLogDensity(api, xb, raw);
     l[b] = v;
     const lr = v - ref;
-    const tol = piecewiseTolerance(ref, lr);
+    const tol = logTolerance(ref, lr);
     const j0 = b > 0 ? pLast[b - 1] : pFirst[0];
     const j1 = b < n ? pFirst[b] : pLast[n - 1];
     for (let j = Math.min(j0, j1); j <= Math.max(j0, j1); j++) {
@@ -246,7 +233,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
   const rightArea = right.cum.length > 0 ? right.cum[right.cum.length - 1] : 0;
   const regions = stripRegions(n, x, logUp, up, lo, leftArea, rightArea);
   const nan = (k: number): Float64Array => new Float64Array(k).fill(NaN);
-  const pw: PiecewiseStrips = { t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum };
+  const pw: PiecewiseStrips = { tables: t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum };
   const table: StripTable = {
     api,
     kind: T_LOG,
@@ -257,17 +244,17 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
     x,
     l,
     y: nan(n + 1),
-    c: nan(n),
+    chordSlope: nan(n),
     logUp,
     logLo,
     up,
     lo,
-    sL: nan(n),
-    sR: nan(n),
+    leftLineSlope: nan(n),
+    rightLineSlope: nan(n),
     left: null,
     right: null,
     ...regions,
-    pw,
+    piecewise: pw,
   };
   return { table, violations };
 }

@@ -20,6 +20,8 @@ describe('adaptiveRejectionSampler evaluation counts', () => {
     console.log(
       `normal(0,1): evaluations per draw over the first 10,000 draws ${overall.toFixed(5)}, over draws 10,001-20,000 ${steady.toFixed(5)}; setup ${a.setupEvaluations}; touch points ${s.envelope.touchPoints.length}`,
     );
+    // regression guard: 0.0059 and 0.0031 were observed (seed 1, printed above; DEFAULT_MAX_PIECES
+    // remarks); 0.02 is a margin above them, not a derived bound
     expect(overall).toBeLessThan(0.02);
     expect(steady).toBeLessThan(0.02);
   });
@@ -44,6 +46,7 @@ describe('adaptiveRejectionSampler evaluation counts', () => {
     console.log(
       `Gibbs-style gamma workload: logDensity calls per fresh draw ${tangent.evals.toFixed(3)} with tangents (plus ${tangent.derivatives.toFixed(3)} dLogDensity calls), ${secant.evals.toFixed(3)} derivative-free`,
     );
+    // regression guard: 3.57 evaluations per fresh draw were observed (printed above); 6 is a margin
     expect(tangent.evals).toBeLessThanOrEqual(6);
   });
 });

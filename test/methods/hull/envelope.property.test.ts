@@ -11,7 +11,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
 import type { AdaptiveRejectionOptions, AdaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
-import { evaluateEnvelope } from '../../../src/methods/hull/describe.js';
+import { evaluateEnvelope } from '../../../src/methods/envelope/description.js';
 import type { Target } from '../../../src/core/types.js';
 import { betaTarget } from '../../../src/targets/beta.js';
 import { gammaTarget } from '../../../src/targets/gamma.js';

@@ -4,7 +4,7 @@
  * twin at the same n that must be rejected.
  *
  * References: @stdlib/stats-base-dists-{normal,gamma,beta,t}-cdf, accurate
- * for these parameters per the project's REFERENCES.md (gamma only below
+ * for these parameters per test/reference/README.md (gamma only below
  * shape 1000); the truncated normal on [8, ∞) uses
  * 1 − erfc(x/√2)/erfc(8/√2) with @stdlib/math-base-special-erfc.
  */

@@ -3,7 +3,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
-import { evaluateEnvelope } from '../../../src/methods/hull/describe.js';
+import { evaluateEnvelope } from '../../../src/methods/envelope/description.js';
 import { betaTarget } from '../../../src/targets/beta.js';
 import { gammaTarget } from '../../../src/targets/gamma.js';
 import { normalTarget } from '../../../src/targets/normal.js';
@@ -28,7 +28,7 @@ describe('adaptiveRejectionSampler streams', () => {
   it('adaptiveRejectionSampler(normal(0, 1), seed 1): golden first five draws', () => {
     // Stream-stability snapshot recorded from this implementation (not a
     // correctness reference): a change here changes users' streams and must be
-    // noted in CHANGELOG.md (DESIGN.md, "Reproducible").
+    // noted in CHANGELOG.md (DEVELOPERS.md, "Stream-stability policy").
     const xs = draw(adaptiveRejectionSampler(normalTarget(0, 1), { seed: 1 }), 5);
     expect(Array.from(xs)).toEqual(GOLDEN);
   });

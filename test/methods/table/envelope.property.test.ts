@@ -12,7 +12,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Target } from '../../../src/core/types.js';
-import { evaluateEnvelope } from '../../../src/methods/hull/describe.js';
+import { evaluateEnvelope } from '../../../src/methods/envelope/description.js';
 import { tableSampler } from '../../../src/methods/table-sampler.js';
 import type { TableSamplerOptions } from '../../../src/methods/table-sampler.js';
 import { betaTarget } from '../../../src/targets/beta.js';

@@ -1,6 +1,8 @@
 /**
- * The two transforms of the hull engine: T = log (Gilks & Wild 1992) and
- * T(f) = −1/√f (Hörmann 1995). @internal
+ * The two transforms of the envelope engines: T = log (Gilks & Wild 1992)
+ * and T(f) = −1/√f (Hörmann 1995), and the formulas of one envelope piece
+ * (area, inversion, envelope at a point). Every kernel, builder, description
+ * and test uses these functions; none keeps a copy. @internal
  *
  * @remarks
  * Every function here works on densities divided by a reference height
@@ -119,8 +121,8 @@ export function pieceLogArea(kind: number, tH: number, sig: number, w: number): 
 /**
  * Distance from the high end of a piece at which its normalized envelope cdf
  * equals `u` in [0, 1), clamped to [0, w]. `q` is {@link pieceConstant}.
- * The kernel inlines the same formulas; this copy serves the description and
- * the tests.
+ * Used by every kernel (hull, piecewise, table), the descriptions and the
+ * tests.
  * @internal
  */
 export function invertPiece(kind: number, q: number, sig: number, w: number, u: number): number {
@@ -131,4 +133,17 @@ export function invertPiece(kind: number, q: number, sig: number, w: number, u: 
     d = w === Infinity ? u / ((1 - u) * q) : (u * w) / (1 + (1 - u) * q * w);
   }
   return d > w ? w : d;
+}
+
+/**
+ * Relative log envelope of a piece stored in height form, at distance
+ * `dd ≥ 0` from its high end where the relative log height is `href`:
+ * log: href − sig·dd; inverse-sqrt, with the line scaled to −1 at the high
+ * end (so `sig` is the rate r = sig/a of the module remarks):
+ * href − 2·log1p(sig·dd). The piecewise tables store every piece this way;
+ * the hull stores lines and uses {@link logHeight}.
+ * @internal
+ */
+export function pieceLogEnvelopeAt(kind: number, href: number, sig: number, dd: number): number {
+  return kind === T_LOG ? href - sig * dd : href - 2 * Math.log1p(sig * dd);
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { exactSampler, gammaTarget, normalTarget, studentTTarget, FAST_PATH_MIN_DRAWS } from '../../src/index.js';
-import { draw, expectFits, expectRejects } from '../helpers/statistical.js';
+import { exactSampler, gammaTarget, normalTarget, studentTTarget, FAST_PATH_MIN_DRAWS } from '../../../src/index.js';
+import { draw, expectFits, expectRejects } from '../../helpers/statistical.js';
 
 describe('exactSampler with expectedDraws (fast path wiring)', () => {
   it('exactSampler uses the table-driven fast path from FAST_PATH_MIN_DRAWS expected draws and stays exact', () => {
@@ -9,7 +9,7 @@ describe('exactSampler with expectedDraws (fast path wiring)', () => {
     expect(s.choice.method).toBe('adaptive-rejection');
     expect(s.choice.reason).toContain('fast path');
     expect('table' in s.sampler).toBe(true);
-    // cdf from @stdlib/stats-base-dists-gamma-cdf (accurate at shape 2.5, REFERENCES.md)
+    // cdf from @stdlib/stats-base-dists-gamma-cdf (accurate at shape 2.5, test/reference/README.md)
     expectFits(draw(s, 20_000), t.cdf!, 'fast gamma(2.5)');
     // twin: the same sampler's draws checked against gamma(2.6) are rejected
     expectRejects(draw(exactSampler(t, { seed: 32, expectedDraws: 1e5 }), 20_000), gammaTarget(2.6, 1).cdf!, 'twin');

@@ -9,11 +9,11 @@ import {
   gammaTarget,
   normalTarget,
   studentTTarget,
-} from '../../src/index.js';
-import type { ExactSamplerOptions, Target } from '../../src/index.js';
-import { multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../helpers/fixtures.js';
-import { quadratureCdf } from '../helpers/quadrature.js';
-import { draw, expectFits, expectInSupport, expectRejects, expectReproducible } from '../helpers/statistical.js';
+} from '../../../src/index.js';
+import type { ExactSamplerOptions, Target } from '../../../src/index.js';
+import { multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../../helpers/fixtures.js';
+import { quadratureCdf } from '../../helpers/quadrature.js';
+import { draw, expectFits, expectInSupport, expectRejects, expectReproducible } from '../../helpers/statistical.js';
 
 const N = 20_000;
 

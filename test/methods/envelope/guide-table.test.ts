@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { chiSquareCheck } from '../../../src/checks/chi-square.js';
-import { GuideTable } from '../../../src/methods/hull/guide-table.js';
+import { GuideTable } from '../../../src/methods/envelope/guide-table.js';
 import { mersenneTwister } from '../../../src/random/mersenne-twister.js';
 import { ALPHA } from '../../helpers/statistical.js';
 

@@ -3,7 +3,7 @@
  * written independently here and against Simpson quadrature.
  */
 import { describe, expect, it } from 'vitest';
-import { T_INV_SQRT, T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../../../src/methods/hull/transforms.js';
+import { T_INV_SQRT, T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../../../src/methods/envelope/transforms.js';
 import { simpson } from '../../helpers/quadrature.js';
 
 /** Log of ∫_0^w e^(tH − s·d) dd by Simpson quadrature (common practice). */

@@ -33,12 +33,6 @@ export class GuideTable {
     this.guide = new Int32Array(capacity);
   }
 
-  /** Reallocates for a larger number of pieces (setup only). */
-  grow(capacity: number): void {
-    this.cum = new Float64Array(capacity);
-    this.guide = new Int32Array(capacity);
-  }
-
   /** Uses the given arrays (views of a caller's store, each of the same length ≥ the number of pieces) as storage. */
   useStorage(cum: Float64Array, guide: Int32Array): void {
     this.cum = cum;
@@ -72,7 +66,7 @@ export class GuideTable {
     return s;
   }
 
-  /** Index of the piece selected by the uniform `u` in [0, 1) (the kernel inlines this). */
+  /** Index of the piece selected by the uniform `u` in [0, 1) (the kernels inline this three-line walk for speed; the tests pin it to this one). */
   lookup(u: number): number {
     const cum = this.cum;
     const v = u * this.total;

@@ -119,7 +119,7 @@ describe('tableSampler streams', () => {
   it('tableSampler(normal(0, 1), seed 1) and (gamma(2.5), 10 strips, seed 1): golden first five draws', () => {
     // Stream-stability snapshots recorded from this implementation (not correctness
     // references): a change here changes users' streams and must be noted in
-    // CHANGELOG.md (DESIGN.md, "Reproducible").
+    // CHANGELOG.md (DEVELOPERS.md, "Stream-stability policy").
     expect(Array.from(draw(tableSampler(normalTarget(0, 1), { seed: 1 }), 5))).toEqual(GOLDEN_NORMAL);
     expect(Array.from(draw(tableSampler(gammaTarget(2.5), { seed: 1, strips: 10 }), 5))).toEqual(GOLDEN_GAMMA_10);
   });

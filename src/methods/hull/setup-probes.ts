@@ -1,0 +1,132 @@
+/**
+ * The probing strategy of hull setup: where to evaluate the target next so
+ * that the envelope becomes valid and integrable (outward steps that
+ * accelerate on unbounded sides, halving towards finite ends, the peak of a
+ * piece that rises too high). Only setup uses it; the hull itself is storage
+ * and geometry. @internal
+ *
+ * @packageDocumentation
+ */
+import { ImproperDensityError } from '../../core/errors.js';
+import { T_LOG, logHeight } from '../envelope/transforms.js';
+import { SETUP_MAX_RELATIVE_HEIGHT } from './hull.js';
+import type { Hull } from './hull.js';
+
+/** Next setup probes for a hull (keeps the outward step lengths). @internal */
+export class SetupProbes {
+  private leftStep = 0;
+  private rightStep = 0;
+  private leftGrowth = 2;
+  private rightGrowth = 2;
+
+  /**
+   * @param hull - the hull being set up
+   * @param scale - length scale of the first outward step
+   */
+  constructor(
+    private readonly hull: Hull,
+    private readonly scale: number,
+  ) {}
+
+  /**
+   * The next point setup should probe so that the envelope becomes valid
+   * and integrable, or NaN when it already is.
+   * @throws {@link ImproperDensityError} when a tail cannot be bounded
+   */
+  next(): number {
+    const h = this.hull;
+    const k = h.k;
+    const tx = h.touchX;
+    const spread = k > 1 ? tx[k - 1] - tx[0] : 0;
+    const base = Math.max(spread, this.scale, Math.abs(tx[0]) * 4.4e-16, 5e-324);
+    if (!h.tangent && k < 3) {
+      // derivative-free hulls need three touch points
+      if (h.upper > tx[k - 1]) return this.outward(1, base);
+      if (h.lower < tx[0]) return this.outward(-1, base);
+      return tx[0] + 0.5 * (tx[1] - tx[0]);
+    }
+    const sL = h.leftTailSlope();
+    if (h.lower === -Infinity) {
+      if (!(sL * 1e300 > 1)) return this.outward(-1, base);
+    } else if (h.kind !== T_LOG && tx[0] > h.lower && !(h.touchValue[0] + sL * (h.lower - tx[0]) < 0)) {
+      return this.towardBound(-1);
+    }
+    const sR = h.rightTailSlope();
+    if (h.upper === Infinity) {
+      if (!(-sR * 1e300 > 1)) return this.outward(1, base);
+    } else if (h.kind !== T_LOG && tx[k - 1] < h.upper && !(h.touchValue[k - 1] + sR * (h.upper - tx[k - 1]) < 0)) {
+      return this.towardBound(1);
+    }
+    // the hull must not rise far above the touch points
+    let topTouch = -Infinity;
+    for (let i = 0; i < k; i++) if (h.touchLogDensity[i] > topTouch) topTouch = h.touchLogDensity[i];
+    let worst = -1;
+    let worstH = topTouch - h.ref + SETUP_MAX_RELATIVE_HEIGHT;
+    const last = 2 * k - 1;
+    for (let j = 0; j <= last; j++) {
+      if (!(h.width[j] > 0)) continue;
+      const height = logHeight(h.kind, h.highValue[j]);
+      if (!(height <= worstH)) {
+        worst = j;
+        worstH = height;
+        if (height !== height) break;
+      }
+    }
+    if (worst === 0) return this.towardBound(-1);
+    if (worst === last) return this.towardBound(1);
+    if (worst > 0) {
+      // probe where the line peaks: the end of the piece that is not a touch point
+      const i = (worst - 1) >> 1;
+      const z = (worst & 1) === 1 ? h.hi[worst] : h.lo[worst];
+      const a = tx[i];
+      const b = tx[i + 1];
+      return z > a && z < b ? z : a + 0.5 * (b - a);
+    }
+    return NaN;
+  }
+
+  /** A point outside the touch points on side `side`, further out at each call. */
+  private outward(side: number, base: number): number {
+    const h = this.hull;
+    const k = h.k;
+    if (side < 0) {
+      // accelerating steps (×2, ×4, ×8, …): a tail that never decays reaches 1e300 in a few dozen probes
+      if (this.leftStep > 0) {
+        this.leftStep *= this.leftGrowth;
+        this.leftGrowth *= 2;
+      } else {
+        this.leftStep = base;
+      }
+      const x = h.touchX[0] - this.leftStep;
+      if (!(x > -1e300)) this.improper(-1);
+      return x > h.lower ? x : h.touchX[0] - 0.5 * (h.touchX[0] - h.lower);
+    }
+    if (this.rightStep > 0) {
+      this.rightStep *= this.rightGrowth;
+      this.rightGrowth *= 2;
+    } else {
+      this.rightStep = base;
+    }
+    const x = h.touchX[k - 1] + this.rightStep;
+    if (!(x < 1e300)) this.improper(1);
+    return x < h.upper ? x : h.touchX[k - 1] + 0.5 * (h.upper - h.touchX[k - 1]);
+  }
+
+  private towardBound(side: number): number {
+    const h = this.hull;
+    const k = h.k;
+    const t = side < 0 ? h.touchX[0] : h.touchX[k - 1];
+    const bnd = side < 0 ? h.lower : h.upper;
+    const mid = t + 0.5 * (bnd - t);
+    return Math.abs(bnd - t) <= 1e-12 * Math.max(1, Math.abs(t)) || mid === t ? bnd : mid;
+  }
+
+  private improper(side: number): never {
+    const h = this.hull;
+    const k = h.k;
+    const x = side < 0 ? h.touchX[0] : h.touchX[k - 1];
+    throw new ImproperDensityError(
+      `${h.api}: the ${side < 0 ? 'left' : 'right'} tail does not decay: logDensity keeps ${side < 0 ? 'increasing towards -Infinity' : 'increasing towards +Infinity'} (last touch point x = ${x}, logDensity = ${side < 0 ? h.touchLogDensity[0] : h.touchLogDensity[k - 1]}); the density has infinite mass, or its mode lies beyond ±1e300`,
+    );
+  }
+}
