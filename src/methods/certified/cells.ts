@@ -233,6 +233,12 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
   c.dLo[j] = dl;
   c.dHi[j] = dh;
   const w = b - a;
+  if (c.aLo[j] > bh || c.zLo[j] > bh) {
+    const x = c.aLo[j] > bh ? a : b;
+    throw new InvalidTargetError(
+      `${api}: the bounds of the target contradict each other on the cell [${a}, ${b}]: logDensityBounds(${x}, ${x}) gives log f >= ${c.aLo[j] > bh ? c.aLo[j] : c.zLo[j]} but logDensityBounds(${a}, ${b}) gives log f <= ${bh}`,
+    );
+  }
   const aH = c.aHi[j];
   const aL = c.aLo[j];
   const zH = c.zHi[j];

@@ -21,8 +21,8 @@ function lse(v: readonly number[]): number {
   return m + Math.log(s);
 }
 
-const widenLo = (v: number): number => (v === -Infinity ? v : v - WIDEN * (1 + Math.abs(v)));
-const widenHi = (v: number): number => (v === Infinity ? v : v + WIDEN * (1 + Math.abs(v)));
+const widenLo = (v: number): number => (!Number.isFinite(v) ? v : v - WIDEN * (1 + Math.abs(v)));
+const widenHi = (v: number): number => (!Number.isFinite(v) ? v : v + WIDEN * (1 + Math.abs(v)));
 
 /** Range of (x − μ)² over [a, b]: 0 inside, else the nearer end; the farther end is the max. */
 function sqRange(a: number, b: number, mu: number): [number, number] {
@@ -146,5 +146,37 @@ export function jumpTarget(h = 2): Target & { cdf: (x: number) => number } {
       return [widenLo(-b + (inside ? lh : 0)), widenHi(-a + (meets ? lh : 0))] as const;
     },
     cdf: (x: number) => (x <= 0 ? 0 : x >= 3 ? 1 : mass(x) / total),
+  };
+}
+
+/**
+ * A gamma-like density with parameters k (shape) and θ (scale):
+ * log f = (k − 1) log x − x/θ − lgamma(k) − k log θ on (0, ∞), lgamma from
+ * @stdlib/math-base-special-gammaln. Bounds: h(x) = (k − 1) log x − x/θ is
+ * concave (k ≥ 1) with its maximum at x* = (k − 1)θ, so over [a, b] its max
+ * is h(x*) when x* is inside, else the larger end value, and its min is the
+ * smaller end value (h(0) = h(∞) = −∞); h′ = (k − 1)/x − 1/θ is decreasing,
+ * so h′ ∈ [h′(b), h′(a)] (h′(0) = +∞, h′(∞) = −1/θ).
+ */
+export function gammaLike(k: number, theta: number, lgamma: (x: number) => number): Target {
+  const c = -lgamma(k) - k * Math.log(theta);
+  const h = (x: number): number => (x === 0 ? (k === 1 ? 0 : -Infinity) : x === Infinity ? -Infinity : (k - 1) * Math.log(x) - x / theta);
+  const dh = (x: number): number => (x === 0 ? Infinity : x === Infinity ? -1 / theta : (k - 1) / x - 1 / theta);
+  const xs = (k - 1) * theta;
+  return {
+    logDensity: (x: number) => (x <= 0 ? -Infinity : c + h(x)),
+    support: [0, Infinity],
+    logDensityBounds: (a: number, b: number) => {
+      const ha = h(a);
+      const hb = h(b);
+      const hi = a <= xs && xs <= b ? h(xs) : Math.max(ha, hb);
+      return [widenLo(c + Math.min(ha, hb)), widenHi(c + hi)] as const;
+    },
+    dLogDensityBounds: (a: number, b: number) => {
+      const lo = dh(b);
+      const hi = dh(a);
+      return [lo - 1e-9 * (1 + Math.abs(lo)), hi + 1e-9 * (1 + Math.abs(hi))] as const;
+    },
+    mode: xs,
   };
 }
