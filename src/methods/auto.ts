@@ -15,6 +15,9 @@ import { NOISE } from './piecewise/grid.js';
 import { Evaluator, scanTarget } from './piecewise/scan.js';
 import type { ScanPoint } from './piecewise/scan.js';
 import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
+import { DEFAULT_SCAN_POINTS } from './piecewise.js';
+import { blackBoxAssumption, scanSpacing } from './auto/assumption.js';
+import { exactWithBounds } from './auto/with-bounds.js';
 
 /** Options of {@link exactSampler}: the uniform source and the rejection bound, passed to the chosen method. */
 export interface ExactSamplerOptions extends SamplerOptions {
@@ -35,7 +38,7 @@ export interface ExactSamplerOptions extends SamplerOptions {
 }
 
 /** Names of the methods {@link exactSampler} can choose. */
-export type ExactMethod = 'adaptive-rejection' | 'piecewise' | 'ratio-of-uniforms';
+export type ExactMethod = 'adaptive-rejection' | 'piecewise' | 'ratio-of-uniforms' | 'certified';
 
 /** What the shape scan of {@link exactSampler} saw. */
 export interface ShapeScan {
@@ -53,6 +56,34 @@ export interface ShapeScan {
   readonly tConvexAt: number;
   /** Tail exponent α estimated where a tail is neither log- nor T-concave (f ~ |x|^−α), else NaN. */
   readonly heavyTailExponent: number;
+  /** Smallest distance between neighbouring scan points of positive density (NaN without a scan). */
+  readonly finestSpacing: number;
+  /** Where {@link ShapeScan.finestSpacing} is (midpoint of the two points). */
+  readonly finestSpacingAt: number;
+  /** Largest distance between neighbouring scan points where log f is within 30 of its maximum: a feature narrower than this there can be missed (NaN without a scan). */
+  readonly bodySpacing: number;
+  /** Where {@link ShapeScan.bodySpacing} is (midpoint of the two points). */
+  readonly bodySpacingAt: number;
+}
+
+/**
+ * A shape proof from interval bounds (targets with `d2LogDensityBounds`):
+ * bisection of the support until every cell's bounds prove the condition,
+ * one is disproved, or the cell budget (512) is spent.
+ */
+export interface ShapeProof {
+  /** `'log'`: (log f)″ ≤ 0 (log-concave); `'inverse-sqrt'`: (log f)″ ≤ ((log f)′)²/2 (−1/√f concave). */
+  readonly transform: 'log' | 'inverse-sqrt';
+  /** Whether the condition is proven on the whole support. */
+  readonly proven: boolean;
+  /** Cells on which the condition was proven. */
+  readonly cells: number;
+  /** Calls of `d2LogDensityBounds` and `dLogDensityBounds` made by the proof. */
+  readonly boundEvaluations: number;
+  /** A cell where the bounds prove the condition false, if one was found. */
+  readonly refutedOn: readonly [number, number] | undefined;
+  /** The cell left undecided when the budget ran out or a cell could not be split. */
+  readonly undecidedOn: readonly [number, number] | undefined;
 }
 
 /** A method that {@link exactSampler} tried and that refused the target at construction. */
@@ -75,8 +106,16 @@ export interface ExactChoice {
   readonly reason: string;
   /** Methods tried first and refused by their own checks at construction (with the error message). */
   readonly rejected: readonly RefusedMethod[];
-  /** The shape scan. */
+  /** The shape scan (for a target with `logDensityBounds` no scan is made: 0 points, and the concavity flags restate the proof). */
   readonly scan: ShapeScan;
+  /**
+   * What the choice assumes beyond the target's own statements, in words and
+   * numbers. For a black-box target: the scan's spacing (features narrower
+   * than it can be missed); for a target with bounds: nothing beyond them.
+   */
+  readonly assumption: string;
+  /** The shape proofs tried, for a target with `d2LogDensityBounds` (undefined otherwise). */
+  readonly proof: readonly ShapeProof[] | undefined;
 }
 
 /** A sampler built by {@link exactSampler}. */
@@ -88,7 +127,7 @@ export interface ExactSampler extends Sampler {
 }
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
-const SHAPE_SCAN_POINTS = 128;
+const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;
 
 /** Evaluation budget of the shape scan. */
 const SHAPE_SCAN_BUDGET = 100_000;
@@ -174,6 +213,8 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (opts.expectedDraws !== undefined) checkInteger(api, 'options.expectedDraws', opts.expectedDraws, 0, Number.MAX_SAFE_INTEGER);
   const fast = (opts.expectedDraws ?? 1) >= FAST_PATH_MIN_DRAWS;
   const fastNote = fast ? `; ${opts.expectedDraws} expected draws >= ${FAST_PATH_MIN_DRAWS}, so the table-driven fast path serves it` : '';
+  // With interval bounds the shape is proven, not scanned (src/methods/auto/with-bounds.ts).
+  if (typeof target.logDensityBounds === 'function') return exactWithBounds(api, target, t.lower, t.upper, opts, fast, fastNote);
   // The chosen sampler's own counts start after construction; a counting
   // wrapper measures the scan and every construction attempt.
   let counted = 0;
@@ -189,8 +230,9 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (t.mode !== undefined) (wrapped as { mode?: number }).mode = t.mode;
 
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
-  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, [], false);
+  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, target.modes ?? [], false);
   const scan = verdict(scanResult.points, scanResult.logMax, ev.evaluations, t, scanResult.centre);
+  const assumption = blackBoxAssumption(scan.points, scan);
   if (scan.heavyTailExponent <= 1) {
     throw new ImproperDensityError(
       `${api}: a tail decays like |x|^(−${scan.heavyTailExponent.toPrecision(3)}); with an exponent ≤ 1 the mass is infinite`,
@@ -273,6 +315,8 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
       reason,
       rejected: Object.freeze(rejected.map((r) => Object.freeze({ ...r }))),
       scan,
+      assumption,
+      proof: undefined,
     });
     return {
       choice,
@@ -380,5 +424,6 @@ function verdict(pts: readonly ScanPoint[], logMax: number, evaluations: number,
     tConcave: tConvexAt !== tConvexAt,
     tConvexAt,
     heavyTailExponent: alpha,
+    ...scanSpacing(pts, logMax),
   });
 }

@@ -180,3 +180,45 @@ export function gammaLike(k: number, theta: number, lgamma: (x: number) => numbe
     mode: xs,
   };
 }
+
+/** Bounds of the second derivative of a single normal's log-density: −1/σ² everywhere (a parabola). */
+export function withCurvature(t: Target, sd: number): Target {
+  const c = -1 / (sd * sd);
+  return { ...t, d2LogDensityBounds: () => [c * (1 + 1e-12), c * (1 - 1e-12)] as const };
+}
+
+/**
+ * The Cauchy density truncated to [−c, c]: l = −log(1 + x²), with hand bounds of l, l′ and l″.
+ * l decreases in |x|. l′ = −2x/(1 + x²) has its extrema −1 at x = 1 and +1 at x = −1.
+ * l″ = −2(1 − u)/(1 + u)² with u = x² increases in u on [0, 3] and decreases beyond (max 1/4 at u = 3).
+ * Not log-concave (l″ > 0 for |x| > 1) but −1/√f is concave: l″ ≤ (l′)²/2 ⇔ −2(1 − u) ≤ 2u, always.
+ * cdf: (atan x + atan c)/(2 atan c) (common practice).
+ */
+export function truncatedCauchy(c: number): Target & { cdf: (x: number) => number } {
+  const l = (x: number): number => -Math.log1p(x * x);
+  const l1 = (x: number): number => (-2 * x) / (1 + x * x);
+  const g = (u: number): number => (-2 * (1 - u)) / ((1 + u) * (1 + u));
+  const w = (v: [number, number]): readonly [number, number] => [v[0] - 1e-9 * (1 + Math.abs(v[0])), v[1] + 1e-9 * (1 + Math.abs(v[1]))];
+  const uRange = (a: number, b: number): [number, number] => [a <= 0 && b >= 0 ? 0 : Math.min(a * a, b * b), Math.max(a * a, b * b)];
+  return {
+    logDensity: (x: number) => (x < -c || x > c ? -Infinity : l(x)),
+    support: [-c, c],
+    logDensityBounds: (a: number, b: number) => {
+      const [u0, u1] = uRange(a, b);
+      return w([-Math.log1p(u1), -Math.log1p(u0)]);
+    },
+    dLogDensityBounds: (a: number, b: number) => {
+      const v = [l1(a), l1(b)];
+      if (a <= 1 && 1 <= b) v.push(-1);
+      if (a <= -1 && -1 <= b) v.push(1);
+      return w([Math.min(...v), Math.max(...v)]);
+    },
+    d2LogDensityBounds: (a: number, b: number) => {
+      const [u0, u1] = uRange(a, b);
+      const v = [g(u0), g(u1)];
+      if (u0 <= 3 && 3 <= u1) v.push(0.25);
+      return w([Math.min(...v), Math.max(...v)]);
+    },
+    cdf: (x: number) => (x <= -c ? 0 : x >= c ? 1 : (Math.atan(x) + Math.atan(c)) / (2 * Math.atan(c))),
+  };
+}
