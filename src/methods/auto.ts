@@ -152,10 +152,33 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * offers and what the methods can check.
  *
  * @remarks
- * A shape scan (the piecewise method's scan with 128 grid points: a global
- * maximisation unless `target.mode` is given, geometric rays to both ends,
- * nested uniform grids; a few hundred to about 1,200 evaluations, counted in
- * `stats.setupEvaluations`) computes the second divided differences of
+ * **Targets with `logDensityBounds`** (hand-written bounds, or a formula
+ * target): the shape is proven, not scanned. With `d2LogDensityBounds`, the
+ * support is bisected (at most 512 cells) until the bounds prove
+ * (log f)″ ≤ 0 on every cell → {@link adaptiveRejectionSampler} with
+ * `transform: 'log'`, *with a proof*; else, with `dLogDensityBounds` too,
+ * (log f)″ ≤ ((log f)′)²/2 on every cell (−1/√f concave) → the same with
+ * `transform: 'inverse-sqrt'`; otherwise, and without `d2LogDensityBounds`,
+ * → {@link certifiedSampler}, whose envelope is proven on every cell.
+ * `choice.reason` says which was proven, `choice.proof` holds the proofs,
+ * `choice.assumption` says that nothing is assumed beyond the bounds.
+ *
+ * **Black-box targets** (no bounds): nothing can be proven from point
+ * values, so the choice rests on an assumption, stated in numbers in
+ * `choice.assumption`: the density has no feature narrower than the spacing
+ * of the scan near it (`choice.scan.bodySpacing`, `finestSpacing`). A narrow
+ * mode between scan points can be missed, and a method whose envelope never
+ * proposes there never evaluates it, so no error is raised: e.g.
+ * 0.7·N(0, 1) + 0.3·N(2.5, 1e-5²) is served by the log-concave hull and no
+ * draw lands near 2.5 (test/methods/certified/exact-with-bounds.test.ts).
+ * Give `logDensityBounds` (or a formula) for such targets.
+ *
+ * A shape scan (the piecewise method's own scan, {@link DEFAULT_SCAN_POINTS}
+ * = 1024 grid points, so the chooser never resolves less than the
+ * piecewise method it may fall back to; a global maximisation unless
+ * `target.mode` is given, geometric rays to both ends, nested uniform grids,
+ * plus `target.modes`; about 2,300 evaluations for the targets tried, counted
+ * in `stats.setupEvaluations`) computes the second divided differences of
  * log f and of T(f) = −1/√f on all consecutive scan triples, with the same
  * rounding allowance as the piecewise method. Then, in this order:
  *
@@ -195,6 +218,7 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * @throws {@link ImproperDensityError} when a tail does not decay, or decays like |x|^−α with α ≤ 1
  * @throws {@link ShapeViolationError} when every method refuses the target
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
+ * @throws the errors of {@link certifiedSampler} for a target with bounds it cannot cover (a pole, no proven decay, lying bounds)
  * @example
  * ```ts
  * const s = exactSampler(studentTTarget(3), { seed: 1 });

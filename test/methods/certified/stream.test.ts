@@ -61,8 +61,11 @@ describe('certifiedSampler counts', () => {
     // every rejection needed an evaluation; some accepted candidates did too
     expect(st.densityEvaluations).toBeGreaterThanOrEqual(st.proposals - st.samples);
     expect(st.densityEvaluations).toBeLessThan(st.proposals);
-    // refinement on rejection: one split (5 interval evaluations: point, two halves) per rejection until the budget
-    expect(st.refinements).toBe(st.proposals - st.samples);
+    // refinement on rejection: rejected cells are split in batches (at most one split per rejection),
+    // each split costs 3 logDensityBounds calls (the new edge, two halves) and 2 dLogDensityBounds calls
+    expect(st.refinements).toBeGreaterThan(0);
+    expect(st.refinements).toBeLessThanOrEqual(st.proposals - st.samples);
+    expect(st.derivativeBoundEvaluations - before.derivativeBoundEvaluations).toBe(2 * st.refinements);
     expect(st.boundEvaluations - st.setupBoundEvaluations).toBe(3 * st.refinements);
     expect(st.cells).toBe(s.cells.cells.length);
   });
