@@ -66,3 +66,5 @@ export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, Shape
 export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './methods/table-sampler.js';
 export type { TableSamplerOptions, TableSampler } from './methods/table-sampler.js';
 export type { TableDescription } from './methods/table/describe.js';
+export { formulaTarget } from './formula/formula-target.js';
+export type { FormulaTarget, FormulaTargetOptions } from './formula/formula-target.js';
