@@ -467,6 +467,24 @@ export class IntervalEvaluator {
     copyI(S, D, SUMD);
     sqrI(S, T1, SUMD);
     subI(S, E, SUME, T1);
+    // The weights form a convex combination (p_j >= 0, summing to 1), so the
+    // derivative also lies in the hull of the arguments' derivatives; this
+    // keeps a tail of a mixture provably decaying (added for certifiedSampler).
+    let hlo = Infinity;
+    let hhi = -Infinity;
+    for (let j = 0; j < count; j++) {
+      const r = 3 * args[start + j];
+      if (S[2 * r + 1] === -Infinity) continue; // weight 0 on the whole interval
+      const dlo = S[2 * (r + 1)];
+      const dhi = S[2 * (r + 1) + 1];
+      if (dlo !== dlo || dhi !== dhi) return;
+      if (dlo < hlo) hlo = dlo;
+      if (dhi > hhi) hhi = dhi;
+    }
+    const nlo = widenDn(hlo);
+    const nhi = widenUp(hhi);
+    if (nlo > S[2 * D]) S[2 * D] = nlo;
+    if (nhi < S[2 * D + 1]) S[2 * D + 1] = nhi;
   }
 }
 
