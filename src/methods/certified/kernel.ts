@@ -14,7 +14,7 @@ import { logSumExp } from './build.js';
 import type { BoundsOracle, CellStore } from './cells.js';
 import { splitCell, splitPoint } from './cells.js';
 
-/** Floats per cell in the kernel's packed table: lo, hi, peak, log height, rate, inversion constant, squeeze anchor, height, slope, (pad). @internal */
+/** Floats per cell in the kernel's packed table: lo, hi, peak, log height, rate, inversion constant, squeeze anchor, height, slope, and the smallest squeeze/envelope ratio on the cell. @internal */
 export const HOT_STRIDE = 10;
 
 /**
@@ -106,12 +106,40 @@ export class CertifiedState {
       h[o + 6] = c.sA[j];
       h[o + 7] = c.sH[j];
       h[o + 8] = c.sS[j];
+      h[o + 9] = minRatio(c, j);
     }
     this.guide.build(lin, n);
     this.pendingCount = 0;
     this.marked.fill(0);
     this.refining = this.refineOnRejection && n < this.maxCells && this.logSqueezeArea - logE < Math.log(REFINE_UNTIL);
   }
+}
+
+/**
+ * The smallest value of squeeze/envelope on cell `j` (both are log-linear
+ * on the cell, so the smallest log ratio is at an end, or 0 towards an
+ * infinite end where the ratio vanishes), shrunk by 1e-12 relative; 0
+ * without a squeeze. @internal
+ */
+export function minRatio(c: CellStore, j: number): number {
+  const sh = c.sH[j];
+  const eh = c.eH[j];
+  if (sh === -Infinity || !(eh < Infinity) || eh === -Infinity) return 0;
+  const a = c.lo[j];
+  const b = c.hi[j];
+  const p = c.eP[j];
+  const r = c.eR[j];
+  const ss = c.sS[j];
+  const sa = c.sA[j];
+  const d = (x: number): number => sh + ss * (x - sa) - (eh - r * Math.abs(x - p));
+  let m = Infinity;
+  if (Number.isFinite(a)) m = Math.min(m, d(a));
+  else if (ss - r > 0 || ss - r !== ss - r) m = -Infinity; // towards −∞ the log ratio falls with slope ss − r... (ratio → 0)
+  if (Number.isFinite(b)) m = Math.min(m, d(b));
+  else if (ss + r < 0) m = -Infinity;
+  if (!(m < Infinity) || m !== m) return 0;
+  const q = Math.exp(m) * (1 - 1e-12);
+  return q > 0 && q < 1 ? q : q >= 1 ? 1 - 1e-12 : 0;
 }
 
 /**
@@ -155,7 +183,8 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       const ls = sh === -Infinity ? -Infinity : sh + h[o + 8] * (x - h[o + 6]);
       const v = 1 - u(); // in (0, 1]
       cnt.proposals++;
-      if (ls > -Infinity && v <= Math.exp(ls - lg)) {
+      // v <= the cell's smallest squeeze/envelope ratio: under the squeeze wherever x is (no exp needed)
+      if (v <= h[o + 9] || (ls > -Infinity && v <= Math.exp(ls - lg))) {
         out[i] = x;
         cnt.samples++;
         break;
