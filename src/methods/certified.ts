@@ -42,9 +42,12 @@ export interface CertifiedOptions extends SamplerOptions {
    */
   maxCells?: number;
   /**
-   * Split the cell a rejected candidate fell in (refinement on rejection,
-   * the OS* rule of Dymetman, Bouchard & Carter 2012), until `maxCells`.
-   * It changes the stream after the first rejection, never the distribution.
+   * Split the cells rejected candidates fell in (refinement on rejection,
+   * the OS* rule of Dymetman, Bouchard & Carter 2012), until the proven
+   * acceptance bound reaches 0.999 or `maxCells`. Rejected cells are
+   * queued and split in batches of max(1, cells/64), so that one table
+   * rebuild serves many splits. It changes the stream after rejections,
+   * never the distribution.
    * @defaultValue true
    */
   refine?: boolean;
@@ -150,10 +153,11 @@ const KNOWN = ['targetAcceptance', 'maxCells', 'refine', 'maxRejections', 'seed'
  * without evaluating the target, else `logDensity` is evaluated and checked:
  * above the cell's envelope or below its squeeze is
  * {@link EnvelopeViolationError} (the bounds lied), NaN or +Infinity is
- * {@link NonFiniteDensityError}. With `refine`, the cell a rejected
- * candidate fell in is split (five interval evaluations) and the table
- * rebuilt, until `maxCells`. Each candidate consumes three uniforms (cell,
- * position, acceptance).
+ * {@link NonFiniteDensityError}. With `refine`, the cells rejected
+ * candidates fell in are split (three `logDensityBounds` and two
+ * `dLogDensityBounds` calls each), in batches, and the table rebuilt, until
+ * the acceptance bound reaches 0.999 or `maxCells`. Each candidate consumes
+ * three uniforms (cell, position, acceptance).
  *
  * **What is proven.** When the bounds are true, the envelope dominates the
  * density everywhere and the draws are exact. The library cannot verify the

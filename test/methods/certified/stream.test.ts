@@ -3,7 +3,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { certifiedSampler, envelopeSvg, evaluateEnvelope } from '../../../src/index.js';
+import { certifiedSampler, envelopeSvg, evaluateEnvelope, substream } from '../../../src/index.js';
 import { draw, expectInSupport, expectReproducible } from '../../helpers/statistical.js';
 import { jumpTarget, mixture, workedTarget } from './hand-bounds.js';
 
@@ -13,6 +13,12 @@ describe('certifiedSampler streams', () => {
   it('certifiedSampler: same seed same draws, different seed different draws; seed/stream/uniform options', () => {
     expectReproducible((seed) => certifiedSampler(t, { seed }));
     expectReproducible((seed) => certifiedSampler(t, { seed: 3, stream: seed }));
+  });
+
+  it('certifiedSampler({ seed, stream }) draws what certifiedSampler({ uniform: substream(seed, stream) }) draws', () => {
+    const a = draw(certifiedSampler(t, { seed: 5, stream: 3 }), 500);
+    const b = draw(certifiedSampler(t, { uniform: substream(5, 3) }), 500);
+    expect(Array.from(a)).toEqual(Array.from(b));
   });
 
   it('certifiedSampler: sample() and fill() consume the same stream', () => {
