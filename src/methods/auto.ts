@@ -161,7 +161,12 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * `transform: 'inverse-sqrt'`; otherwise, and without `d2LogDensityBounds`,
  * → {@link certifiedSampler}, whose envelope is proven on every cell.
  * `choice.reason` says which was proven, `choice.proof` holds the proofs,
- * `choice.assumption` says that nothing is assumed beyond the bounds.
+ * `choice.assumption` says that nothing is assumed beyond the bounds. When
+ * no hull is proven and `certifiedSampler` refuses the target (a tail not
+ * proven to decay exponentially, such as the polynomial tail of a
+ * Student-t, or a pole), the refusal is recorded in `choice.rejected` and
+ * the target is scanned as a black-box one below (`choice.assumption` says
+ * so).
  *
  * **Black-box targets** (no bounds): nothing can be proven from point
  * values, so the choice rests on an assumption, stated in numbers in
@@ -238,7 +243,12 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   const fast = (opts.expectedDraws ?? 1) >= FAST_PATH_MIN_DRAWS;
   const fastNote = fast ? `; ${opts.expectedDraws} expected draws >= ${FAST_PATH_MIN_DRAWS}, so the table-driven fast path serves it` : '';
   // With interval bounds the shape is proven, not scanned (src/methods/auto/with-bounds.ts).
-  if (typeof target.logDensityBounds === 'function') return exactWithBounds(api, target, t.lower, t.upper, opts, fast, fastNote);
+  let boundsRefused: RefusedMethod | undefined;
+  if (typeof target.logDensityBounds === 'function') {
+    const r = exactWithBounds(api, target, t.lower, t.upper, opts, fast, fastNote);
+    if ('sample' in r) return r;
+    boundsRefused = r; // the bounds cannot cover this target: scan it, and say so
+  }
   // The chosen sampler's own counts start after construction; a counting
   // wrapper measures the scan and every construction attempt.
   let counted = 0;
@@ -256,14 +266,14 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
   const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, target.modes ?? [], false);
   const scan = verdict(scanResult.points, scanResult.logMax, ev.evaluations, t, scanResult.centre);
-  const assumption = blackBoxAssumption(scan.points, scan);
+  const assumption = blackBoxAssumption(scan.points, scan, boundsRefused === undefined ? undefined : `its logDensityBounds could not cover it: ${boundsRefused.error}`);
   if (scan.heavyTailExponent <= 1) {
     throw new ImproperDensityError(
       `${api}: a tail decays like |x|^(−${scan.heavyTailExponent.toPrecision(3)}); with an exponent ≤ 1 the mass is infinite`,
     );
   }
 
-  const rejected: { method: string; error: string }[] = [];
+  const rejected: { method: string; error: string }[] = boundsRefused === undefined ? [] : [{ ...boundsRefused }];
   const pass = { seed: opts.seed, stream: opts.stream, uniform: opts.uniform, maxRejections: opts.maxRejections };
   const clean = <T extends object>(o: T): T => {
     const out: Record<string, unknown> = {};

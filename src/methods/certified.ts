@@ -163,6 +163,14 @@ const KNOWN = ['targetAcceptance', 'maxCells', 'refine', 'maxRejections', 'seed'
  * density everywhere and the draws are exact. The library cannot verify the
  * bounds themselves except where it evaluates: every evaluation is checked.
  *
+ * **What it cannot serve.** A density unbounded on a finite cell (a pole,
+ * even an integrable one) and an infinite tail not proven to decay at
+ * least exponentially (the derivative bound on [a, ∞) must be < 0): a
+ * polynomial tail such as Student-t's or Cauchy's on the line has
+ * sup (log f)′ = 0 on every [a, ∞) and is refused with
+ * {@link ImproperDensityError}. {@link exactSampler} then falls back to its
+ * scan.
+ *
  * **Counts.** `stats.setupEvaluations` is 0 (setup evaluates no point);
  * interval evaluations are counted in `stats.boundEvaluations`,
  * `stats.setupBoundEvaluations` and `stats.derivativeBoundEvaluations`.

@@ -46,9 +46,9 @@ function g(x: number): string {
 }
 
 /** The assumption sentence of a black-box choice. @internal */
-export function blackBoxAssumption(points: number, s: ScanSpacing): string {
+export function blackBoxAssumption(points: number, s: ScanSpacing, why = 'no logDensityBounds'): string {
   return (
-    `black-box target (no logDensityBounds): the shape scan evaluated log f at ${points} points, ` +
+    `black-box target (${why}): the shape scan evaluated log f at ${points} points, ` +
     `${g(s.finestSpacing)} apart at the closest (near x = ${g(s.finestSpacingAt)}) and up to ${g(s.bodySpacing)} apart where log f is within ${BODY_DROP} of its maximum (near x = ${g(s.bodySpacingAt)}), ` +
     `farther apart in the tails. The choice assumes the density has no feature narrower than the local spacing: ` +
     `a narrow mode or spike between scan points can be missed, and a method whose envelope never proposes there never sees it ` +

@@ -4,13 +4,13 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError, ShapeViolationError } from '../../core/errors.js';
+import { ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../../core/errors.js';
 import type { Sampler, SamplerStats, Target } from '../../core/types.js';
 import { adaptiveRejectionSampler } from '../adaptive-rejection.js';
 import { certifiedSampler } from '../certified.js';
 import { splitPoint } from '../certified/cells.js';
 import { tableSampler } from '../table-sampler.js';
-import type { ExactChoice, ExactSampler, ExactSamplerOptions, ShapeProof, ShapeScan } from '../auto.js';
+import type { ExactChoice, ExactSampler, ExactSamplerOptions, RefusedMethod, ShapeProof, ShapeScan } from '../auto.js';
 
 /** Cells the concavity proof may examine before it gives up (undecided). @internal */
 export const PROOF_MAX_CELLS = 512;
@@ -100,9 +100,21 @@ function describeFailure(p: ShapeProof): string {
 
 /**
  * The part of {@link exactSampler} for a target with `logDensityBounds`.
+ * Returns the sampler, or — when the bounds cannot cover the target
+ * (certifiedSampler refuses it: a tail not proven to decay exponentially,
+ * such as a polynomial tail, or a pole) and no hull was proven — the
+ * refusal, and exactSampler goes on with its scan (and says so).
  * @internal
  */
-export function exactWithBounds(api: string, target: Target, lower: number, upper: number, opts: ExactSamplerOptions, fast: boolean, fastNote: string): ExactSampler {
+export function exactWithBounds(
+  api: string,
+  target: Target,
+  lower: number,
+  upper: number,
+  opts: ExactSamplerOptions,
+  fast: boolean,
+  fastNote: string,
+): ExactSampler | RefusedMethod {
   const pass: Record<string, unknown> = {};
   for (const k of ['seed', 'stream', 'uniform', 'maxRejections'] as const) if (opts[k] !== undefined) pass[k] = opts[k];
   const d2 = typeof target.d2LogDensityBounds === 'function' ? (target.d2LogDensityBounds.bind(target) as Bounds) : undefined;
@@ -132,7 +144,15 @@ export function exactWithBounds(api: string, target: Target, lower: number, uppe
       return wrap(s, 'adaptive-rejection', kind, reason, rejected, proofs, p.boundEvaluations);
     }
   }
-  const s = certifiedSampler(target, pass);
+  let s: ReturnType<typeof certifiedSampler>;
+  try {
+    s = certifiedSampler(target, pass);
+  } catch (e) {
+    if (e instanceof ImproperDensityError || e instanceof ShapeViolationError) {
+      return Object.freeze({ method: 'certified', error: e.message });
+    }
+    throw e;
+  }
   const st = s.stats;
   const why = d2 === undefined ? 'the target has no d2LogDensityBounds, so concavity was not tried' : proofs.map(describeFailure).join('; ');
   const reason = `interval bounds given (target.logDensityBounds): certifiedSampler proved an envelope on each of its ${st.cells} cells (acceptance ≥ ${s.cells.acceptanceBound.toPrecision(4)} proven); no hull: ${why}`;

@@ -5,9 +5,10 @@
  */
 import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
+import tCdf from '@stdlib/stats-base-dists-t-cdf';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ShapeViolationError, certifiedSampler, exactSampler, formulaTarget } from '../../../src/index.js';
+import { ImproperDensityError, ShapeViolationError, certifiedSampler, exactSampler, formulaTarget } from '../../../src/index.js';
 import { quadratureCdf } from '../../helpers/quadrature.js';
 import { draw, expectFits, expectInSupport, expectRate, expectRejects } from '../../helpers/statistical.js';
 
@@ -140,5 +141,28 @@ describe('exactSampler on formula targets', () => {
     const xs = draw(s, N);
     expectFits(xs, mixtureCdf(0.3, 6, 1e-3), 'exactSampler formula mixture');
     expectRate(near(xs, 6, 1e-2), N, 0.3, 'narrow mode'); // mixture weight
+  });
+});
+
+describe('targets whose bounds cannot cover them', () => {
+  const tText = '-(nu + 1)/2 * log1p(x^2/nu)';
+  const t3 = formulaTarget(tText, { support: LINE, parameters: { nu: 3 } });
+
+  it('certifiedSampler(formula Student-t(3) on the line) throws ImproperDensityError: a polynomial tail has no exponential envelope', () => {
+    expect(() => certifiedSampler(t3, { maxCells: 300 })).toThrow(ImproperDensityError);
+    expect(() => certifiedSampler(t3, { maxCells: 300 })).toThrow(/infinite cell/);
+  });
+
+  it('exactSampler(formula Student-t(3)) records the refusal, falls back to the scan (stating it) and fits the @stdlib t cdf', () => {
+    const s = exactSampler(t3, { seed: 28 });
+    expect(s.choice.rejected[0].method).toBe('certified');
+    expect(s.choice.assumption).toMatch(/^black-box target \(its logDensityBounds could not cover it/);
+    expect(s.choice.reason).toMatch(/tried first: certified/);
+    expectFits(draw(s, N), (x) => tCdf(x, 3), 'formula t(3)'); // @stdlib t cdf
+  });
+
+  it('biased twin: Student-t(4) drawn the same way is rejected against the t(3) cdf', () => {
+    const t4 = formulaTarget(tText, { support: LINE, parameters: { nu: 4 } });
+    expectRejects(draw(exactSampler(t4, { seed: 28 }), N), (x) => tCdf(x, 3), 'formula t(4) vs t(3)');
   });
 });
