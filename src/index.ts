@@ -62,7 +62,11 @@ export {
 } from './methods/piecewise.js';
 export type { PiecewiseOptions, PiecewiseSampler, PiecewiseStats, PiecewiseEnvelope, PiecewisePiece, PiecewiseTails, PiecewiseTableSampler } from './methods/piecewise.js';
 export { exactSampler, FAST_PATH_MIN_DRAWS } from './methods/auto.js';
-export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, ShapeScan, RefusedMethod } from './methods/auto.js';
+export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, ShapeScan, RefusedMethod, ShapeProof } from './methods/auto.js';
 export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './methods/table-sampler.js';
 export type { TableSamplerOptions, TableSampler } from './methods/table-sampler.js';
 export type { TableDescription } from './methods/table/describe.js';
+export { certifiedSampler, DEFAULT_CERTIFIED_ACCEPTANCE, DEFAULT_CERTIFIED_MAX_CELLS, MAX_CERTIFIED_CELLS } from './methods/certified.js';
+export type { CertifiedOptions, CertifiedStats, CertifiedCell, CertifiedDescription, CertifiedSampler } from './methods/certified.js';
+export { formulaTarget } from './formula/formula-target.js';
+export type { FormulaTarget, FormulaTargetOptions } from './formula/formula-target.js';

@@ -16,86 +16,14 @@ import { Evaluator } from '../core/evaluate.js';
 import { scanTarget } from './piecewise/scan.js';
 import type { ScanPoint } from './piecewise/scan.js';
 import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
-
-/** Options of {@link exactSampler}: the uniform source and the rejection bound, passed to the chosen method. */
-export interface ExactSamplerOptions extends SamplerOptions {
-  /**
-   * How many draws you expect to take from this sampler. At
-   * {@link FAST_PATH_MIN_DRAWS} or more, targets served by a hull or by
-   * piecewise envelopes use the table-driven fast path (`tableSampler`,
-   * `piecewiseSampler({ fast: true })`). It changes speed and the stream,
-   * never the distribution.
-   * @defaultValue 1 (a fresh target per draw, as in a Gibbs sampler)
-   */
-  expectedDraws?: number;
-  /**
-   * Consecutive rejections before {@link StalledSamplerError} (passed on).
-   * @defaultValue 1,000,000
-   */
-  maxRejections?: number;
-}
-
-/** Names of the methods {@link exactSampler} can choose. */
-export type ExactMethod = 'adaptive-rejection' | 'piecewise' | 'ratio-of-uniforms';
-
-/** What the shape scan of {@link exactSampler} saw. */
-export interface ShapeScan {
-  /** Scan points with a positive density. */
-  readonly points: number;
-  /** logDensity evaluations of the scan. */
-  readonly evaluations: number;
-  /** No scan triple has a second divided difference of log f above rounding. */
-  readonly logConcave: boolean;
-  /** The scan point nearest the centre where log f was seen convex, or a zero of the density inside its support (NaN when log-concave). */
-  readonly convexAt: number;
-  /** No scan triple has a second divided difference of T(f) = −1/√f above rounding. */
-  readonly tConcave: boolean;
-  /** The scan point nearest the centre where −1/√f was seen convex (NaN when T-concave). */
-  readonly tConvexAt: number;
-  /** Tail exponent α estimated where a tail is neither log- nor T-concave (f ~ |x|^−α), else NaN. */
-  readonly heavyTailExponent: number;
-}
-
-/** A method that {@link exactSampler} tried and that refused the target at construction. */
-export interface RefusedMethod {
-  /** The method (with its transform, for the hull). */
-  readonly method: string;
-  /** The message of the {@link ShapeViolationError} it threw. */
-  readonly error: string;
-}
-
-/** The method an {@link ExactSampler} uses, and why. */
-export interface ExactChoice {
-  /** The method doing the work. */
-  readonly method: ExactMethod;
-  /**
-   * True when a strip table serves the draws (the fast path, chosen from
-   * `expectedDraws`): {@link tableSampler} for `'adaptive-rejection'`,
-   * `piecewiseSampler(t, { fast: true })` for `'piecewise'`. Since 0.1.0.
-   */
-  readonly table: boolean;
-  /** The transform, for `'adaptive-rejection'`. */
-  readonly transform: 'log' | 'inverse-sqrt' | undefined;
-  /** The power r, for `'ratio-of-uniforms'`. */
-  readonly power: number | undefined;
-  /** Why this method: what the scan saw and what the method needs. */
-  readonly reason: string;
-  /** Methods tried first and refused by their own checks at construction (with the error message). */
-  readonly rejected: readonly RefusedMethod[];
-  /** The shape scan. */
-  readonly scan: ShapeScan;
-}
-
-/** A sampler built by {@link exactSampler}. */
-export interface ExactSampler extends Sampler {
-  /** Which method was chosen, and why (read-only). */
-  readonly choice: ExactChoice;
-  /** The chosen method's sampler (with its own envelope or region description). */
-  readonly sampler: Sampler;
-}
+import { DEFAULT_SCAN_POINTS } from './piecewise.js';
+import { blackBoxAssumption, scanSpacing } from './auto/assumption.js';
+import { exactWithBounds } from './auto/with-bounds.js';
+import type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
+export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
-const SHAPE_SCAN_POINTS = 128;
+const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;
 
 /** Evaluation budget of the shape scan. */
 const SHAPE_SCAN_BUDGET = 100_000;
@@ -120,10 +48,38 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * offers and what the methods can check.
  *
  * @remarks
- * A shape scan (the piecewise method's scan with 128 grid points: a global
- * maximisation unless `target.mode` is given, geometric rays to both ends,
- * nested uniform grids; a few hundred to about 1,200 evaluations, counted in
- * `stats.setupEvaluations`) computes the second divided differences of
+ * **Targets with `logDensityBounds`** (hand-written bounds, or a formula
+ * target): the shape is proven, not scanned. With `d2LogDensityBounds`, the
+ * support is bisected (at most 512 cells) until the bounds prove
+ * (log f)″ ≤ 0 on every cell → {@link adaptiveRejectionSampler} with
+ * `transform: 'log'`, *with a proof*; else, with `dLogDensityBounds` too,
+ * (log f)″ ≤ ((log f)′)²/2 on every cell (−1/√f concave) → the same with
+ * `transform: 'inverse-sqrt'`; otherwise, and without `d2LogDensityBounds`,
+ * → {@link certifiedSampler}, whose envelope is proven on every cell.
+ * `choice.reason` says which was proven, `choice.proof` holds the proofs,
+ * `choice.assumption` says that nothing is assumed beyond the bounds. When
+ * no hull is proven and `certifiedSampler` refuses the target (a tail not
+ * proven to decay exponentially, such as the polynomial tail of a
+ * Student-t, or a pole), the refusal is recorded in `choice.rejected` and
+ * the target is scanned as a black-box one below (`choice.assumption` says
+ * so).
+ *
+ * **Black-box targets** (no bounds): nothing can be proven from point
+ * values, so the choice rests on an assumption, stated in numbers in
+ * `choice.assumption`: the density has no feature narrower than the spacing
+ * of the scan near it (`choice.scan.bodySpacing`, `finestSpacing`). A narrow
+ * mode between scan points can be missed, and a method whose envelope never
+ * proposes there never evaluates it, so no error is raised: e.g.
+ * 0.7·N(0, 1) + 0.3·N(2.5, 1e-5²) is served by the log-concave hull and no
+ * draw lands near 2.5 (test/methods/certified/exact-with-bounds.test.ts).
+ * Give `logDensityBounds` (or a formula) for such targets.
+ *
+ * A shape scan (the piecewise method's own scan, {@link DEFAULT_SCAN_POINTS}
+ * = 1024 grid points, so the chooser never resolves less than the
+ * piecewise method it may fall back to; a global maximisation unless
+ * `target.mode` is given, geometric rays to both ends, nested uniform grids,
+ * plus `target.modes`; about 2,300 evaluations for the targets tried, counted
+ * in `stats.setupEvaluations`) computes the second divided differences of
  * log f and of T(f) = −1/√f on all consecutive scan triples, with the same
  * rounding allowance as the piecewise method. Then, in this order:
  *
@@ -163,6 +119,7 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * @throws {@link ImproperDensityError} when a tail does not decay, or decays like |x|^−α with α ≤ 1
  * @throws {@link ShapeViolationError} when every method refuses the target
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
+ * @throws the errors of {@link certifiedSampler} for a target with bounds it cannot cover (a pole, no proven decay, lying bounds)
  * @example
  * ```ts
  * const s = exactSampler(studentTTarget(3), { seed: 1 });
@@ -181,6 +138,13 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (opts.expectedDraws !== undefined) checkInteger(api, 'options.expectedDraws', opts.expectedDraws, 0, Number.MAX_SAFE_INTEGER);
   const fast = (opts.expectedDraws ?? 1) >= FAST_PATH_MIN_DRAWS;
   const fastNote = fast ? `; ${opts.expectedDraws} expected draws >= ${FAST_PATH_MIN_DRAWS}, so the table-driven fast path serves it` : '';
+  // With interval bounds the shape is proven, not scanned (src/methods/auto/with-bounds.ts).
+  let boundsRefused: RefusedMethod | undefined;
+  if (typeof target.logDensityBounds === 'function') {
+    const r = exactWithBounds(api, target, t.lower, t.upper, opts, fast, fastNote);
+    if ('sample' in r) return r;
+    boundsRefused = r; // the bounds cannot cover this target: scan it, and say so
+  }
   // The chosen sampler's own counts start after construction; a counting
   // wrapper measures the scan and every construction attempt.
   let counted = 0;
@@ -196,15 +160,16 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (t.mode !== undefined) (wrapped as { mode?: number }).mode = t.mode;
 
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
-  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, [], false);
+  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, target.modes ?? [], false);
   const scan = verdict(scanResult.points, scanResult.logMax, ev.evaluations, t, scanResult.centre);
+  const assumption = blackBoxAssumption(scan.points, scan, boundsRefused === undefined ? undefined : `its logDensityBounds could not cover it: ${boundsRefused.error}`);
   if (scan.heavyTailExponent <= 1) {
     throw new ImproperDensityError(
       `${api}: a tail decays like |x|^(−${scan.heavyTailExponent.toPrecision(3)}); with an exponent ≤ 1 the mass is infinite`,
     );
   }
 
-  const rejected: { method: string; error: string }[] = [];
+  const rejected: { method: string; error: string }[] = boundsRefused === undefined ? [] : [{ ...boundsRefused }];
   const pass = { seed: opts.seed, stream: opts.stream, uniform: opts.uniform, maxRejections: opts.maxRejections };
   const clean = <T extends object>(o: T): T => {
     const out: Record<string, unknown> = {};
@@ -281,6 +246,8 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
       reason,
       rejected: Object.freeze(rejected.map((r) => Object.freeze({ ...r }))),
       scan,
+      assumption,
+      proof: undefined,
     });
     return {
       choice,
@@ -391,5 +358,6 @@ function verdict(pts: readonly ScanPoint[], logMax: number, evaluations: number,
     tConcave: tConvexAt !== tConvexAt,
     tConvexAt,
     heavyTailExponent: alpha,
+    ...scanSpacing(pts, logMax),
   });
 }

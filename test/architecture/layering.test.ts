@@ -32,9 +32,13 @@ const MAY_IMPORT: Record<string, readonly string[]> = {
   'methods/piecewise': ['core', 'random', 'bounds', 'methods/envelope'],
   'methods/table': ['core', 'random', 'methods/envelope'],
   'methods/ratio-of-uniforms': ['core', 'random', 'bounds', 'methods/envelope'],
-  methods: ['core', 'random', 'bounds', 'methods/envelope', 'methods/hull', 'methods/piecewise', 'methods/table', 'methods/ratio-of-uniforms'],
+  'methods/certified': ['core', 'random', 'methods/envelope'],
+  formula: ['core', 'vendor'],
+  // The chooser's helpers: they may use the methods they choose between.
+  'methods/auto': ['core', 'random', 'bounds', 'methods', 'methods/envelope', 'methods/certified', 'methods/piecewise'],
+  methods: ['core', 'random', 'bounds', 'methods/envelope', 'methods/hull', 'methods/piecewise', 'methods/table', 'methods/ratio-of-uniforms', 'methods/certified', 'methods/auto'],
   checks: ['core', 'vendor', 'targets', 'methods/envelope'],
-  index: ['core', 'random', 'bounds', 'targets', 'proposals', 'methods', 'methods/envelope', 'methods/table', 'checks'],
+  index: ['core', 'random', 'bounds', 'targets', 'proposals', 'methods', 'methods/envelope', 'methods/table', 'methods/certified', 'methods/auto', 'checks', 'formula'],
   node: ['core', 'random', 'index', 'checks', 'methods', 'targets', 'proposals'],
   cli: ['core', 'random', 'vendor', 'bounds', 'targets', 'proposals', 'methods', 'checks', 'index', 'node'],
 };

@@ -46,7 +46,7 @@ export interface EnvelopeDescription {
   /** The transform T. */
   readonly transform: TransformName;
   /** `'tangent'` (from `dLogDensity`) or `'secant'` (derivative-free). */
-  readonly construction: 'tangent' | 'secant';
+  readonly construction: 'tangent' | 'secant' | 'bounds';
   /** Reference log height: lines are those of the transformed f/e^logScale. */
   readonly logScale: number;
   /** Effective support: the target's, shrunk where the sampler found the density to be 0. */

@@ -1,0 +1,118 @@
+/**
+ * exactSampler with and without interval bounds: a proof when the target has
+ * bounds, a stated assumption (in numbers) when it has not.
+ */
+import { describe, expect, it } from 'vitest';
+import { certifiedSampler, exactSampler, piecewiseSampler } from '../../../src/index.js';
+import type { Target } from '../../../src/index.js';
+import { draw, expectFits, expectRate, expectRejects } from '../../helpers/statistical.js';
+import { mixture, truncatedCauchy, withCurvature } from './hand-bounds.js';
+
+const N = 20_000;
+
+function near(xs: Float64Array, mu: number, r: number): number {
+  let k = 0;
+  for (const x of xs) if (Math.abs(x - mu) < r) k++;
+  return k;
+}
+
+describe('exactSampler on black-box targets states what its scan assumes', () => {
+  it('exactSampler(black-box 0.7·N(0,1) + 0.3·N(6, 0.001²)): choice.assumption gives the scan spacing, which is wider than the mode', () => {
+    const t = mixture([0.7, 0.3], [0, 6], [1, 1e-3]);
+    const s = exactSampler({ logDensity: t.logDensity }, { seed: 1 });
+    const a = s.choice.assumption;
+    expect(a).toMatch(/^black-box target/);
+    expect(a).toContain(`up to ${Number(s.choice.scan.bodySpacing.toPrecision(3))} apart`);
+    expect(a).toMatch(/logDensityBounds/);
+    // the grid near the body is coarser than the narrow mode: finding it is not guaranteed
+    expect(s.choice.scan.bodySpacing).toBeGreaterThan(1e-3);
+    expect(s.choice.proof).toBeUndefined();
+  });
+
+  it('exactSampler(black-box 0.7·N(0,1) + 0.3·N(2.5, 1e-5²)) misses the narrow mode (unsupported: documented in choice.assumption); with bounds it is exact', () => {
+    const t = mixture([0.7, 0.3], [0, 2.5], [1, 1e-5]);
+    const blind = exactSampler({ logDensity: t.logDensity }, { seed: 2 });
+    expect(blind.choice.assumption).toMatch(/can be missed/);
+    // documents the limitation: 30 % of the mass is missing, no error is possible from point values alone
+    expect(near(draw(blind, N), 2.5, 1e-3)).toBe(0);
+    const proven = exactSampler(t, { seed: 2 });
+    expect(proven.choice.method).toBe('certified');
+    expect(proven.choice.assumption).toMatch(/^none beyond the target/);
+    const xs = draw(proven, N);
+    expectFits(xs, t.cdf, 'mixture with bounds'); // Σ wᵢ Φ from @stdlib normal cdf
+    expectRate(near(xs, 2.5, 1e-3), N, 0.3, 'narrow mode mass'); // the mixture weight
+  });
+
+  it('biased twin: the black-box draws of the same mixture are rejected against its cdf at n = 20000', () => {
+    const t = mixture([0.7, 0.3], [0, 2.5], [1, 1e-5]);
+    expectRejects(draw(exactSampler({ logDensity: t.logDensity }, { seed: 2 }), N), t.cdf, 'black-box');
+  });
+
+  it('exactSampler(black-box 0.95·N(0,1) + 0.05·N(5, 0.02²)) now resolves as finely as piecewiseSampler: not log-concave, 0.05 of the mass at 5', () => {
+    const t = mixture([0.95, 0.05], [0, 5], [1, 0.02]);
+    const s = exactSampler({ logDensity: t.logDensity }, { seed: 3 });
+    expect(s.choice.scan.logConcave).toBe(false);
+    expect(s.choice.method).toBe('piecewise');
+    expectRate(near(draw(s, N), 5, 0.2), N, 0.05, 'exactSampler'); // the mixture weight
+    expectRate(near(draw(piecewiseSampler({ logDensity: t.logDensity }, { seed: 3 }), N), 5, 0.2), N, 0.05, 'piecewiseSampler');
+  });
+});
+
+describe('exactSampler proves the shape of targets with interval bounds', () => {
+  it('exactSampler(normal with d2LogDensityBounds) chooses the log hull with a proof', () => {
+    const t = withCurvature(mixture([1], [3], [2]), 2);
+    const s = exactSampler(t, { seed: 4 });
+    expect(s.choice.method).toBe('adaptive-rejection');
+    expect(s.choice.transform).toBe('log');
+    expect(s.choice.reason).toMatch(/^log-concave, proven/);
+    expect(s.choice.proof?.[0].proven).toBe(true);
+    expect(s.choice.scan.evaluations).toBe(0);
+    expectFits(draw(s, N), t.cdf as (x: number) => number, 'proven normal');
+  });
+
+  it('exactSampler(Cauchy on [−5, 5] with bounds): log-concavity disproved on a cell, T-concavity proven, inverse-sqrt hull', () => {
+    const t = truncatedCauchy(5);
+    const s = exactSampler(t, { seed: 5 });
+    expect(s.choice.method).toBe('adaptive-rejection');
+    expect(s.choice.transform).toBe('inverse-sqrt');
+    expect(s.choice.reason).toMatch(/^T-concave for T\(f\) = −1\/√f, proven/);
+    const [logProof, tProof] = s.choice.proof ?? [];
+    expect(logProof.proven).toBe(false);
+    expect(logProof.refutedOn).toBeDefined();
+    // the refuted cell lies where l'' > 0 is true: |x| > 1
+    const [ra, rb] = logProof.refutedOn as readonly [number, number];
+    expect(Math.min(Math.abs(ra), Math.abs(rb))).toBeGreaterThanOrEqual(1);
+    expect(tProof.proven).toBe(true);
+    expectFits(draw(s, N), t.cdf, 'truncated Cauchy'); // cdf from atan, common practice
+  });
+
+  it('biased twin: the Cauchy truncated to [−4.5, 4.5] drawn the same way is rejected against the [−5, 5] cdf', () => {
+    expectRejects(draw(exactSampler(truncatedCauchy(4.5), { seed: 5 }), N), truncatedCauchy(5).cdf, 'truncated Cauchy, biased');
+  });
+
+  it('exactSampler(0.9·N(0,1) + 0.1·N(10, 0.2²) with bounds, no d2 bounds): certifiedSampler, 0.1 of the mass above 4', () => {
+    const t = mixture([0.9, 0.1], [0, 10], [1, 0.2]);
+    const s = exactSampler({ ...t, modes: undefined } as Target, { seed: 6 });
+    expect(s.choice.method).toBe('certified');
+    expect(s.choice.reason).toMatch(/no d2LogDensityBounds/);
+    let above = 0;
+    const xs = draw(s, N);
+    for (const x of xs) if (x > 4) above++;
+    expectRate(above, N, 0.1, 'mass above 4'); // the mixture weight (N(0,1) above 4: 3e-5, negligible)
+    expectFits(xs, t.cdf, 'mixture 0.9/0.1');
+  });
+});
+
+describe('exactSampler with bounds: options', () => {
+  it('exactSampler(target with bounds) is reproducible per seed and passes seed/stream to the chosen sampler', () => {
+    const t = mixture([0.7, 0.3], [0, 6], [1, 1e-3]);
+    const a = draw(exactSampler(t, { seed: 8 }), 200);
+    const b = draw(exactSampler(t, { seed: 8 }), 200);
+    const c = draw(exactSampler(t, { seed: 9 }), 200);
+    expect(Array.from(a)).toEqual(Array.from(b));
+    expect(Array.from(a)).not.toEqual(Array.from(c));
+    // the certified choice draws what certifiedSampler draws with the same options
+    const d = draw(certifiedSampler(t, { seed: 8, stream: 2 }), 200);
+    expect(Array.from(draw(exactSampler(t, { seed: 8, stream: 2 }), 200))).toEqual(Array.from(d));
+  });
+});
