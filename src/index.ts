@@ -66,3 +66,9 @@ export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, Shape
 export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './methods/table-sampler.js';
 export type { TableSamplerOptions, TableSampler } from './methods/table-sampler.js';
 export type { TableDescription } from './methods/table/describe.js';
+export type { DiscreteTarget } from './core/types.js';
+export type { DiscreteSampler, DiscreteMethod, DiscreteChoice, ChosenDiscreteSampler, DiscreteSamplerOptions } from './discrete/types.js';
+export { weightedIndexSampler } from './discrete/weighted-index.js';
+export type { WeightedIndexOptions, WeightedIndexSampler } from './discrete/weighted-index.js';
+export { discreteChiSquareCheck, DISCRETE_CHI_SQUARE_MIN_EXPECTED, DISCRETE_CHI_SQUARE_MAX_POINTS } from './checks/discrete-chi-square.js';
+export type { DiscreteChiSquareResult, DiscreteChiSquareOptions } from './checks/discrete-chi-square.js';
