@@ -68,7 +68,7 @@ export function findMode(ev: SetupEvaluator, start: number): number {
   for (let it = 0; it < 1100; it++) {
     let b = a + dir * step;
     if (dir > 0 ? b >= end : b <= end) b = end;
-    if (Math.abs(b) > MAX_DISCRETE_K) {
+    if (Math.abs(b) >= MAX_DISCRETE_K / 2) {
       throw new ImproperDensityError(`${api}: target.logPmf increases without bound toward ${dir > 0 ? '+' : '-'}Infinity (still increasing at ${a}); the pmf does not decay`);
     }
     if (b === end || !(ev.h(b + dir) > ev.h(b))) {
