@@ -67,7 +67,7 @@ export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_
 export type { TableSamplerOptions, TableSampler } from './methods/table-sampler.js';
 export type { TableDescription } from './methods/table/describe.js';
 export type { DiscreteTarget } from './core/types.js';
-export type { DiscreteSampler, DiscreteMethod, DiscreteChoice, ChosenDiscreteSampler, DiscreteSamplerOptions } from './discrete/types.js';
+export type { DiscreteSampler, DiscreteMethod, DiscreteChoice, DiscreteRefusal, ChosenDiscreteSampler, DiscreteSamplerOptions } from './discrete/types.js';
 export { weightedIndexSampler } from './discrete/weighted-index.js';
 export type { WeightedIndexOptions, WeightedIndexSampler } from './discrete/weighted-index.js';
 export { discreteChiSquareCheck, DISCRETE_CHI_SQUARE_MIN_EXPECTED, DISCRETE_CHI_SQUARE_MAX_POINTS } from './checks/discrete-chi-square.js';
@@ -75,7 +75,7 @@ export type { DiscreteChiSquareResult, DiscreteChiSquareOptions } from './checks
 export { discreteSampler, DISCRETE_TABLE_MIN_POINTS } from './discrete/discrete-sampler.js';
 export { MAX_DISCRETE_TABLE_POINTS } from './discrete/methods/table.js';
 export type { DiscreteFamilyTarget } from './targets/discrete/family.js';
-export { poissonTarget } from './targets/discrete/poisson.js';
+export { poissonTarget, POISSON_SERIES_MIN_MEAN } from './targets/discrete/poisson.js';
 export { binomialTarget } from './targets/discrete/binomial.js';
 export { negativeBinomialTarget } from './targets/discrete/negative-binomial.js';
 export { geometricTarget } from './targets/discrete/geometric.js';

@@ -30,6 +30,14 @@ export interface DiscreteSampler extends Sampler {
 /** Names of the discrete methods. */
 export type DiscreteMethod = 'table' | 'log-concave-rejection' | 'ratio-of-uniforms';
 
+/** A method {@link discreteSampler} tried and refused. */
+export interface DiscreteRefusal {
+  /** The method refused. */
+  readonly method: DiscreteMethod;
+  /** Why (the message of the shape error). */
+  readonly message: string;
+}
+
 /** The method {@link discreteSampler} picked, and why. */
 export interface DiscreteChoice {
   /** The method used. */
@@ -37,7 +45,7 @@ export interface DiscreteChoice {
   /** A sentence saying why, with the numbers that decided it. */
   readonly reason: string;
   /** Methods tried first and refused, with the refusal message. */
-  readonly refused: readonly { readonly method: DiscreteMethod; readonly message: string }[];
+  readonly refused: readonly DiscreteRefusal[];
 }
 
 /** A {@link DiscreteSampler} built by {@link discreteSampler}. */

@@ -26,6 +26,6 @@ export interface DiscreteFamilyTarget extends DiscreteTarget {
   readonly support: readonly [number, number];
   /** A mode of the pmf. */
   readonly mode: number;
-  /** Normalized cdf P(X ≤ k) (from @stdlib; see each factory for its accuracy). */
+  /** Normalized cdf P(X ≤ k) (from `@stdlib`; see each factory for its accuracy). */
   cdf(k: number): number;
 }

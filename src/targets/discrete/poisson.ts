@@ -7,7 +7,7 @@ import { InvalidTargetError } from '../../core/errors.js';
 import { poissonCdf, poissonLogpmf } from '../../vendor/stdlib.js';
 import { upperRegularizedGamma } from '../_internals/gamma-series.js';
 
-/** From this mean on, the cdf is Q(k + 1, λ) from exactdraw's incomplete-gamma series (@stdlib's Poisson cdf was measured 4e-3 off at λ = k = 1e4). */
+/** From this mean on, the cdf is Q(k + 1, λ) from exactdraw's incomplete-gamma series (the `@stdlib` Poisson cdf was measured 4e-3 off at λ = k = 1e4). */
 export const POISSON_SERIES_MIN_MEAN = 100;
 import type { DiscreteFamilyTarget } from './family.js';
 
@@ -18,8 +18,8 @@ import type { DiscreteFamilyTarget } from './family.js';
  * logPmf from `@stdlib/stats-base-dists-poisson-logpmf`
  * (k ln λ − λ − ln k!); cdf from `@stdlib/stats-base-dists-poisson-cdf`
  * for λ < {@link POISSON_SERIES_MIN_MEAN}, and from exactdraw's regularized
- * incomplete gamma, P(X ≤ k) = Q(k + 1, λ), beyond (the @stdlib cdf, which
- * goes through @stdlib's incomplete gamma, was measured 4e-3 off at
+ * incomplete gamma, P(X ≤ k) = Q(k + 1, λ), beyond (the `@stdlib` cdf, which
+ * goes through the `@stdlib` incomplete gamma, was measured 4e-3 off at
  * λ = k = 1e4; both are checked against summed pmfs in the tests).
  * The logPmf is checked in the tests against a saddle-point form computed
  * independently (Loader 2000), up to mean 1e7 (absolute log error there
