@@ -70,3 +70,18 @@ export { certifiedSampler, DEFAULT_CERTIFIED_ACCEPTANCE, DEFAULT_CERTIFIED_MAX_C
 export type { CertifiedOptions, CertifiedStats, CertifiedCell, CertifiedDescription, CertifiedSampler } from './methods/certified.js';
 export { formulaTarget } from './formula/formula-target.js';
 export type { FormulaTarget, FormulaTargetOptions } from './formula/formula-target.js';
+export type { DiscreteTarget } from './core/types.js';
+export type { DiscreteSampler, DiscreteMethod, DiscreteChoice, DiscreteRefusal, ChosenDiscreteSampler, DiscreteSamplerOptions } from './discrete/types.js';
+export { weightedIndexSampler } from './discrete/weighted-index.js';
+export type { WeightedIndexOptions, WeightedIndexSampler } from './discrete/weighted-index.js';
+export { discreteChiSquareCheck, DISCRETE_CHI_SQUARE_MIN_EXPECTED, DISCRETE_CHI_SQUARE_MAX_POINTS } from './checks/discrete-chi-square.js';
+export type { DiscreteChiSquareResult, DiscreteChiSquareOptions } from './checks/discrete-chi-square.js';
+export { discreteSampler, DISCRETE_TABLE_MIN_POINTS } from './discrete/discrete-sampler.js';
+export { MAX_DISCRETE_TABLE_POINTS } from './discrete/methods/table.js';
+export type { DiscreteFamilyTarget } from './targets/discrete/family.js';
+export { poissonTarget, POISSON_SERIES_MIN_MEAN } from './targets/discrete/poisson.js';
+export { binomialTarget } from './targets/discrete/binomial.js';
+export { negativeBinomialTarget } from './targets/discrete/negative-binomial.js';
+export { geometricTarget } from './targets/discrete/geometric.js';
+export { truncateDiscrete } from './targets/discrete/truncate.js';
+export type { TruncatedDiscreteTarget } from './targets/discrete/truncate.js';

@@ -21,6 +21,7 @@ import { truncate } from '../targets/truncate.js';
 import { exponentialProposal } from '../proposals/exponential.js';
 import { substream } from '../random/substream.js';
 import { histogramSvg } from './svg.js';
+import { runCountsDemo } from './demo-counts.js';
 
 /** Rental limit in minutes (invented rule). */
 export const LIMIT_MINUTES = 180;
@@ -200,6 +201,7 @@ export function runDemo(log: (line: string) => void, outDir = 'out', seed = 2026
     }),
   );
 
+  const countsFile = runCountsDemo(log, outDir, seed);
   log('');
-  log(`figures written: ${file}, ${hullFile}, ${demandFile}`);
+  log(`figures written: ${file}, ${hullFile}, ${demandFile}, ${countsFile}`);
 }

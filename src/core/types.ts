@@ -142,3 +142,36 @@ export interface Proposal {
   /** Support `[lower, upper]` of the proposal. */
   readonly support: readonly [number, number];
 }
+
+/**
+ * A distribution on the integers to draw from, described by its (possibly
+ * unnormalized) log-probability-mass function.
+ *
+ * @remarks
+ * Only {@link DiscreteTarget.logPmf} is required; it is called at integers
+ * only. The support ends are integers or infinite; the default support is
+ * `[0, Infinity]` (counts). `mode` is a hint (an integer inside the
+ * support), verified by the sampler; `cdf` is used by checks only.
+ *
+ * @example
+ * ```ts
+ * import { discreteSampler, type DiscreteTarget } from 'exactdraw';
+ * // an unnormalized Poisson(3.5) log-pmf: k ln 3.5 − ln k!
+ * const lp: DiscreteTarget = {
+ *   logPmf: (k) => { let s = k * Math.log(3.5); for (let i = 2; i <= k; i++) s -= Math.log(i); return s; },
+ *   support: [0, Infinity],
+ *   mode: 3,
+ * };
+ * discreteSampler(lp, { seed: 1 }).sample();
+ * ```
+ */
+export interface DiscreteTarget {
+  /** Unnormalized log-pmf at the integer k; `-Infinity` outside the support, never `NaN` or `+Infinity`. */
+  logPmf(k: number): number;
+  /** Support `[lower, upper]`: integers, `lower` may be `-Infinity` and `upper` may be `Infinity`; defaults to `[0, Infinity]`. */
+  readonly support?: readonly [number, number];
+  /** Optional integer location of a mode (a hint; it is verified). */
+  readonly mode?: number;
+  /** Optional normalized cdf P(X ≤ k), used by checks only. */
+  cdf?(k: number): number;
+}

@@ -75,3 +75,29 @@ export interface StdlibKsResult {
 /** One-sample Kolmogorov-Smirnov test against a cdf, exact p-value (Marsaglia, Tsang & Wang 2003). @internal */
 export const kstest: (x: Float64Array, cdf: (x: number) => number, options: { sorted: boolean }) => StdlibKsResult = (x, cdf, options) =>
   (kstestImpl as unknown as (x: Float64Array, cdf: (x: number) => number, o: { sorted: boolean }) => StdlibKsResult)(x, cdf, options);
+
+// Discrete families (src/targets/discrete/).
+import poissonLogpmfImpl from '@stdlib/stats-base-dists-poisson-logpmf';
+import poissonCdfImpl from '@stdlib/stats-base-dists-poisson-cdf';
+import binomialLogpmfImpl from '@stdlib/stats-base-dists-binomial-logpmf';
+import binomialCdfImpl from '@stdlib/stats-base-dists-binomial-cdf';
+import negativeBinomialLogpmfImpl from '@stdlib/stats-base-dists-negative-binomial-logpmf';
+import negativeBinomialCdfImpl from '@stdlib/stats-base-dists-negative-binomial-cdf';
+import geometricLogpmfImpl from '@stdlib/stats-base-dists-geometric-logpmf';
+import geometricCdfImpl from '@stdlib/stats-base-dists-geometric-cdf';
+/** Poisson(λ) log-pmf at k. @internal */
+export const poissonLogpmf: (k: number, lambda: number) => number = poissonLogpmfImpl;
+/** Poisson(λ) cdf at k. @internal */
+export const poissonCdf: (k: number, lambda: number) => number = poissonCdfImpl;
+/** Binomial(n, p) log-pmf at k. @internal */
+export const binomialLogpmf: (k: number, n: number, p: number) => number = binomialLogpmfImpl;
+/** Binomial(n, p) cdf at k. @internal */
+export const binomialCdf: (k: number, n: number, p: number) => number = binomialCdfImpl;
+/** Negative binomial(r, p) log-pmf at k (failures before the r-th success, success probability p). @internal */
+export const negativeBinomialLogpmf: (k: number, r: number, p: number) => number = negativeBinomialLogpmfImpl;
+/** Negative binomial(r, p) cdf at k. @internal */
+export const negativeBinomialCdf: (k: number, r: number, p: number) => number = negativeBinomialCdfImpl;
+/** Geometric(p) log-pmf at k (failures before the first success). @internal */
+export const geometricLogpmf: (k: number, p: number) => number = geometricLogpmfImpl;
+/** Geometric(p) cdf at k. @internal */
+export const geometricCdf: (k: number, p: number) => number = geometricCdfImpl;
