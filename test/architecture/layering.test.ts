@@ -25,7 +25,8 @@ const MAY_IMPORT: Record<string, readonly string[]> = {
   core: [],
   random: ['core', 'vendor'],
   bounds: ['core'],
-  targets: ['core', 'vendor'],
+  discrete: ['core', 'random'],
+  targets: ['core', 'vendor', 'discrete'],
   proposals: ['core'],
   'methods/envelope': ['core'],
   'methods/hull': ['core', 'random', 'bounds', 'methods/envelope'],
@@ -38,9 +39,9 @@ const MAY_IMPORT: Record<string, readonly string[]> = {
   'methods/auto': ['core', 'random', 'bounds', 'methods', 'methods/envelope', 'methods/certified', 'methods/piecewise'],
   methods: ['core', 'random', 'bounds', 'methods/envelope', 'methods/hull', 'methods/piecewise', 'methods/table', 'methods/ratio-of-uniforms', 'methods/certified', 'methods/auto'],
   checks: ['core', 'vendor', 'targets', 'methods/envelope'],
-  index: ['core', 'random', 'bounds', 'targets', 'proposals', 'methods', 'methods/envelope', 'methods/table', 'methods/certified', 'methods/auto', 'checks', 'formula'],
+  index: ['core', 'random', 'bounds', 'targets', 'proposals', 'methods', 'methods/envelope', 'methods/table', 'methods/certified', 'methods/auto', 'checks', 'formula', 'discrete'],
   node: ['core', 'random', 'index', 'checks', 'methods', 'targets', 'proposals'],
-  cli: ['core', 'random', 'vendor', 'bounds', 'targets', 'proposals', 'methods', 'checks', 'index', 'node'],
+  cli: ['core', 'random', 'vendor', 'bounds', 'targets', 'proposals', 'methods', 'checks', 'index', 'node', 'discrete'],
 };
 
 /**
