@@ -28,7 +28,7 @@
  * Monte Carlo error: batch means (40 batches). The 12 posterior means are
  * tested together at the suite's significance ALPHA = 1e-4 (Bonferroni:
  * ALPHA/12 each, two-sided), with the Student-t quantile on 39 degrees of
- * freedom (the batch-means variance is itself estimated): |z| < 5.4.
+ * freedom (the batch-means variance is itself estimated): |z| < 5.13.
  * The biased twin runs the same chain and the same check with a wrong prior
  * rate in the sampler (α ~ exponential(2) in the α conditional) and must be
  * rejected.
