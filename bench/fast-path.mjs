@@ -33,7 +33,7 @@ import { fileURLToPath } from 'node:url';
 import ziggurat from '@stdlib/random-base-improved-ziggurat';
 import stdlibGamma from '@stdlib/random-base-gamma';
 import * as ed from '../dist/index.js';
-import { guard, loadLine, machineLine, median, option, runChildIfAsked, selfCheck, timeAlone, timeInterleaved } from './lib/harness.mjs';
+import { guard, loadLine, machineLine, median, option, runChildIfAsked, selfCheck, timeAlone, timeAloneFull, timeInterleaved } from './lib/harness.mjs';
 
 const args = process.argv.slice(2);
 const HERE = fileURLToPath(import.meta.url);
@@ -198,15 +198,22 @@ say();
 // ----- 2. flatness over the number of strips (each count alone in a fresh process) -------
 const PASSES = 3;
 const stripRuns = Object.fromEntries(STRIPS.flatMap((n) => [[`strips ${n}`, []], [`flat ${n}`, []]]));
-for (let p = 0; p < PASSES; p++) for (const name of Object.keys(stripRuns)) stripRuns[name].push(timeAlone(HERE, name, DRAWS, CHILD_ROUNDS));
+const stripStats = {};
+for (let p = 0; p < PASSES; p++) {
+  for (const name of Object.keys(stripRuns)) {
+    const r = timeAloneFull(HERE, name, DRAWS, CHILD_ROUNDS);
+    stripRuns[name].push(r.ns);
+    stripStats[name] = r.stats;
+  }
+}
 const stripNs = Object.fromEntries(Object.entries(stripRuns).map(([k, v]) => [k, median(v)]));
 say(`## 2. fast normal (seed), ns per draw against the number of strips (each alone in a fresh process, median of ${PASSES} interleaved passes)`);
 for (const n of STRIPS) {
-  const s = CASES[`strips ${n}`]().sampler; // for the table shape only (not timed)
-  say(`${`${n} strips`.padEnd(14)} ${stripNs[`strips ${n}`].toFixed(2).padStart(8)} ns   cells ${String(s.table.cells).padStart(6)}   acceptance (exact, of the table) see stats in section 1`);
+  const st = stripStats[`strips ${n}`];
+  say(`${`${n} strips`.padEnd(14)} ${stripNs[`strips ${n}`].toFixed(2).padStart(8)} ns   cells ${String(st.cells).padStart(6)}   acceptance ${st.acceptanceRate.toFixed(4)}   evaluations/draw ${st.evaluationsPerDraw.toExponential(2)}`);
 }
 say('## 2b. the lookup alone: flat density on [0, 1] (no caps), ns per draw against the number of strips');
-for (const n of STRIPS) say(`${`${n} strips`.padEnd(14)} ${stripNs[`flat ${n}`].toFixed(2).padStart(8)} ns`);
+for (const n of STRIPS) say(`${`${n} strips`.padEnd(14)} ${stripNs[`flat ${n}`].toFixed(2).padStart(8)} ns   cells ${String(stripStats[`flat ${n}`].cells).padStart(6)}`);
 const spread = (prefix, from) => {
   const v = STRIPS.filter((n) => n >= from).map((n) => stripNs[`${prefix} ${n}`]);
   return Math.max(...v) / Math.min(...v);

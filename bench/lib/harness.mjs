@@ -67,10 +67,15 @@ export function timeInterleaved(cases, { size, rounds, between }) {
  * the median ns per element it reports (the script builds that case only).
  */
 export function timeAlone(script, name, size, rounds, extra = []) {
+  return timeAloneFull(script, name, size, rounds, extra).ns;
+}
+
+/** As {@link timeAlone}, returning the child's whole report { ns, rounds, stats? }. */
+export function timeAloneFull(script, name, size, rounds, extra = []) {
   const raw = execFileSync(process.execPath, [script, '--case', name, '--size', String(size), '--rounds', String(rounds), ...extra], { encoding: 'utf8' });
   const r = JSON.parse(raw);
   if (typeof r.ns !== 'number' || !(r.ns > 0)) throw new Error(`${script} --case '${name}': bad output ${raw}`);
-  return r.ns;
+  return r;
 }
 
 /**
@@ -87,6 +92,10 @@ export function runChildIfAsked(args, table) {
   const rounds = Number(option(args, '--rounds', 5));
   const c = { name, ...make() };
   const [res] = timeInterleaved([c], { size: c.size ?? size, rounds });
-  process.stdout.write(JSON.stringify({ ns: res.ns, rounds: res.rounds }));
+  const st = c.sampler?.stats;
+  const stats = st
+    ? { acceptanceRate: st.acceptanceRate, evaluationsPerDraw: st.samples > 0 ? st.densityEvaluations / st.samples : null, cells: c.sampler.table?.cells ?? null, strips: c.sampler.table?.strips ?? null }
+    : c.stats?.();
+  process.stdout.write(JSON.stringify({ ns: res.ns, rounds: res.rounds, stats }));
   return true;
 }
