@@ -51,6 +51,17 @@ const FNI = 'fast normal (uniform: mersenneTwister, per value)';
 const FGI = 'fast gamma(2.5) (uniform: mersenneTwister)';
 const HN = 'adaptive hull normal (plain)';
 const HG = 'adaptive hull gamma(2.5) (plain)';
+const MF = 'exactSampler multimodal, fast path (expectedDraws 1e6)';
+const MP = 'exactSampler multimodal, plain piecewise';
+// the suite's worked multimodal example (src/cli/builtin.ts, multimodalLogDensity)
+const multimodal = {
+  logDensity(x) {
+    const s6 = Math.sin(6 * x);
+    const c1 = Math.cos(x);
+    const s4 = Math.sin(4 * x);
+    return -0.5 * x * x + Math.log(s6 * s6 + 3 * c1 * c1 * s4 * s4 + 1);
+  },
+};
 
 // Each make() builds one generator and returns its fill with the loop written out.
 const CASES = {
@@ -102,6 +113,14 @@ const CASES = {
     const s = ed.adaptiveRejectionSampler(gamma, { seed: 16 });
     return { sampler: s, fill: (out) => s.fill(out) };
   },
+  [MF]: () => {
+    const s = ed.exactSampler(multimodal, { seed: 17, expectedDraws: 1e6 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [MP]: () => {
+    const s = ed.exactSampler(multimodal, { seed: 18 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
 };
 // strip counts: only ever timed alone in a fresh process (one sampler per process)
 for (const n of STRIPS) {
@@ -148,7 +167,7 @@ say(`# ${DRAWS} draws per round, ${ROUNDS} interleaved rounds, medians of ns per
 say();
 
 // ----- 1. per-draw time, side by side ---------------------------------------------
-const MAIN = [RAW, Z, G, FN, FG, FNI, FGI, HN, HG];
+const MAIN = [RAW, Z, G, FN, FG, FNI, FGI, HN, HG, MF, MP];
 const built = MAIN.map((name) => ({ name, ...CASES[name]() }));
 const rawAlone = [];
 const aloneRuns = Object.fromEntries(MAIN.map((n) => [n, []]));
@@ -169,10 +188,10 @@ say('## 1. ns per draw, same MT19937 implementation; each generator in its own l
 say(`${'case'.padEnd(52)} ${'this process'.padStart(12)}   ${'alone, fresh process'.padStart(20)}`);
 for (const r of side) say(`${r.name.padEnd(52)} ${r.ns.toFixed(2).padStart(12)}   ${alone[r.name].toFixed(2).padStart(20)}`);
 say(check.line);
-for (const [label, name] of [['fast normal (seed)', FN], ['fast gamma(2.5) (seed)', FG]]) {
+for (const [label, name] of [['fast normal (seed)', FN], ['fast gamma(2.5) (seed)', FG], ['multimodal fast path', MF], ['multimodal plain', MP]]) {
   const s = built.find((b) => b.name === name).sampler;
   const st = s.stats;
-  say(`${label}: acceptance ${st.acceptanceRate.toFixed(5)}, evaluations per draw ${(st.densityEvaluations / st.samples).toExponential(2)}, ${s.table.strips} strips, ${s.table.cells} cells`);
+  say(`${label}: acceptance ${st.acceptanceRate.toFixed(5)}, evaluations per draw ${(st.densityEvaluations / st.samples).toExponential(2)}${s.table ? `, ${s.table.strips} strips, ${s.table.cells} cells` : ''}${s.choice ? `, method ${s.choice.method ?? JSON.stringify(s.choice)}` : ''}`);
 }
 const ratio = (a, b, src = ns) => src[a] / src[b];
 const ratios = {
@@ -184,6 +203,7 @@ const ratios = {
   gammaVsRawUniform: ratio(FG, RAW),
   hullNormalVsZiggurat: ratio(HN, Z),
   hullGammaVsStdlib: ratio(HG, G),
+  multimodalFastVsPlain: ratio(MF, MP),
   alone: {
     normalVsZiggurat: ratio(FN, Z, alone),
     normalInjectedVsZiggurat: ratio(FNI, Z, alone),
@@ -300,6 +320,7 @@ say(`fast gamma(2.5) / @stdlib gamma(2.5), own stream               ${f(ratios.g
 say(`fast gamma(2.5) / @stdlib gamma(2.5), injected uniform         ${f(ratios.gammaInjectedVsStdlib)} [${f(ratios.alone.gammaInjectedVsStdlib)}]   (goal <= 0.5)`);
 say(`fast normal / raw uniform, fast gamma(2.5) / raw uniform       ${f(ratios.normalVsRawUniform)}, ${f(ratios.gammaVsRawUniform)}   (goal <= 1.5)`);
 say(`plain hull normal / ziggurat, plain hull gamma / stdlib gamma  ${f(ratios.hullNormalVsZiggurat)} [${f(ratios.alone.hullNormalVsZiggurat)}], ${f(ratios.hullGammaVsStdlib)} [${f(ratios.alone.hullGammaVsStdlib)}]   (goals <= 2.5, <= 0.6)`);
+say(`multimodal: exactSampler fast path / plain piecewise          ${f(ratios.multimodalFastVsPlain)}`);
 say(`ns per draw max/min over 10..10,000 strips                      ${f(ratios.flatness10to10000)}; over 30.. ${f(ratios.flatness30to10000)}; over 100.. ${f(ratios.flatness100to10000)}; lookup alone ${f(ratios.lookupFlatness10to10000)}`);
 for (const [label, p] of Object.entries(payback)) {
   for (const mode of ['warm', 'cold']) {
