@@ -15,20 +15,23 @@
 //   fresh hulls on gammaTarget, α from a fresh hull on its non-conjugate
 //   log-density (12 fresh samplers per sweep);
 // - the raw MT19937 uniform, for the harness self-check: it must agree within
-//   10 % with the same loop alone in a fresh process (run after every round).
+//   10 % with the same loop in bench/lib/raw-alone.mjs (run after every round).
+// Every case runs alone in a fresh process (`--case NAME`), in interleaved
+// rounds: several MT19937 instances in one process make the shared wrapper's
+// call sites slower (see bench/fast-path.mjs).
 // Reported: microseconds per step or sweep, evaluations per step (setup included).
 import { writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import gammaln from '@stdlib/math-base-special-gammaln';
 import stdlibGamma from '@stdlib/random-base-gamma';
 import * as ed from '../dist/index.js';
-import { loadLine, machineLine, option, runChildIfAsked, selfCheck, timeAlone, timeInterleaved } from './lib/harness.mjs';
+import { loadLine, machineLine, option, runChildIfAsked, selfCheck, timeInFreshProcesses } from './lib/harness.mjs';
 
 const args = process.argv.slice(2);
 const HERE = fileURLToPath(import.meta.url);
 const STEPS = Number(option(args, '--steps', 20000));
 const SWEEPS = Number(option(args, '--sweeps', 2000));
-const ROUNDS = Number(option(args, '--rounds', 7));
+const ROUNDS = Number(option(args, '--rounds', 5));
 const JSON_OUT = option(args, '--json', undefined);
 const RAW_SIZE = 1_000_000;
 
@@ -152,21 +155,15 @@ console.log(`# Gibbs steps: a fresh conditional each draw; command: ${command} (
 console.log(machineLine());
 console.log(loadLine('at start'));
 const names = [RAW, TAN, SEC, PEER, PUMP];
-const built = names.map((name) => ({ name, ...CASES[name]() }));
-const rawAlone = [];
-const res = timeInterleaved(built, {
-  rounds: ROUNDS,
-  between() {
-    rawAlone.push(timeAlone(HERE, RAW, RAW_SIZE, 5));
-  },
-});
-const check = selfCheck(res[0].rounds, rawAlone);
-const rows = res.map((r, k) => ({ name: r.name, usPerStep: r.ns / 1000, nsPerStep: r.ns, ...(built[k].stats ? built[k].stats() : {}) }));
+const fresh = timeInFreshProcesses(HERE, names, { size: RAW_SIZE, rounds: ROUNDS, childRounds: 3, extra: ['--steps', String(STEPS), '--sweeps', String(SWEEPS)] });
+const check = selfCheck(fresh.cases[RAW].runs, fresh.reference);
+const rows = names.map((name) => ({ name, usPerStep: fresh.cases[name].ns / 1000, nsPerStep: fresh.cases[name].ns, runsNs: fresh.cases[name].runs, ...(fresh.cases[name].stats ?? {}) }));
 for (const r of rows) {
   if (r.name === RAW) console.log(`${r.name.padEnd(46)} ${r.nsPerStep.toFixed(2).padStart(9)} ns per uniform`);
   else if (r.name === PUMP) console.log(`${r.name.padEnd(46)} ${r.usPerStep.toFixed(2).padStart(9)} us/sweep  ${r.evaluationsPerSweep.toFixed(2)} evaluations/sweep`);
   else console.log(`${r.name.padEnd(46)} ${r.usPerStep.toFixed(3).padStart(9)} us/step   ${r.evaluationsPerStep.toFixed(2)} evaluations/step`);
 }
+console.log(`# medians of ${ROUNDS} interleaved rounds, each case alone in a fresh process (3 timed fills there)`);
 console.log(check.line);
 console.log(loadLine('at end'));
 if (JSON_OUT) writeFileSync(JSON_OUT, JSON.stringify({ schema: 'exactdraw-gibbs/1', command, node: process.version, rounds: ROUNDS, rows, selfCheck: check }, null, 2) + '\n');

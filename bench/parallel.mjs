@@ -26,17 +26,16 @@
 // is the library's own fill (one generator per fill, no call site shared with
 // another generator in this script). Self-check: after every round the raw
 // MT19937 uniform is timed in a loop of its own in this process and alone in a
-// fresh process; the two must agree within 10 %, or the run says so.
+// fresh process (bench/lib/raw-alone.mjs); the two must agree within 10 %, or
+// the run says so.
 import os from 'node:os';
 import { writeFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { createParallelFiller, fillParallel } from '../dist/node/index.js';
 import { mersenneTwister, partitionedFill } from '../dist/index.js';
 import { samplers } from './parallel-suite.mjs';
-import { guard, runChildIfAsked, selfCheck, timeAlone, timeInterleaved } from './lib/harness.mjs';
+import { guard, rawAlone, selfCheck, timeInterleaved } from './lib/harness.mjs';
 
 const args = process.argv.slice(2);
-const HERE = fileURLToPath(import.meta.url);
 const RAW = 'mt19937 uniform (raw)';
 const RAW_SIZE = 1_000_000;
 const CASES = {
@@ -50,7 +49,6 @@ const CASES = {
     };
   },
 };
-if (runChildIfAsked(args, CASES)) process.exit(0);
 const opt = (name, def) => {
   const i = args.indexOf(name);
   return i >= 0 ? args[i + 1] : def;
@@ -89,7 +87,7 @@ const compare = () => {
 };
 const raw = { name: RAW, ...CASES[RAW]() };
 const rawHere = [];
-const rawAlone = [];
+const rawRef = [];
 const time = async (key, f) => {
   const t = performance.now();
   await f();
@@ -104,7 +102,7 @@ for (let r = 0; r < ROUNDS; r++) {
   await time('pool2', () => pool2.fill(parOut, { seed: SEED }));
   same = same && compare();
   rawHere.push(timeInterleaved([raw], { rounds: 1 })[0].ns);
-  rawAlone.push(timeAlone(HERE, RAW, RAW_SIZE, 5));
+  rawRef.push(rawAlone(RAW_SIZE, 5));
   console.log(`round ${r + 1}: ` + Object.entries(times).map(([k, v]) => `${k} ${v[r].toFixed(0)} ms`).join(', '));
 }
 await pool1.close();
@@ -132,7 +130,7 @@ const res = {
     fillerOverOneThread: median(times.oneThread.map((v, r) => v / times.pool2[r])),
   },
   identical: same,
-  selfCheck: selfCheck(rawHere, rawAlone),
+  selfCheck: selfCheck(rawHere, rawRef),
   load: { start: load0, end: loadavg() },
 };
 console.log(`medians: one thread ${med.oneThread.toFixed(0)} ms (${ns(med.oneThread)} ns/draw)`);

@@ -78,6 +78,44 @@ export function timeAloneFull(script, name, size, rounds, extra = []) {
   return r;
 }
 
+const RAW_ALONE = new URL('./raw-alone.mjs', import.meta.url);
+
+/** The self-check's reference: the raw uniform loop alone in a fresh process (bench/lib/raw-alone.mjs), ns per uniform. */
+export function rawAlone(size, rounds = 5) {
+  const raw = execFileSync(process.execPath, [RAW_ALONE.pathname, String(size), String(rounds)], { encoding: 'utf8' });
+  const r = JSON.parse(raw);
+  if (typeof r.ns !== 'number' || !(r.ns > 0)) throw new Error(`raw-alone.mjs: bad output ${raw}`);
+  return r.ns;
+}
+
+/**
+ * Interleaved rounds of fresh processes: in every round each case of `names`
+ * runs alone in a fresh process (`script --case NAME`), then the self-check's
+ * reference (the raw uniform in bench/lib/raw-alone.mjs). Returns
+ * { cases: { name: { ns, runs, stats } }, reference: [ns per round] }; `ns` is
+ * the median over rounds, `runs` the per-round figures (for per-round ratios).
+ */
+export function timeInFreshProcesses(script, names, { size, rounds, childRounds = 5, extra = [], progress }) {
+  const cases = Object.fromEntries(names.map((n) => [n, { ns: NaN, runs: [], stats: undefined }]));
+  const reference = [];
+  for (let r = 0; r < rounds; r++) {
+    for (const n of names) {
+      const res = timeAloneFull(script, n, size, childRounds, extra);
+      cases[n].runs.push(res.ns);
+      cases[n].stats = res.stats;
+    }
+    reference.push(rawAlone(size, childRounds));
+    progress?.(r);
+  }
+  for (const n of names) cases[n].ns = median(cases[n].runs);
+  return { cases, reference };
+}
+
+/** Median over rounds of the per-round ratio a/b (both measured in the same round, back to back). */
+export function perRoundRatio(a, b) {
+  return median(a.map((v, i) => v / b[i]));
+}
+
 /**
  * Child-process entry: when argv has `--case NAME`, builds that one case from
  * `table` (name -> make), times it alone and prints { ns } as JSON. Returns true
