@@ -2,25 +2,35 @@
 // Benchmark of the table-driven fast path (tableSampler) against @stdlib peers,
 // run against the build (dist/): `npm run build && node bench/fast-path.mjs`.
 //
-// Options: --draws N (per round, default 1e6), --rounds R (default 9),
+// Options: --draws N (per fill, default 1e6), --passes P (rounds of fresh
+//          processes, default 5), --rounds R (in-process rounds, default 9),
 //          --json FILE (also write the figures as JSON).
 //
-// What it measures (ns per draw are medians over interleaved rounds after a
-// warm-up; every generator draws from MT19937 via @stdlib/random-base-mt19937):
-// 1. per-draw time side by side in one process: standard normal from its
-//    log-density vs @stdlib improved-ziggurat, gamma(2.5) vs @stdlib gamma;
-//    the peers also once more in a fresh process of their own (see below);
-// 2. ns per draw against the number of strips (10 ... 10,000);
+// Harness rule (DEVELOPERS.md, benchmark policy): every generator is timed in a
+// loop of its own, written out in its case below as a user would write it
+// (`for (...) out[i] = next()` for a peer, `s.fill(out)` for a sampler), so no
+// per-draw call site is shared between generators; V8 makes a call site that
+// sees several generator closures megamorphic (about 10 ns per call here), which
+// once made the peers look twice as slow as in a user's program. Every
+// generator draws from MT19937 (@stdlib/random-base-mt19937 through
+// mersenneTwister). Medians of interleaved rounds after two warm-up fills; a
+// non-finite draw aborts the run.
+//
+// 1. ns per draw, every case alone in a fresh process (`--case NAME`), in
+//    interleaved rounds (the figures the ratios use: each generator is the only
+//    one in its process, as in a user's program), and every case in this
+//    process, each in its own loop (second column: with several MT19937
+//    instances in one process the shared wrapper's call sites cost some ns per
+//    uniform, measured 1.24-1.28x for the raw uniform under load). Self-check:
+//    the raw uniform as timed by the harness must agree within 10 % with the
+//    same loop in bench/lib/raw-alone.mjs (no harness code), run after every
+//    round; the run prints whether it does.
+// 2. ns per draw against the number of strips (10 ... 10,000) and the lookup
+//    alone on a flat density: every strip count alone in a fresh process,
+//    interleaved passes (several samplers in one process would share the
+//    library's per-draw call sites).
 // 3. setup payback: setup + 10,000 draws, fast path vs plain hull sampler,
 //    warm (setup code optimized) and cold (first sampler in a fresh process).
-//
-// Why the peers are also timed alone: V8 specializes the @stdlib MT19937
-// closures on their context only while a single generator instance reaches a
-// call site; with several instances in one process (any realistic program,
-// and this benchmark) every per-call uniform gets slower. The seeded fast
-// path reads its own MT19937 in blocks (same stream) and is not affected; a
-// fast path given an injected `uniform` calls it per value like the peers.
-// Both comparisons are printed.
 import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -28,63 +38,113 @@ import { fileURLToPath } from 'node:url';
 import ziggurat from '@stdlib/random-base-improved-ziggurat';
 import stdlibGamma from '@stdlib/random-base-gamma';
 import * as ed from '../dist/index.js';
+import { guard, loadLine, machineLine, median, option, perRoundRatio, runChildIfAsked, selfCheck, timeAloneFull, timeInFreshProcesses, timeInterleaved } from './lib/harness.mjs';
 
 const args = process.argv.slice(2);
-const opt = (name, def) => {
-  const i = args.indexOf(name);
-  return i >= 0 ? args[i + 1] : def;
-};
-const DRAWS = Number(opt('--draws', 1_000_000));
-const ROUNDS = Number(opt('--rounds', 9));
-const JSON_OUT = opt('--json', undefined);
-const CHILD = opt('--child', undefined);
+const HERE = fileURLToPath(import.meta.url);
+const normal = ed.normalTarget(0, 1);
+const gamma = ed.gammaTarget(2.5, 1);
+const flatTarget = { logDensity: (x) => (x >= 0 && x <= 1 ? 0 : -Infinity), support: [0, 1], mode: 0.5 };
+const STRIPS = [10, 30, 100, 300, 500, 1000, 3000, 10000];
 
-const median = (a) => {
-  const s = [...a].sort((x, y) => x - y);
-  return s.length % 2 ? s[(s.length - 1) / 2] : 0.5 * (s[s.length / 2 - 1] + s[s.length / 2]);
+const RAW = 'mt19937 uniform (raw)';
+const Z = '@stdlib improved-ziggurat normal';
+const G = '@stdlib gamma(2.5)';
+const FN = 'fast normal (seed: own MT19937 in blocks)';
+const FG = 'fast gamma(2.5) (seed)';
+const FNI = 'fast normal (uniform: mersenneTwister, per value)';
+const FGI = 'fast gamma(2.5) (uniform: mersenneTwister)';
+const HN = 'adaptive hull normal (plain)';
+const HG = 'adaptive hull gamma(2.5) (plain)';
+const MF = 'exactSampler multimodal, fast path (expectedDraws 1e6)';
+const MP = 'exactSampler multimodal, plain piecewise';
+// the suite's worked multimodal example (src/cli/builtin.ts, multimodalLogDensity)
+const multimodal = {
+  logDensity(x) {
+    const s6 = Math.sin(6 * x);
+    const c1 = Math.cos(x);
+    const s4 = Math.sin(4 * x);
+    return -0.5 * x * x + Math.log(s6 * s6 + 3 * c1 * c1 * s4 * s4 + 1);
+  },
 };
 
-/** A fill function over a generator closure, with a NaN guard so the loop cannot be optimised away. */
-function loopFill(next) {
-  return (out) => {
-    for (let i = 0; i < out.length; i++) out[i] = next();
-    return out;
+// Each make() builds one generator and returns its fill with the loop written out.
+const CASES = {
+  [RAW]: () => {
+    const next = ed.mersenneTwister(101);
+    return {
+      fill(out) {
+        for (let i = 0; i < out.length; i++) out[i] = next();
+      },
+    };
+  },
+  [Z]: () => {
+    const zig = ziggurat.factory({ prng: ed.mersenneTwister(102) });
+    return {
+      fill(out) {
+        for (let i = 0; i < out.length; i++) out[i] = zig();
+      },
+    };
+  },
+  [G]: () => {
+    const gam = stdlibGamma.factory(2.5, 1, { prng: ed.mersenneTwister(103) });
+    return {
+      fill(out) {
+        for (let i = 0; i < out.length; i++) out[i] = gam();
+      },
+    };
+  },
+  [FN]: () => {
+    const s = ed.tableSampler(normal, { seed: 11 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [FG]: () => {
+    const s = ed.tableSampler(gamma, { seed: 12 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [FNI]: () => {
+    const s = ed.tableSampler(normal, { uniform: ed.mersenneTwister(13) });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [FGI]: () => {
+    const s = ed.tableSampler(gamma, { uniform: ed.mersenneTwister(14) });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [HN]: () => {
+    const s = ed.adaptiveRejectionSampler(normal, { seed: 15 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [HG]: () => {
+    const s = ed.adaptiveRejectionSampler(gamma, { seed: 16 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [MF]: () => {
+    const s = ed.exactSampler(multimodal, { seed: 17, expectedDraws: 1e6 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+  [MP]: () => {
+    const s = ed.exactSampler(multimodal, { seed: 18 });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  },
+};
+// strip counts: only ever timed alone in a fresh process (one sampler per process)
+for (const n of STRIPS) {
+  CASES[`strips ${n}`] = () => {
+    const s = ed.tableSampler(normal, { seed: 20 + n, strips: n });
+    return { sampler: s, fill: (out) => s.fill(out) };
+  };
+  CASES[`flat ${n}`] = () => {
+    const s = ed.tableSampler(flatTarget, { seed: 40 + n, strips: n });
+    return { sampler: s, fill: (out) => s.fill(out) };
   };
 }
 
-/** Interleaved rounds: every case runs once per round, in the same order. Returns median ns per draw. */
-function timeCases(cases, draws, rounds) {
-  const out = new Float64Array(draws);
-  for (const c of cases) {
-    c.fill(out); // warm-up (JIT)
-    c.fill(out);
-  }
-  const t = cases.map(() => []);
-  for (let r = 0; r < rounds; r++) {
-    cases.forEach((c, k) => {
-      const a = performance.now();
-      c.fill(out);
-      const b = performance.now();
-      let sum = 0;
-      for (let i = 0; i < out.length; i += 101) sum += out[i];
-      if (!Number.isFinite(sum)) throw new Error(`${c.name}: non-finite draw`);
-      t[k].push(((b - a) * 1e6) / draws);
-    });
-  }
-  return cases.map((c, k) => ({ name: c.name, ns: median(t[k]), rounds: t[k] }));
-}
+if (runChildIfAsked(args, CASES)) process.exit(0);
 
-const normal = ed.normalTarget(0, 1);
-const gamma = ed.gammaTarget(2.5, 1);
-const peerCases = (seed) => [
-  { name: 'mt19937 uniform (raw)', fill: loopFill(ed.mersenneTwister(seed)) },
-  { name: '@stdlib improved-ziggurat normal', fill: loopFill(ziggurat.factory({ prng: ed.mersenneTwister(seed + 1) })) },
-  { name: '@stdlib gamma(2.5)', fill: loopFill(stdlibGamma.factory(2.5, 1, { prng: ed.mersenneTwister(seed + 2) })) },
-];
-
-if (CHILD !== undefined && CHILD.startsWith('cold:')) {
+const coldChild = option(args, '--cold', undefined);
+if (coldChild !== undefined) {
   // the first sampler in a fresh process: setup and the first 10,000 draws
-  const [, kind, tname] = CHILD.split(':');
+  const [kind, tname] = coldChild.split(':');
   const t = tname === 'normal' ? ed.normalTarget(0, 1) : ed.gammaTarget(2.5, 1);
   const out = new Float64Array(10_000);
   const a = performance.now();
@@ -92,110 +152,104 @@ if (CHILD !== undefined && CHILD.startsWith('cold:')) {
   const b = performance.now();
   s.fill(out);
   const c = performance.now();
+  guard(coldChild, out, 1);
   process.stdout.write(JSON.stringify({ setupMs: b - a, totalMs: c - a }));
   process.exit(0);
 }
 
-if (CHILD === 'peers') {
-  // a fresh process with only the peers: each call site sees one generator
-  process.stdout.write(JSON.stringify(timeCases(peerCases(101), DRAWS, ROUNDS)));
-  process.exit(0);
-}
-
-const command = `node bench/fast-path.mjs --draws ${DRAWS} --rounds ${ROUNDS}${JSON_OUT ? ` --json ${JSON_OUT}` : ''}`;
+const DRAWS = Number(option(args, '--draws', 1_000_000));
+const ROUNDS = Number(option(args, '--rounds', 9));
+const JSON_OUT = option(args, '--json', undefined);
+const CHILD_ROUNDS = 5;
+const PASSES = Number(option(args, '--passes', 5));
+const command = `node bench/fast-path.mjs --draws ${DRAWS} --rounds ${ROUNDS} --passes ${PASSES}${JSON_OUT ? ` --json ${JSON_OUT}` : ''}`;
 const load0 = os.loadavg();
-const lines = [];
-const say = (s = '') => {
-  lines.push(s);
-  console.log(s);
-};
+const say = (s = '') => console.log(s);
 say(`# exactdraw fast-path benchmark`);
 say(`# command: ${command} (after npm run build)`);
-say(`# node ${process.version}, ${os.cpus()[0]?.model ?? 'cpu'} x ${os.cpus().length}, ${new Date().toISOString()}`);
-say(`# load average at start: ${load0.map((x) => x.toFixed(2)).join(', ')}`);
-say(`# ${DRAWS} draws per round, ${ROUNDS} interleaved rounds, medians of ns per draw`);
+say(machineLine());
+say(loadLine('at start'));
+say(`# ${DRAWS} draws per fill; ${PASSES} interleaved rounds of fresh processes, ${ROUNDS} in-process rounds; medians of ns per draw; each generator in a loop of its own`);
 say();
 
 // ----- 1. per-draw time, side by side ---------------------------------------------
-const fastNormal = ed.tableSampler(normal, { seed: 11 });
-const fastGamma = ed.tableSampler(gamma, { seed: 12 });
-const fastNormalInj = ed.tableSampler(normal, { uniform: ed.mersenneTwister(13) });
-const fastGammaInj = ed.tableSampler(gamma, { uniform: ed.mersenneTwister(14) });
-const hullNormal = ed.adaptiveRejectionSampler(normal, { seed: 15 });
-const hullGamma = ed.adaptiveRejectionSampler(gamma, { seed: 16 });
-const side = timeCases(
-  [
-    ...peerCases(1),
-    { name: 'fast normal (seed: own MT19937 in blocks)', fill: (o) => fastNormal.fill(o) },
-    { name: 'fast gamma(2.5) (seed)', fill: (o) => fastGamma.fill(o) },
-    { name: 'fast normal (uniform: mersenneTwister, per value)', fill: (o) => fastNormalInj.fill(o) },
-    { name: 'fast gamma(2.5) (uniform: mersenneTwister)', fill: (o) => fastGammaInj.fill(o) },
-    { name: 'adaptive hull normal (plain)', fill: (o) => hullNormal.fill(o) },
-    { name: 'adaptive hull gamma(2.5) (plain)', fill: (o) => hullGamma.fill(o) },
-  ],
-  DRAWS,
-  ROUNDS,
-);
+// (a) every case alone in a fresh process, interleaved rounds (the primary figures: each
+//     generator is the only one in its process, as in a user's program with one generator);
+// (b) every case in this process, each in its own loop (several MT19937 instances then share
+//     the wrapper's call sites, which costs some ns per uniform: see the in-process line).
+const MAIN = [RAW, Z, G, FN, FG, FNI, FGI, HN, HG, MF, MP];
+const fresh = timeInFreshProcesses(HERE, MAIN, { size: DRAWS, rounds: PASSES, childRounds: CHILD_ROUNDS });
+const alone = Object.fromEntries(MAIN.map((n) => [n, fresh.cases[n].ns]));
+const aloneRuns = Object.fromEntries(MAIN.map((n) => [n, fresh.cases[n].runs]));
+const check = selfCheck(aloneRuns[RAW], fresh.reference);
+const built = MAIN.map((name) => ({ name, ...CASES[name]() }));
+const side = timeInterleaved(built, { size: DRAWS, rounds: ROUNDS });
 const ns = Object.fromEntries(side.map((r) => [r.name, r.ns]));
-let alone = null;
-try {
-  const here = fileURLToPath(import.meta.url);
-  const raw = execFileSync(process.execPath, [here, '--child', 'peers', '--draws', String(DRAWS), '--rounds', String(ROUNDS)], { encoding: 'utf8' });
-  alone = Object.fromEntries(JSON.parse(raw).map((r) => [r.name, r.ns]));
-} catch (e) {
-  say(`# (peers in a fresh process could not be timed: ${e.message})`);
-}
-say('## 1. ns per draw, one process, same MT19937 implementation');
-for (const r of side) say(`${r.name.padEnd(52)} ${r.ns.toFixed(2).padStart(8)}${alone && alone[r.name] !== undefined ? `   (alone in a fresh process: ${alone[r.name].toFixed(2)})` : ''}`);
-for (const [label, s] of [['fast normal (seed)', fastNormal], ['fast gamma(2.5) (seed)', fastGamma]]) {
+const inProcessRaw = ns[RAW] / alone[RAW];
+say(`## 1. ns per draw, same MT19937 implementation; each generator in its own loop`);
+say(`${'case'.padEnd(56)} ${'fresh process'.padStart(13)}   ${'this process'.padStart(12)}`);
+for (const name of MAIN) say(`${name.padEnd(56)} ${alone[name].toFixed(2).padStart(13)}   ${ns[name].toFixed(2).padStart(12)}`);
+say(`# fresh process: median of ${PASSES} interleaved rounds, each case alone in its own process (${CHILD_ROUNDS} fills there); this process: median of ${ROUNDS} interleaved rounds`);
+say(check.line);
+say(`# in this process the raw uniform took ${inProcessRaw.toFixed(3)}x its fresh-process time (several generator instances in one process); ratios below use the fresh-process figures`);
+for (const [label, name] of [['fast normal (seed)', FN], ['fast gamma(2.5) (seed)', FG], ['multimodal fast path', MF], ['multimodal plain', MP]]) {
+  const s = built.find((b) => b.name === name).sampler;
   const st = s.stats;
-  say(`${label}: acceptance ${st.acceptanceRate.toFixed(5)}, evaluations per draw ${(st.densityEvaluations / st.samples).toExponential(2)}, ${s.table.strips} strips, ${s.table.cells} cells`);
+  say(`${label}: acceptance ${st.acceptanceRate.toFixed(5)}, evaluations per draw ${(st.densityEvaluations / st.samples).toExponential(2)}${s.table ? `, ${s.table.strips} strips, ${s.table.cells} cells` : ''}${s.choice ? `, method ${s.choice.method}` : ''}`);
 }
-const Z = '@stdlib improved-ziggurat normal';
-const G = '@stdlib gamma(2.5)';
+// ratios: median over rounds of the per-round ratio of fresh processes run back to back
+const ratio = (a, b) => perRoundRatio(aloneRuns[a], aloneRuns[b]);
+const ratioHere = (a, b) => ns[a] / ns[b];
 const ratios = {
-  normalVsZiggurat: ns['fast normal (seed: own MT19937 in blocks)'] / ns[Z],
-  gammaVsStdlib: ns['fast gamma(2.5) (seed)'] / ns[G],
-  normalInjectedVsZiggurat: ns['fast normal (uniform: mersenneTwister, per value)'] / ns[Z],
-  gammaInjectedVsStdlib: ns['fast gamma(2.5) (uniform: mersenneTwister)'] / ns[G],
-  normalVsZigguratAlone: alone ? ns['fast normal (seed: own MT19937 in blocks)'] / alone[Z] : null,
-  gammaVsStdlibAlone: alone ? ns['fast gamma(2.5) (seed)'] / alone[G] : null,
+  normalVsZiggurat: ratio(FN, Z),
+  normalInjectedVsZiggurat: ratio(FNI, Z),
+  gammaVsStdlib: ratio(FG, G),
+  gammaInjectedVsStdlib: ratio(FGI, G),
+  normalVsRawUniform: ratio(FN, RAW),
+  gammaVsRawUniform: ratio(FG, RAW),
+  hullNormalVsZiggurat: ratio(HN, Z),
+  hullGammaVsStdlib: ratio(HG, G),
+  multimodalFastVsPlain: ratio(MF, MP),
+  injectedVsOwnNormal: ratio(FNI, FN),
+  thisProcess: {
+    normalVsZiggurat: ratioHere(FN, Z),
+    normalInjectedVsZiggurat: ratioHere(FNI, Z),
+    gammaVsStdlib: ratioHere(FG, G),
+    gammaInjectedVsStdlib: ratioHere(FGI, G),
+    hullNormalVsZiggurat: ratioHere(HN, Z),
+    hullGammaVsStdlib: ratioHere(HG, G),
+    rawUniformVsFreshProcess: inProcessRaw,
+  },
 };
 say();
 
-// ----- 2. flatness over the number of strips ---------------------------------------------
-const STRIPS = [10, 30, 100, 300, 500, 1000, 3000, 10000];
-const bySamplers = STRIPS.map((n) => ed.tableSampler(normal, { seed: 20 + n, strips: n }));
-const flat = timeCases(
-  bySamplers.map((s, k) => ({ name: `${STRIPS[k]} strips`, fill: (o) => s.fill(o) })),
-  DRAWS,
-  ROUNDS,
-);
-say('## 2. fast normal (seed), ns per draw against the number of strips');
-flat.forEach((r, k) => {
-  const s = bySamplers[k];
-  const st = s.stats;
-  say(`${r.name.padEnd(14)} ${r.ns.toFixed(2).padStart(8)} ns   cells ${String(s.table.cells).padStart(6)}   acceptance ${st.acceptanceRate.toFixed(4)}   evaluations/draw ${(st.densityEvaluations / st.samples).toExponential(2)}`);
-});
-// the lookup alone: a flat density on [0, 1] has no caps (envelope = squeeze on every strip),
-// so every draw is a table lookup (the two strips at the support's ends take the clamped path)
-const flatTarget = { logDensity: (x) => (x >= 0 && x <= 1 ? 0 : -Infinity), support: [0, 1], mode: 0.5 };
-const lookupSamplers = STRIPS.map((n) => ed.tableSampler(flatTarget, { seed: 40 + n, strips: n }));
-const lookup = timeCases(
-  lookupSamplers.map((s, k) => ({ name: `${STRIPS[k]} strips`, fill: (o) => s.fill(o) })),
-  DRAWS,
-  ROUNDS,
-);
+// ----- 2. flatness over the number of strips (each count alone in a fresh process) -------
+const stripRuns = Object.fromEntries(STRIPS.flatMap((n) => [[`strips ${n}`, []], [`flat ${n}`, []]]));
+const stripStats = {};
+const STRIP_PASSES = 3;
+for (let p = 0; p < STRIP_PASSES; p++) {
+  for (const name of Object.keys(stripRuns)) {
+    const r = timeAloneFull(HERE, name, DRAWS, CHILD_ROUNDS);
+    stripRuns[name].push(r.ns);
+    stripStats[name] = r.stats;
+  }
+}
+const stripNs = Object.fromEntries(Object.entries(stripRuns).map(([k, v]) => [k, median(v)]));
+say(`## 2. fast normal (seed), ns per draw against the number of strips (each alone in a fresh process, median of ${STRIP_PASSES} interleaved passes)`);
+for (const n of STRIPS) {
+  const st = stripStats[`strips ${n}`];
+  say(`${`${n} strips`.padEnd(14)} ${stripNs[`strips ${n}`].toFixed(2).padStart(8)} ns   cells ${String(st.cells).padStart(6)}   acceptance ${st.acceptanceRate.toFixed(4)}   evaluations/draw ${st.evaluationsPerDraw.toExponential(2)}`);
+}
 say('## 2b. the lookup alone: flat density on [0, 1] (no caps), ns per draw against the number of strips');
-lookup.forEach((r, k) => say(`${r.name.padEnd(14)} ${r.ns.toFixed(2).padStart(8)} ns   cells ${String(lookupSamplers[k].table.cells).padStart(6)}`));
-ratios.lookupFlatness10to10000 = Math.max(...lookup.map((r) => r.ns)) / Math.min(...lookup.map((r) => r.ns));
-const spread = (from) => {
-  const v = flat.filter((_, k) => STRIPS[k] >= from).map((r) => r.ns);
+for (const n of STRIPS) say(`${`${n} strips`.padEnd(14)} ${stripNs[`flat ${n}`].toFixed(2).padStart(8)} ns   cells ${String(stripStats[`flat ${n}`].cells).padStart(6)}`);
+const spread = (prefix, from) => {
+  const v = STRIPS.filter((n) => n >= from).map((n) => stripNs[`${prefix} ${n}`]);
   return Math.max(...v) / Math.min(...v);
 };
-ratios.flatness10to10000 = spread(10);
-ratios.flatness30to10000 = spread(30);
-ratios.flatness100to10000 = spread(100);
+ratios.flatness10to10000 = spread('strips', 10);
+ratios.flatness30to10000 = spread('strips', 30);
+ratios.flatness100to10000 = spread('strips', 100);
+ratios.lookupFlatness10to10000 = spread('flat', 10);
 say();
 
 // ----- 3. setup payback ----------------------------------------------------------------------
@@ -208,41 +262,51 @@ const COLD = 5;
 const buf = new Float64Array(PAYBACK_DRAWS);
 say(`## 3. setup + ${PAYBACK_DRAWS} draws: fast path vs plain hull (warm: median of ${REPS} fresh samplers after ${WARM}; cold: first sampler in a fresh process, median of ${COLD})`);
 const payback = {};
-const makers = {
-  fast: (t, seed) => ed.tableSampler(t, { seed }),
-  hull: (t, seed) => ed.adaptiveRejectionSampler(t, { seed }),
-};
-const targets = { normal, 'gamma(2.5)': gamma };
 const coldRun = (kind, tname) => {
-  const here = fileURLToPath(import.meta.url);
   const runs = [];
-  for (let r = 0; r < COLD; r++) {
-    runs.push(JSON.parse(execFileSync(process.execPath, [here, '--child', `cold:${kind}:${tname}`], { encoding: 'utf8' })));
-  }
+  for (let r = 0; r < COLD; r++) runs.push(JSON.parse(execFileSync(process.execPath, [HERE, '--cold', `${kind}:${tname}`], { encoding: 'utf8' })));
   return { setupMs: median(runs.map((x) => x.setupMs)), totalMs: median(runs.map((x) => x.totalMs)) };
 };
-for (const [label, t] of Object.entries(targets)) {
-  const warm = (make) => {
-    const setup = [];
-    const total = [];
-    for (let r = -WARM; r < REPS; r++) {
-      const a = performance.now();
-      const s = make(t, r + WARM + 1);
-      const b = performance.now();
-      s.fill(buf);
-      const c = performance.now();
-      if (r >= 0) {
-        setup.push(b - a);
-        total.push(c - a);
-      }
+// the two warm loops are written out separately (no shared call site between the methods)
+const warmFast = (t) => {
+  const setup = [];
+  const total = [];
+  for (let r = -WARM; r < REPS; r++) {
+    const a = performance.now();
+    const s = ed.tableSampler(t, { seed: r + WARM + 1 });
+    const b = performance.now();
+    s.fill(buf);
+    const c = performance.now();
+    guard('warm fast', buf);
+    if (r >= 0) {
+      setup.push(b - a);
+      total.push(c - a);
     }
-    return { setupMs: median(setup), totalMs: median(total) };
-  };
+  }
+  return { setupMs: median(setup), totalMs: median(total) };
+};
+const warmHull = (t) => {
+  const setup = [];
+  const total = [];
+  for (let r = -WARM; r < REPS; r++) {
+    const a = performance.now();
+    const s = ed.adaptiveRejectionSampler(t, { seed: r + WARM + 1 });
+    const b = performance.now();
+    s.fill(buf);
+    const c = performance.now();
+    guard('warm hull', buf);
+    if (r >= 0) {
+      setup.push(b - a);
+      total.push(c - a);
+    }
+  }
+  return { setupMs: median(setup), totalMs: median(total) };
+};
+for (const [label, t] of Object.entries({ normal, 'gamma(2.5)': gamma })) {
   const res = {};
   for (const mode of ['warm', 'cold']) {
-    const fast = mode === 'warm' ? warm(makers.fast) : coldRun('fast', label);
-    const hull = mode === 'warm' ? warm(makers.hull) : coldRun('hull', label);
-    // break-even: setup difference over the per-draw difference of the first 10,000 draws
+    const fast = mode === 'warm' ? warmFast(t) : coldRun('fast', label);
+    const hull = mode === 'warm' ? warmHull(t) : coldRun('hull', label);
     const nsFast = ((fast.totalMs - fast.setupMs) * 1e6) / PAYBACK_DRAWS;
     const nsHull = ((hull.totalMs - hull.setupMs) * 1e6) / PAYBACK_DRAWS;
     const breakEven = nsHull > nsFast ? Math.max(0, ((fast.setupMs - hull.setupMs) * 1e6) / (nsHull - nsFast)) : Infinity;
@@ -256,26 +320,34 @@ for (const [label, t] of Object.entries(targets)) {
 say();
 
 const load1 = os.loadavg();
-say('## ratios');
-say(`fast normal / @stdlib improved-ziggurat (one process)         ${ratios.normalVsZiggurat.toFixed(3)}   (target <= 1.1)`);
-say(`fast gamma(2.5) / @stdlib gamma(2.5) (one process)            ${ratios.gammaVsStdlib.toFixed(3)}   (target <= 0.5)`);
-say(`  same, fast path on an injected uniform (per value)          ${ratios.normalInjectedVsZiggurat.toFixed(3)}, ${ratios.gammaInjectedVsStdlib.toFixed(3)}`);
-if (alone) say(`  same, peers timed alone in a fresh process                  ${ratios.normalVsZigguratAlone.toFixed(3)}, ${ratios.gammaVsStdlibAlone.toFixed(3)}`);
-say(`ns per draw max/min over 10..10,000 strips                     ${ratios.flatness10to10000.toFixed(3)}   (target <= 1.2)`);
-say(`  over 30..10,000 strips                                       ${ratios.flatness30to10000.toFixed(3)}`);
-say(`  over 100..10,000 strips                                      ${ratios.flatness100to10000.toFixed(3)}`);
-say(`  the lookup alone (flat density, no caps), 10..10,000 strips  ${ratios.lookupFlatness10to10000.toFixed(3)}`);
+const f = (x) => x.toFixed(3);
+say('## ratios (medians of per-round ratios of fresh processes; in brackets: this process)');
+const T = ratios.thisProcess;
+say(`fast normal / @stdlib improved-ziggurat, own stream            ${f(ratios.normalVsZiggurat)} [${f(T.normalVsZiggurat)}]   (goal <= 0.9)`);
+say(`fast normal / @stdlib improved-ziggurat, injected uniform      ${f(ratios.normalInjectedVsZiggurat)} [${f(T.normalInjectedVsZiggurat)}]   (goal <= 1.1)`);
+say(`fast gamma(2.5) / @stdlib gamma(2.5), own stream               ${f(ratios.gammaVsStdlib)} [${f(T.gammaVsStdlib)}]   (goal <= 0.5)`);
+say(`fast gamma(2.5) / @stdlib gamma(2.5), injected uniform         ${f(ratios.gammaInjectedVsStdlib)} [${f(T.gammaInjectedVsStdlib)}]   (goal <= 0.5)`);
+say(`fast normal / raw uniform, fast gamma(2.5) / raw uniform       ${f(ratios.normalVsRawUniform)}, ${f(ratios.gammaVsRawUniform)}   (goal <= 1.5)`);
+say(`fast normal, injected uniform / own stream                     ${f(ratios.injectedVsOwnNormal)}`);
+say(`plain hull normal / ziggurat, plain hull gamma / stdlib gamma  ${f(ratios.hullNormalVsZiggurat)} [${f(T.hullNormalVsZiggurat)}], ${f(ratios.hullGammaVsStdlib)} [${f(T.hullGammaVsStdlib)}]   (goals <= 2.5, <= 0.6)`);
+say(`multimodal: exactSampler fast path / plain piecewise          ${f(ratios.multimodalFastVsPlain)}`);
+say(`ns per draw max/min over 10..10,000 strips                      ${f(ratios.flatness10to10000)}; over 30.. ${f(ratios.flatness30to10000)}; over 100.. ${f(ratios.flatness100to10000)}; lookup alone ${f(ratios.lookupFlatness10to10000)}`);
 for (const [label, p] of Object.entries(payback)) {
   for (const mode of ['warm', 'cold']) {
     const q = p[mode];
-    say(`setup + 10,000 draws, fast / plain hull, ${label.padEnd(10)} ${mode}     ${q.totalRatio.toFixed(3)}   (target < 1; break-even about ${Number.isFinite(q.breakEvenDraws) ? Math.round(q.breakEvenDraws) : 'never'} draws)`);
+    say(`setup + 10,000 draws, fast / plain hull, ${label.padEnd(10)} ${mode}     ${f(q.totalRatio)}   (break-even about ${Number.isFinite(q.breakEvenDraws) ? Math.round(q.breakEvenDraws) : 'never'} draws)`);
   }
 }
-say(`# load average at end: ${load1.map((x) => x.toFixed(2)).join(', ')}`);
+say(check.line);
+say(loadLine('at end'));
 
 if (JSON_OUT) {
   writeFileSync(
     JSON_OUT,
-    JSON.stringify({ schema: 'exactdraw-fast-path/1', command, node: process.version, load: { start: load0, end: load1 }, draws: DRAWS, rounds: ROUNDS, perDraw: side, peersAlone: alone, strips: flat.map((r, k) => ({ strips: STRIPS[k], ns: r.ns })), payback, ratios }, null, 2) + '\n',
+    JSON.stringify(
+      { schema: 'exactdraw-fast-path/2', command, node: process.version, load: { start: load0, end: load1 }, draws: DRAWS, rounds: ROUNDS, perDraw: side, alone, aloneRuns, reference: fresh.reference, selfCheck: check, strips: stripNs, payback, ratios },
+      null,
+      2,
+    ) + '\n',
   );
 }

@@ -20,14 +20,35 @@
 // SharedArrayBuffer and touched before timing (first-touch page faults are
 // expensive on virtual machines: about 3 s for 800 MB measured here), so no
 // copy is made. Figures are medians over the rounds; the 2-worker results are
-// compared element by element with (1).
+// compared element by element with (1), and checked for non-finite values.
+//
+// Harness rule (DEVELOPERS.md, benchmark policy): the generator's per-draw loop
+// is the library's own fill (one generator per fill, no call site shared with
+// another generator in this script). Self-check: after every round the raw
+// MT19937 uniform is timed in a loop of its own in this process and alone in a
+// fresh process (bench/lib/raw-alone.mjs); the two must agree within 10 %, or
+// the run says so.
 import os from 'node:os';
 import { writeFileSync } from 'node:fs';
 import { createParallelFiller, fillParallel } from '../dist/node/index.js';
-import { partitionedFill } from '../dist/index.js';
+import { mersenneTwister, partitionedFill } from '../dist/index.js';
 import { samplers } from './parallel-suite.mjs';
+import { guard, rawAlone, selfCheck, timeInterleaved } from './lib/harness.mjs';
 
 const args = process.argv.slice(2);
+const RAW = 'mt19937 uniform (raw)';
+const RAW_SIZE = 1_000_000;
+const CASES = {
+  [RAW]: () => {
+    const next = mersenneTwister(101);
+    return {
+      size: RAW_SIZE,
+      fill(out) {
+        for (let i = 0; i < out.length; i++) out[i] = next();
+      },
+    };
+  },
+};
 const opt = (name, def) => {
   const i = args.indexOf(name);
   return i >= 0 ? args[i + 1] : def;
@@ -59,9 +80,14 @@ partitionedFill(entry.create, seqOut, 2, SEED); // warm-up of the one-thread cas
 const times = { oneThread: [], oneShot1: [], oneShot2: [], pool1: [], pool2: [] };
 let same = true;
 const compare = () => {
+  guard('one thread', seqOut, 1);
+  guard('parallel', parOut, 1);
   for (let i = 0; i < N; i++) if (seqOut[i] !== parOut[i]) return false;
   return true;
 };
+const raw = { name: RAW, ...CASES[RAW]() };
+const rawHere = [];
+const rawRef = [];
 const time = async (key, f) => {
   const t = performance.now();
   await f();
@@ -75,6 +101,8 @@ for (let r = 0; r < ROUNDS; r++) {
   await time('pool1', () => pool1.fill(parOut, { seed: SEED }));
   await time('pool2', () => pool2.fill(parOut, { seed: SEED }));
   same = same && compare();
+  rawHere.push(timeInterleaved([raw], { rounds: 1 })[0].ns);
+  rawRef.push(rawAlone(RAW_SIZE, 5));
   console.log(`round ${r + 1}: ` + Object.entries(times).map(([k, v]) => `${k} ${v[r].toFixed(0)} ms`).join(', '));
 }
 await pool1.close();
@@ -102,6 +130,7 @@ const res = {
     fillerOverOneThread: median(times.oneThread.map((v, r) => v / times.pool2[r])),
   },
   identical: same,
+  selfCheck: selfCheck(rawHere, rawRef),
   load: { start: load0, end: loadavg() },
 };
 console.log(`medians: one thread ${med.oneThread.toFixed(0)} ms (${ns(med.oneThread)} ns/draw)`);
@@ -112,5 +141,6 @@ console.log(`  one-shot fillParallel: ${res.speedUp.oneShotOverOneThread.toFixed
 console.log(`  running filler:        ${res.speedUp.fillerOverOneThread.toFixed(3)} over one thread, ${res.speedUp.fillerOverOneWorker.toFixed(3)} over 1 worker`);
 console.log(`  median of per-round ratios: one-shot ${res.perRoundSpeedUp.oneShotOverOneWorker.toFixed(3)} over 1 worker; filler ${res.perRoundSpeedUp.fillerOverOneWorker.toFixed(3)} over 1 worker, ${res.perRoundSpeedUp.fillerOverOneThread.toFixed(3)} over one thread`);
 console.log(`identical to the one-thread draws: ${same}`);
+console.log(res.selfCheck.line);
 console.log(`# load average at end: ${res.load.end}`);
 if (JSON_OUT) writeFileSync(JSON_OUT, JSON.stringify(res, null, 2) + '\n');

@@ -92,7 +92,14 @@ export function findLogBound(target: Target, proposal: Proposal, opts: FindLogBo
   if (r.risingTail !== undefined) {
     const side = r.risingTail;
     const end = side === 'upper' ? t.upper : t.lower;
-    if (!Number.isFinite(end) && targetRises(logf, r.x, side)) {
+    // Walk the tail from a point inside the support (the hint, else a finite end, else 0), not from
+    // r.x: for a symmetric logf − log g the best probe can lie in the other tail, and walking from
+    // there towards the rising side climbs the target's body (a proper target reported as improper).
+    const base =
+      hint !== undefined && Number.isFinite(hint) && hint >= t.lower && hint <= t.upper
+        ? hint
+        : Number.isFinite(t.lower) ? t.lower : Number.isFinite(t.upper) ? t.upper : 0;
+    if (!Number.isFinite(end) && targetRises(logf, base, side)) {
       throw new ImproperDensityError(
         `${api}: the target's log density keeps rising as x → ${side === 'upper' ? '+∞' : '−∞'} (${side} tail); it does not decay, so its mass is infinite`,
       );

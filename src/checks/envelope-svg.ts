@@ -7,6 +7,7 @@ import { InvalidTargetError } from '../core/errors.js';
 import type { Target } from '../core/types.js';
 import { evaluateEnvelope } from '../methods/envelope/description.js';
 import type { EnvelopeDescription } from '../methods/envelope/description.js';
+import { roundTicks } from './svg-ticks.js';
 
 /** Options of {@link envelopeSvg}. */
 export interface EnvelopeSvgOptions {
@@ -36,10 +37,39 @@ export interface EnvelopeSvgOptions {
    */
   logScale?: boolean;
   /**
-   * Title, drawn at the top and used as the accessible name.
+   * Title, drawn at the top and used as the accessible name (`<title>`).
    * @defaultValue 'Target, envelope and squeeze'
    */
   title?: string;
+  /**
+   * Label of the x axis; include the unit, e.g. `'battery charge (%)'`.
+   * @defaultValue 'x'
+   */
+  xLabel?: string;
+  /**
+   * Label of the y axis.
+   * @defaultValue `'density relative to the envelope maximum'`, or with `logScale`
+   * `'log density (as returned by logDensity)'`
+   */
+  yLabel?: string;
+  /**
+   * Which stage of the hull to draw: `'current'` (the source's envelope now,
+   * with the touch points adaptation has added), `'setup'` (the hull as built
+   * before the first draw, given as `setup`) or `'both'` (the setup envelope
+   * as a thin grey dash-dot line under the current one).
+   * @defaultValue `'both'` when `setup` is given, else `'current'`
+   */
+  stage?: 'current' | 'setup' | 'both';
+  /**
+   * The envelope description at setup: `sampler.envelope` read before the
+   * first draw (descriptions are snapshots). Needed by `stage: 'setup'` and `'both'`.
+   */
+  setup?: EnvelopeDescription;
+  /**
+   * Longer text for assistive technology (`<desc>`). Defaults to a sentence
+   * naming the curves, the stage and the number of touch points.
+   */
+  description?: string;
 }
 
 const API = 'envelopeSvg';
@@ -52,11 +82,26 @@ function fmt(v: number): string {
   return (Math.round(v * 100) / 100).toString();
 }
 
-function label(v: number): string {
-  if (v === 0) return '0';
-  const a = Math.abs(v);
-  return a >= 1e-3 && a < 1e5 ? Number(v.toPrecision(4)).toString() : v.toExponential(2);
+function checkText(name: string, v: unknown, def: string): string {
+  if (v === undefined) return def;
+  if (typeof v !== 'string') throw new InvalidTargetError(`${API}: options.${name} must be a string, got ${String(v)}`);
+  return v;
 }
+
+function checkDescription(name: string, v: unknown): EnvelopeDescription {
+  if (v === null || typeof v !== 'object' || !Array.isArray((v as EnvelopeDescription).pieces) || !Array.isArray((v as EnvelopeDescription).touchPoints)) {
+    throw new InvalidTargetError(`${API}: ${name} must be an envelope description (with pieces and touchPoints), got ${v === null ? 'null' : typeof v}`);
+  }
+  return v as EnvelopeDescription;
+}
+
+/** Line styles of the curves (also used by the legend swatches). */
+const STYLE = {
+  target: 'stroke="#1f77b4" stroke-width="3" stroke-opacity="0.85"',
+  envelope: 'stroke="#b2182b" stroke-width="1.6" stroke-dasharray="7 4"',
+  setup: 'stroke="#777777" stroke-width="1.2" stroke-dasharray="9 3 2 3"',
+  squeeze: 'stroke="#1b7837" stroke-width="1.4" stroke-dasharray="2 3"',
+} as const;
 
 function checkSize(name: string, v: unknown, min: number, max: number): number {
   if (typeof v !== 'number' || !Number.isFinite(v) || v < min || v > max) {
@@ -71,21 +116,31 @@ function checkSize(name: string, v: unknown, min: number, max: number): number {
  *
  * @remarks
  * Pure string building, no DOM or Node API: the result can be written to a
- * file, inlined in HTML or returned by a server. Heights are divided by
- * e^logScale of the description, so the envelope's maximum is near 1; the
- * target is drawn from its own `logDensity`, so an unnormalized target is
- * drawn on the envelope's scale. Where a curve is not defined (no squeeze on
- * the tails; −∞ on a log plot) the line is interrupted.
+ * file, inlined in HTML or returned by a server. The axes have round ticks
+ * (1, 2 or 5 times a power of ten) and labels (`xLabel`, `yLabel`). On the
+ * linear scale heights are relative to the maximum of the drawn envelope (the
+ * target may be unnormalized); on the log scale the y values are the target's
+ * own logDensity values, over the 30 units below the maximum. The target is a
+ * wide solid line, the envelope a narrower dashed line drawn over it (so an
+ * envelope that touches the target stays visible), the squeeze dotted; the
+ * legend shows each style. To show how adaptation refined the hull, read
+ * `sampler.envelope` before the first draw and pass it as `setup` (with
+ * `stage: 'both'` or `'setup'`). The figure carries `<title>` and `<desc>`
+ * for assistive technology. Where a curve is not defined (no squeeze on the
+ * tails; −∞ on a log plot) the line is interrupted.
  *
  * @param source - a sampler with an `envelope` (e.g. from {@link adaptiveRejectionSampler}) or an {@link EnvelopeDescription}
  * @param target - the target the envelope was built for
- * @param options - size, x range, resolution, log scale, title
+ * @param options - size, x range, resolution, log scale, title, axis labels, stage
  * @returns an SVG document as a string
  * @throws {@link InvalidTargetError} for a malformed source, target or option
  * @example
  * ```ts
- * const s = adaptiveRejectionSampler(gammaTarget(2.5), { seed: 1 });
- * const svg = envelopeSvg(s, gammaTarget(2.5), { title: 'gamma(2.5) hull' });
+ * const t = gammaTarget(2.5);
+ * const s = adaptiveRejectionSampler(t, { seed: 1 });
+ * const setup = s.envelope;                      // snapshot before the first draw
+ * s.fill(new Float64Array(10_000));
+ * const svg = envelopeSvg(s, t, { setup, stage: 'both', xLabel: 'waiting time (h)', title: 'gamma(2.5) hull' });
  * ```
  */
 export function envelopeSvg(
@@ -96,8 +151,8 @@ export function envelopeSvg(
   if (source === null || typeof source !== 'object') {
     throw new InvalidTargetError(`${API}: source must be a hull sampler or an envelope description, got ${source === null ? 'null' : typeof source}`);
   }
-  const env: EnvelopeDescription = 'pieces' in source ? source : source.envelope;
-  if (env === undefined || env === null || !Array.isArray(env.pieces) || !Array.isArray(env.touchPoints)) {
+  const current: EnvelopeDescription = 'pieces' in source ? source : source.envelope;
+  if (current === undefined || current === null || !Array.isArray(current.pieces) || !Array.isArray(current.touchPoints)) {
     throw new InvalidTargetError(`${API}: source has no envelope description (expected pieces and touchPoints)`);
   }
   if (target === null || typeof target !== 'object' || typeof target.logDensity !== 'function') {
@@ -111,11 +166,24 @@ export function envelopeSvg(
   const n = Math.floor(checkSize('points', options.points ?? 400, 2, 100000));
   const logPlot = options.logScale ?? false;
   if (typeof logPlot !== 'boolean') throw new InvalidTargetError(`${API}: options.logScale must be a boolean, got ${String(logPlot)}`);
-  const title = options.title ?? 'Target, envelope and squeeze';
-  if (typeof title !== 'string') throw new InvalidTargetError(`${API}: options.title must be a string, got ${String(title)}`);
+  const title = checkText('title', options.title, 'Target, envelope and squeeze');
+  const xLabel = checkText('xLabel', options.xLabel, 'x');
+  const yLabel = checkText('yLabel', options.yLabel, logPlot ? 'log density (as returned by logDensity)' : 'density relative to the envelope maximum');
+  const setup = options.setup === undefined ? undefined : checkDescription('options.setup', options.setup);
+  const stage = options.stage ?? (setup ? 'both' : 'current');
+  if (stage !== 'current' && stage !== 'setup' && stage !== 'both') {
+    throw new InvalidTargetError(`${API}: options.stage must be 'current', 'setup' or 'both', got ${typeof stage === 'string' ? `'${stage}'` : String(stage)}`);
+  }
+  if (stage !== 'current' && setup === undefined) {
+    throw new InvalidTargetError(`${API}: options.stage '${stage}' needs options.setup (read sampler.envelope before the first draw)`);
+  }
+  // main: the hull whose envelope and squeeze are drawn in full; under: the setup envelope drawn beneath (stage 'both')
+  const main = stage === 'setup' ? (setup as EnvelopeDescription) : current;
+  const under = stage === 'both' ? setup : undefined;
+  const mainName = stage === 'setup' ? 'setup hull' : 'current hull';
 
-  const [sLo, sHi] = env.support;
-  const tp = env.touchPoints;
+  const [sLo, sHi] = main.support;
+  const tp = main.touchPoints;
   let a: number;
   let b: number;
   if (options.range !== undefined) {
@@ -126,8 +194,9 @@ export function envelopeSvg(
     a = r[0];
     b = r[1];
   } else {
-    const t0 = tp.length > 0 ? tp[0] : 0;
-    const t1 = tp.length > 0 ? tp[tp.length - 1] : 1;
+    const all = under ? [...tp, ...under.touchPoints] : [...tp];
+    const t0 = all.length > 0 ? Math.min(...all) : 0;
+    const t1 = all.length > 0 ? Math.max(...all) : 1;
     const spread = t1 > t0 ? t1 - t0 : Math.max(1, Math.abs(t0));
     a = Math.max(sLo, t0 - 0.5 * spread);
     b = Math.min(sHi, t1 + 0.5 * spread);
@@ -137,35 +206,38 @@ export function envelopeSvg(
     }
   }
 
-  const ref = env.logScale;
+  // log values relative to ref (the main hull's reference height)
+  const ref = main.logScale;
   const xs = new Float64Array(n);
   const fy = new Float64Array(n);
   const gy = new Float64Array(n);
   const sy = new Float64Array(n);
+  const uy = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const x = a + ((b - a) * i) / (n - 1);
     xs[i] = x;
-    const v = evaluateEnvelope(env, x);
+    const v = evaluateEnvelope(main, x);
     const lf = target.logDensity(x);
     fy[i] = (typeof lf === 'number' ? lf : NaN) - ref;
     gy[i] = v.logEnvelope - ref;
     sy[i] = v.logSqueeze - ref;
+    uy[i] = under ? evaluateEnvelope(under, x).logEnvelope - ref : -Infinity;
   }
   let top = -Infinity;
   for (let i = 0; i < n; i++) {
-    if (gy[i] > top && gy[i] < Infinity) top = gy[i];
-    if (fy[i] > top && fy[i] < Infinity) top = fy[i];
+    for (const v of [gy[i], fy[i], uy[i]]) if (v > top && v < Infinity) top = v;
   }
   if (!(top > -Infinity)) top = 0;
   const bottom = top - 30;
-  const yOf = (lv: number): number => (logPlot ? lv : Math.exp(lv - top));
-  const yMax = logPlot ? top : 1;
-  const yMin = logPlot ? bottom : 0;
+  // plotted y: linear, relative to the maximum (0 .. 1); log, the logDensity values themselves
+  const yOf = (lv: number): number => (logPlot ? lv + ref : Math.exp(lv - top));
+  const yMax = logPlot ? top + ref : 1.04;
+  const yMin = logPlot ? bottom + ref : 0;
 
-  const padL = 56;
+  const padL = 64;
   const padR = 16;
   const padT = 34;
-  const padB = 40;
+  const padB = 48;
   const pw = width - padL - padR;
   const ph = height - padT - padB;
   const px = (x: number): number => padL + ((x - a) / (b - a)) * pw;
@@ -188,56 +260,112 @@ export function envelopeSvg(
     return d;
   };
 
+  const desc = checkText(
+    'description',
+    options.description,
+    `Plot of ${xLabel} against ${yLabel}, from ${fmt(a)} to ${fmt(b)}: the target (solid line), the envelope of the ${mainName} ` +
+      `(dashed, ${tp.length} touch points, ${main.transform} transform, ${main.construction}s) and its squeeze (dotted)` +
+      (under ? `, over the envelope of the setup hull (grey dash-dot, ${under.touchPoints.length} touch points)` : '') +
+      '. The envelope lies on or above the target everywhere, the squeeze on or below it.',
+  );
   const parts: string[] = [];
   parts.push(
     `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" role="img" aria-label="${escapeXml(title)}">`,
   );
   parts.push(`<title>${escapeXml(title)}</title>`);
+  parts.push(`<desc>${escapeXml(desc)}</desc>`);
   parts.push(`<rect x="0" y="0" width="${width}" height="${height}" fill="#ffffff"/>`);
   parts.push(`<text x="${fmt(width / 2)}" y="20" text-anchor="middle" font-family="sans-serif" font-size="14">${escapeXml(title)}</text>`);
-  // axes
-  parts.push(`<g stroke="#444444" stroke-width="1" fill="none">`);
+  // ticks, grid lines and axes
+  const xt = roundTicks(a, b, Math.max(3, Math.min(11, Math.floor(pw / 70))));
+  const yt = roundTicks(yMin, logPlot ? yMax : 1, Math.max(3, Math.min(9, Math.floor(ph / 40))));
+  parts.push(`<g class="grid" stroke="#e6e6e6" stroke-width="1">`);
+  for (const v of yt.values) parts.push(`<path d="M${fmt(padL)} ${fmt(py(v))}L${fmt(padL + pw)} ${fmt(py(v))}"/>`);
+  parts.push(`</g>`);
+  parts.push(`<g class="axes" stroke="#444444" stroke-width="1" fill="none">`);
   parts.push(`<path d="M${fmt(padL)} ${fmt(padT)}L${fmt(padL)} ${fmt(padT + ph)}L${fmt(padL + pw)} ${fmt(padT + ph)}"/>`);
+  for (const v of xt.values) parts.push(`<path d="M${fmt(px(v))} ${fmt(padT + ph)}L${fmt(px(v))} ${fmt(padT + ph + 5)}"/>`);
+  for (const v of yt.values) parts.push(`<path d="M${fmt(padL - 5)} ${fmt(py(v))}L${fmt(padL)} ${fmt(py(v))}"/>`);
   parts.push(`</g>`);
-  parts.push(`<g font-family="sans-serif" font-size="11" fill="#444444">`);
-  for (let i = 0; i <= 4; i++) {
-    const x = a + ((b - a) * i) / 4;
-    parts.push(`<text x="${fmt(px(x))}" y="${fmt(padT + ph + 16)}" text-anchor="middle">${escapeXml(label(x))}</text>`);
-  }
-  parts.push(`<text x="${fmt(padL - 6)}" y="${fmt(py(yMax) + 4)}" text-anchor="end">${escapeXml(label(logPlot ? yMax + ref : Math.exp(top + ref)))}</text>`);
-  parts.push(`<text x="${fmt(padL - 6)}" y="${fmt(py(yMin) + 4)}" text-anchor="end">${escapeXml(logPlot ? label(yMin + ref) : '0')}</text>`);
-  parts.push(`<text x="${fmt(padL + pw / 2)}" y="${fmt(height - 6)}" text-anchor="middle">x</text>`);
+  parts.push(`<g font-family="sans-serif" font-size="11" fill="#333333">`);
+  xt.values.forEach((v, k) => parts.push(`<text class="x-tick" x="${fmt(px(v))}" y="${fmt(padT + ph + 18)}" text-anchor="middle">${escapeXml(xt.labels[k])}</text>`));
+  yt.values.forEach((v, k) => parts.push(`<text class="y-tick" x="${fmt(padL - 8)}" y="${fmt(py(v) + 4)}" text-anchor="end">${escapeXml(yt.labels[k])}</text>`));
+  parts.push(`<text class="x-label" x="${fmt(padL + pw / 2)}" y="${fmt(height - 8)}" text-anchor="middle" font-size="12">${escapeXml(xLabel)}</text>`);
+  parts.push(
+    `<text class="y-label" x="${fmt(14)}" y="${fmt(padT + ph / 2)}" text-anchor="middle" font-size="12" transform="rotate(-90 ${fmt(14)} ${fmt(padT + ph / 2)})">${escapeXml(yLabel)}</text>`,
+  );
   parts.push(`</g>`);
-  // curves
-  parts.push(`<path class="envelope" d="${path(gy)}" fill="none" stroke="#d62728" stroke-width="1.5"/>`);
-  parts.push(`<path class="squeeze" d="${path(sy)}" fill="none" stroke="#2ca02c" stroke-width="1.5" stroke-dasharray="5 3"/>`);
-  parts.push(`<path class="target" d="${path(fy)}" fill="none" stroke="#1f77b4" stroke-width="1.5"/>`);
-  // touch points
-  parts.push(`<g class="touch-points" fill="#000000">`);
-  for (let i = 0; i < tp.length; i++) {
-    const x = tp[i];
-    if (!(x >= a && x <= b)) continue;
-    const lf = env.touchLogDensities[i] - ref;
-    const ok = lf > -Infinity && (!logPlot || lf >= bottom);
-    const y = ok ? Math.min(yMax, Math.max(yMin, yOf(lf))) : yMin;
-    parts.push(`<circle cx="${fmt(px(x))}" cy="${fmt(py(y))}" r="2.5"/>`);
-  }
-  parts.push(`</g>`);
-  // legend
-  const lx = padL + pw - 150;
-  const ly = padT + 8;
-  parts.push(`<g font-family="sans-serif" font-size="11">`);
-  const items: Array<[string, string, string]> = [
-    ['envelope', '#d62728', ''],
-    ['target', '#1f77b4', ''],
-    ['squeeze', '#2ca02c', ' stroke-dasharray="5 3"'],
+  // curves: the target first (wide), the envelopes and the squeeze over it (narrower, dashed)
+  parts.push(`<path class="target" d="${path(fy)}" fill="none" ${STYLE.target}/>`);
+  if (under) parts.push(`<path class="setup-envelope" d="${path(uy)}" fill="none" ${STYLE.setup}/>`);
+  parts.push(`<path class="envelope" d="${path(gy)}" fill="none" ${STYLE.envelope}/>`);
+  parts.push(`<path class="squeeze" d="${path(sy)}" fill="none" ${STYLE.squeeze}/>`);
+  // touch points: filled for the drawn hull, hollow for the setup hull under it
+  const marks = (desc0: EnvelopeDescription, cls: string, attrs: string, r: number): void => {
+    parts.push(`<g class="${cls}" ${attrs}>`);
+    const pts = desc0.touchPoints;
+    for (let i = 0; i < pts.length; i++) {
+      const x = pts[i];
+      if (!(x >= a && x <= b)) continue;
+      const lf = desc0.touchLogDensities[i] - ref;
+      const ok = lf > -Infinity && (!logPlot || lf >= bottom);
+      const y = ok ? Math.min(yMax, Math.max(yMin, yOf(lf))) : yMin;
+      parts.push(`<circle cx="${fmt(px(x))}" cy="${fmt(py(y))}" r="${r}"/>`);
+    }
+    parts.push(`</g>`);
+  };
+  if (under) marks(under, 'setup-touch-points', 'fill="#ffffff" stroke="#555555" stroke-width="1.2"', 4.5);
+  marks(main, 'touch-points', 'fill="#000000"', 2.5);
+  // legend with swatches in the curves' styles
+  const items: Array<[string, string]> = [
+    ['target', STYLE.target],
+    [`envelope, ${mainName}`, STYLE.envelope],
+    ...(under ? ([['envelope, setup hull', STYLE.setup]] as Array<[string, string]>) : []),
+    ['squeeze', STYLE.squeeze],
   ];
-  items.forEach(([name, color, dash], k) => {
-    const y = ly + 14 * k;
-    parts.push(`<path d="M${fmt(lx)} ${fmt(y)}L${fmt(lx + 22)} ${fmt(y)}" stroke="${color}" stroke-width="1.5"${dash}/>`);
-    parts.push(`<text x="${fmt(lx + 28)}" y="${fmt(y + 4)}" fill="#222222">${name}</text>`);
+  const lw = 212;
+  const lh = 16 * items.length + 36;
+  // the corner of the plot that the curves cross least (ties: top right, top left, bottom right, bottom left)
+  const covered = (x0: number, y0: number): number => {
+    let hits = 0;
+    for (const vals of [fy, gy, sy, uy]) {
+      for (let i = 0; i < n; i++) {
+        const lv = vals[i];
+        if (!(lv > -Infinity && lv < Infinity) || (logPlot && lv < bottom)) continue;
+        const X = px(xs[i]);
+        const Y = py(Math.min(yMax, Math.max(yMin, yOf(lv))));
+        if (X >= x0 && X <= x0 + lw && Y >= y0 && Y <= y0 + lh) hits++;
+      }
+    }
+    return hits;
+  };
+  const corners: Array<[number, number]> = [
+    [padL + pw - lw - 6, padT + 6],
+    [padL + 6, padT + 6],
+    [padL + pw - lw - 6, padT + ph - lh - 6],
+    [padL + 6, padT + ph - lh - 6],
+  ];
+  let [lx, ly] = corners[0];
+  let fewest = Infinity;
+  for (const [cx, cy] of corners) {
+    const h = covered(cx, cy);
+    if (h < fewest) {
+      fewest = h;
+      lx = cx;
+      ly = cy;
+    }
+  }
+  parts.push(`<g class="legend" font-family="sans-serif" font-size="11">`);
+  parts.push(`<rect x="${fmt(lx)}" y="${fmt(ly)}" width="${lw}" height="${lh}" fill="#ffffff" fill-opacity="0.9" stroke="#cccccc"/>`);
+  items.forEach(([name, style], k) => {
+    const y = ly + 14 + 16 * k;
+    parts.push(`<path class="swatch" d="M${fmt(lx + 8)} ${fmt(y)}L${fmt(lx + 40)} ${fmt(y)}" fill="none" ${style}/>`);
+    parts.push(`<text x="${fmt(lx + 48)}" y="${fmt(y + 4)}" fill="#222222">${escapeXml(name)}</text>`);
   });
-  parts.push(`<text x="${fmt(lx)}" y="${fmt(ly + 46)}" fill="#222222">${tp.length} touch points, ${env.transform}, ${env.construction}</text>`);
+  const yk = ly + 14 + 16 * items.length;
+  parts.push(`<circle cx="${fmt(lx + 24)}" cy="${fmt(yk)}" r="2.5" fill="#000000"/>`);
+  parts.push(`<text x="${fmt(lx + 48)}" y="${fmt(yk + 4)}" fill="#222222">${tp.length} touch points${under ? ` (setup: ${under.touchPoints.length}, hollow)` : ''}</text>`);
+  parts.push(`<text x="${fmt(lx + 8)}" y="${fmt(yk + 20)}" fill="#555555">${escapeXml(`${main.transform} transform, ${main.construction}s`)}</text>`);
   parts.push(`</g>`);
   parts.push(`</svg>`);
   return parts.join('\n');

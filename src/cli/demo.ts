@@ -128,6 +128,7 @@ export function runDemo(log: (line: string) => void, outDir = 'out', seed = 2026
       bins: 80,
       title: 'Bike-share trip durations (invented density): exact draws vs target',
       xLabel: 'trip duration in minutes (axis cut at 120 of the 180-minute limit)',
+      yLabel: 'density (per minute)',
     }),
   );
 
@@ -152,7 +153,15 @@ export function runDemo(log: (line: string) => void, outDir = 'out', seed = 2026
   log(`  density evaluations / draw  ${(hs.densityEvaluations / hs.samples).toFixed(4)} (setup ${hs.setupEvaluations})`);
   log(`  KS p-value                  ${ksCharge.pValue.toFixed(4)}; Anderson-Darling p-value ${adCharge.pValue.toFixed(4)} (cdf from @stdlib)`);
   const hullFile = join(outDir, 'battery-charge-envelope.svg');
-  writeFileSync(hullFile, envelopeSvg(atSetup, charge, { title: `Battery charge on return (invented): hull at setup (${atSetup.touchPoints.length} touch points), before adaptation` }));
+  writeFileSync(
+    hullFile,
+    envelopeSvg(hull, charge, {
+      setup: atSetup,
+      stage: 'both',
+      xLabel: 'battery charge on return (%)',
+      title: `Battery charge on return (invented): hull at setup (${atSetup.touchPoints.length} touch points) and after ${charges.length} draws (${env.touchPoints.length})`,
+    }),
+  );
 
   // Daily demand: the time of day (hours) at which a rental starts, invented:
   // a morning rush near 8:15, an evening rush near 17:45 and a flat daytime
@@ -197,7 +206,8 @@ export function runDemo(log: (line: string) => void, outDir = 'out', seed = 2026
       upper: 24,
       bins: 96,
       title: `Rental start times (invented bimodal demand): exactSampler chose ${demandSampler.choice.method}`,
-      xLabel: 'hour of day',
+      xLabel: 'hour of day (h)',
+      yLabel: 'density (per hour)',
     }),
   );
 
