@@ -264,7 +264,7 @@ export function envelopeSvg(
     'description',
     options.description,
     `Plot of ${xLabel} against ${yLabel}, from ${fmt(a)} to ${fmt(b)}: the target (solid line), the envelope of the ${mainName} ` +
-      `(dashed, ${tp.length} touch points, ${main.transform} transform, ${main.construction}s) and its squeeze (dotted)` +
+      `(dashed, ${tp.length} ${main.construction === 'bounds' ? 'cell edges' : 'touch points'}, ${main.transform} transform, ${constructionLabel(main.construction)}) and its squeeze (dotted)` +
       (under ? `, over the envelope of the setup hull (grey dash-dot, ${under.touchPoints.length} touch points)` : '') +
       '. The envelope lies on or above the target everywhere, the squeeze on or below it.',
   );
@@ -365,8 +365,13 @@ export function envelopeSvg(
   const yk = ly + 14 + 16 * items.length;
   parts.push(`<circle cx="${fmt(lx + 24)}" cy="${fmt(yk)}" r="2.5" fill="#000000"/>`);
   parts.push(`<text x="${fmt(lx + 48)}" y="${fmt(yk + 4)}" fill="#222222">${tp.length} touch points${under ? ` (setup: ${under.touchPoints.length}, hollow)` : ''}</text>`);
-  parts.push(`<text x="${fmt(lx + 8)}" y="${fmt(yk + 20)}" fill="#555555">${escapeXml(`${main.transform} transform, ${main.construction}s`)}</text>`);
+  parts.push(`<text x="${fmt(lx + 8)}" y="${fmt(yk + 20)}" fill="#555555">${escapeXml(`${main.transform} transform, ${constructionLabel(main.construction)}`)}</text>`);
   parts.push(`</g>`);
   parts.push(`</svg>`);
   return parts.join('\n');
+}
+
+/** How the figure names an envelope's construction. @internal */
+function constructionLabel(c: 'tangent' | 'secant' | 'bounds'): string {
+  return c === 'bounds' ? 'proven from bounds' : `${c}s`;
 }

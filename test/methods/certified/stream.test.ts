@@ -136,7 +136,7 @@ describe('certifiedSampler descriptions', () => {
     const t = workedTarget();
     const svg = envelopeSvg(certifiedSampler(t, { seed: 1, maxCells: 200 }), t, { range: [-3, 3] });
     expect(svg).toMatch(/^<svg /);
-    expect(svg).toContain('log, bounds');
+    expect(svg).toContain('log transform, proven from bounds'); // the legend names the construction
     expect(svg).toContain('class="envelope"');
   });
 });
