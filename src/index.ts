@@ -66,3 +66,13 @@ export type { ExactSamplerOptions, ExactSampler, ExactChoice, ExactMethod, Shape
 export { tableSampler, DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './methods/table-sampler.js';
 export type { TableSamplerOptions, TableSampler } from './methods/table-sampler.js';
 export type { TableDescription } from './methods/table/describe.js';
+export type { PoleSide, PoleTarget } from './targets/end-distance.js';
+export { exponentialTarget } from './targets/exponential.js';
+export { laplaceTarget } from './targets/laplace.js';
+export { weibullTarget } from './targets/weibull.js';
+export { lognormalTarget } from './targets/lognormal.js';
+export { chiSquareTarget, CHI_SQUARE_SERIES_MIN_DF } from './targets/chi-square.js';
+export { inverseGammaTarget } from './targets/inverse-gamma.js';
+export { paretoTarget } from './targets/pareto.js';
+export { gumbelTarget } from './targets/gumbel.js';
+export { generalizedInverseGaussianTarget } from './targets/generalized-inverse-gaussian.js';
