@@ -76,3 +76,7 @@ export { inverseGammaTarget } from './targets/inverse-gamma.js';
 export { paretoTarget } from './targets/pareto.js';
 export { gumbelTarget } from './targets/gumbel.js';
 export { generalizedInverseGaussianTarget } from './targets/generalized-inverse-gaussian.js';
+export { poleTransform, MIN_POLE_DISTANCE, POLE_ULPS_WITHOUT_DISTANCE_FORM } from './methods/transform/change-of-variables.js';
+export type { PoleTransform, PoleMap } from './methods/transform/change-of-variables.js';
+export type { PoleOption, TransformedSampler } from './methods/transform/sampler.js';
+export { MAX_UNREPRESENTED_MASS } from './methods/transform/detect.js';

@@ -4,7 +4,7 @@
  * @packageDocumentation
  */
 import { checkFillArray } from '../core/validate.js';
-import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './hull/describe.js';
@@ -12,6 +12,8 @@ import { hullFill } from './hull/kernel.js';
 import { setupHull } from './hull/setup.js';
 import type { TransformName } from './hull/transforms.js';
 import { createTableSampler } from './table-sampler.js';
+import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import type { PoleOption } from './transform/sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
 
@@ -60,6 +62,18 @@ export interface AdaptiveRejectionOptions extends SamplerOptions {
    * @defaultValue false
    */
   fast?: boolean;
+  /**
+   * The density has an integrable pole at this end of the support
+   * (`'lower'`, `'upper'`, `'both'`), or `'auto'`: the target's declared
+   * `poles`, else a search of the finite ends. The sampler then draws the
+   * transformed variable Y = log(X − a), log(b − X) or logit((X − a)/(b − a))
+   * (see {@link poleTransform}) and maps each draw back; `envelope`
+   * describes the hull of Y. Not allowed together with `startPoints`
+   * (points in x). Without it, a density unbounded at an end is refused
+   * with a message that names the end and suggests this option.
+   * @defaultValue undefined (no change of variables)
+   */
+  poleAt?: PoleOption;
 }
 
 /** A sampler built on an adaptive hull; also describes its current envelope. */
@@ -68,7 +82,7 @@ export interface AdaptiveRejectionSampler extends Sampler {
   readonly envelope: EnvelopeDescription;
 }
 
-const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'seed', 'stream', 'uniform'] as const;
+const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'seed', 'stream', 'uniform', 'poleAt'] as const;
 
 /**
  * Adaptive rejection sampling (Gilks & Wild 1992; derivative-free form
@@ -132,7 +146,17 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   if (fast !== undefined && typeof fast !== 'boolean') {
     throw new InvalidTargetError(`${api}: options.fast must be a boolean, got ${String(fast)}`);
   }
-  const setup = setupHull(api, target, options, KNOWN);
+  const pole = readPoleOption(api, options);
+  if (pole !== undefined) {
+    if (options?.startPoints !== undefined) throw new InvalidOptionError(`${api}: options.startPoints (points in x) cannot be combined with options.poleAt = '${pole}' (the hull is built in the transformed variable)`);
+    return samplerAcrossPole(api, target, pole, options ?? {}, adaptiveRejectionSampler, ['envelope']);
+  }
+  let setup: ReturnType<typeof setupHull>;
+  try {
+    setup = setupHull(api, target, options, KNOWN);
+  } catch (e) {
+    throw explainPole(api, target, e);
+  }
   if (fast === true) return createTableSampler(api, setup, undefined);
   const { hull, counters, uniform, maxRejections } = setup;
 

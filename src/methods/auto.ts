@@ -15,6 +15,7 @@ import { NOISE } from './piecewise/grid.js';
 import { Evaluator, scanTarget } from './piecewise/scan.js';
 import type { ScanPoint } from './piecewise/scan.js';
 import { ratioOfUniformsSampler } from './ratio-of-uniforms.js';
+import { exactAcrossPoles } from './transform/exact.js';
 
 /** Options of {@link exactSampler}: the uniform source and the rejection bound, passed to the chosen method. */
 export interface ExactSamplerOptions extends SamplerOptions {
@@ -188,8 +189,19 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (t.dLogDensity !== undefined) (wrapped as { dLogDensity?: (x: number) => number }).dLogDensity = t.dLogDensity;
   if (t.mode !== undefined) (wrapped as { mode?: number }).mode = t.mode;
 
+  // A pole at a finite end (declared, or found where the scan refuses the target): change of variables (transform/exact.ts).
+  const acrossPole = (e: unknown, spent: number): ExactSampler | undefined => exactAcrossPoles(api, target, t, e, (y) => exactSampler(y, options), spent);
+  const declaredPole = acrossPole(undefined, 0);
+  if (declaredPole !== undefined) return declaredPole;
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
-  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, [], false);
+  let scanResult: ReturnType<typeof scanTarget>;
+  try {
+    scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, [], false);
+  } catch (e) {
+    const viaPole = acrossPole(e, ev.evaluations);
+    if (viaPole !== undefined) return viaPole;
+    throw e;
+  }
   const scan = verdict(scanResult.points, scanResult.logMax, ev.evaluations, t, scanResult.centre);
   if (scan.heavyTailExponent <= 1) {
     throw new ImproperDensityError(
