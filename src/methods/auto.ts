@@ -190,7 +190,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (t.mode !== undefined) (wrapped as { mode?: number }).mode = t.mode;
 
   // A pole at a finite end (declared, or found where the scan refuses the target): change of variables (transform/exact.ts).
-  const acrossPole = (e: unknown, spent: number): ExactSampler | undefined => exactAcrossPoles(api, target, t, e, (y) => exactSampler(y, options), spent);
+  const acrossPole = (e: unknown, spent: number): ExactSampler | undefined => exactAcrossPoles(api, target, { ...t, logDensity: wrapped.logDensity }, e, (y) => exactSampler(y, options), spent);
   const declaredPole = acrossPole(undefined, 0);
   if (declaredPole !== undefined) return declaredPole;
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);

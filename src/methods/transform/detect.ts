@@ -18,6 +18,8 @@ const PROBE_STEPS = 140;
 const RISE_RUN = 4;
 /** Least rise of log f per factor 256 closer to the end (1e-3 per halving). */
 const MIN_RISE = 8e-3;
+/** Probing stops early (no pole) after three probes without a rise once within this fraction of the starting distance. */
+const EARLY_STOP_DISTANCE = 1e-8;
 /** The change of variables refuses a target when the estimated mass below its smallest distance exceeds this. */
 export const MAX_UNREPRESENTED_MASS = 1e-12;
 
@@ -39,6 +41,9 @@ export interface PoleFinding {
  * halving of the distance) and not shrinking geometrically (the last rise at
  * least half of the one three steps before), or +Infinity at the end itself.
  * A power singularity |x − e|^(α−1) rises by (1 − α)·log 256 per step.
+ * Probing stops early, with no pole, after three probes without such a rise
+ * once the distance is below 1e-8 of the starting one (about six
+ * evaluations for a bounded end).
  * @internal
  */
 export function detectPoles(target: PoleTarget, t: CheckedTarget): PoleFinding {
@@ -60,6 +65,8 @@ export function detectPoles(target: PoleTarget, t: CheckedTarget): PoleFinding {
     let last = -Infinity;
     const rises: number[] = [];
     let closest = d;
+    const near = d * EARLY_STOP_DISTANCE;
+    let flat = 0;
     for (let k = 0; k < PROBE_STEPS && d >= MIN_POLE_DISTANCE; k++, d /= PROBE_FACTOR) {
       if (f === undefined && e + dir * d === e) break;
       evaluations++;
@@ -69,9 +76,16 @@ export function detectPoles(target: PoleTarget, t: CheckedTarget): PoleFinding {
         return true;
       }
       if (v !== v) return false;
-      if (v > -Infinity && last > -Infinity) rises.push(v - last);
+      if (v > -Infinity && last > -Infinity) {
+        rises.push(v - last);
+        flat = v - last > MIN_RISE ? 0 : flat + 1;
+      } else if (v === -Infinity) {
+        flat++;
+      }
       last = v;
       closest = d;
+      // bounded near the end (three probes without a rise, within 1e-8 of the width): no pole
+      if (flat >= 3 && d < near) return false;
     }
     const m = rises.length;
     if (m < RISE_RUN) return false;

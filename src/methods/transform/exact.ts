@@ -17,8 +17,8 @@ import { mapDraws } from './sampler.js';
 const transformed = new WeakSet<object>();
 
 /**
- * For {@link exactSampler}: when the target declares poles (`error`
- * undefined), or when the shape scan refused it (`error`, an
+ * For {@link exactSampler}: when the target declares poles or has a pole
+ * at a finite end other than 0 (`error` undefined: before the scan), or when the shape scan refused it (`error`, an
  * InvalidTargetError or a +Infinity at an end) and a pole is found at a
  * finite end, the exact sampler of the transformed variable (built by
  * `build`) with its draws mapped back; else undefined (the caller goes on,
@@ -38,10 +38,19 @@ export function exactAcrossPoles(
   let side: PoleSide | undefined;
   let how: string;
   let evaluations = spent;
-  if (error === undefined) {
+  if (error === undefined && pt.poles !== undefined) {
     side = pt.poles;
-    if (side === undefined) return undefined;
     how = 'declared by target.poles';
+  } else if (error === undefined) {
+    // The scan sees a pole at an end e only down to distances of a few hundred
+    // spacings of the doubles at e: at e ≠ 0 that is far too coarse, so probe such ends first.
+    const nonzeroEnd = (e: number): boolean => Number.isFinite(e) && e !== 0;
+    if (!nonzeroEnd(t.lower) && !nonzeroEnd(t.upper)) return undefined;
+    const found = detectPoles(pt, t);
+    evaluations += found.evaluations;
+    side = found.side;
+    if (side === undefined) return undefined;
+    how = found.notes.join('; ');
   } else {
     const endInfinity = error instanceof NonFiniteDensityError && error.value === Infinity && (error.x === t.lower || error.x === t.upper);
     if (!(error instanceof InvalidTargetError) && !endInfinity) return undefined;
