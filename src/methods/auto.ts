@@ -140,9 +140,14 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * is recorded in `choice.rejected` and the next one is tried (log hull →
  * inverse-sqrt hull → piecewise → ratio-of-uniforms). Errors that describe
  * the target rather than a method's shape needs are not retried: a tail that
- * does not decay ({@link ImproperDensityError}, "no decay found"), a density
- * unbounded at an end of the support ({@link InvalidTargetError}), NaN or
+ * does not decay ({@link ImproperDensityError}, "no decay found"), NaN or
  * +Infinity from logDensity ({@link NonFiniteDensityError}).
+ *
+ * A density with an integrable pole at a finite end (declared in
+ * `target.poles`, found by probing an end other than 0 before the scan, or
+ * found where the scan refuses the target) is sampled through the change of
+ * variables of {@link poleTransform}: the choice above is made for Y and
+ * `choice.reason` names the map.
  *
  * The chosen sampler receives the options (`seed`, `uniform`,
  * `maxRejections`), so its stream is that method's stream for the same
@@ -153,7 +158,7 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * @param target - the target
  * @param options - uniform source and rejection bound for the chosen method
  * @returns the sampler, with `choice` (method, reason, scan) and the chosen `sampler`
- * @throws {@link InvalidTargetError} for bad inputs or a density unbounded at an end of the support
+ * @throws {@link InvalidTargetError} for bad inputs, or a pole whose mass closer to the end than 2^−1022 cannot be represented
  * @throws {@link ImproperDensityError} when a tail does not decay, or decays like |x|^−α with α ≤ 1
  * @throws {@link ShapeViolationError} when every method refuses the target
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity

@@ -14,7 +14,12 @@ import { lowerRegularizedGamma } from './_internals/gamma-series.js';
  * Degrees of freedom from which {@link chiSquareTarget} computes its cdf
  * with exactdraw's incomplete gamma series (shape df/2 ≥ 100) instead of
  * `@stdlib/stats-base-dists-chisquare-cdf`, which shares the inaccuracy of
- * the @stdlib gamma cdf at large shapes.
+ * the `@stdlib` gamma cdf at large shapes.
+ *
+ * @example
+ * ```ts
+ * chiSquareTarget(CHI_SQUARE_SERIES_MIN_DF).cdf(200); // from the series
+ * ```
  */
 export const CHI_SQUARE_SERIES_MIN_DF = 200;
 
@@ -32,7 +37,7 @@ export const CHI_SQUARE_SERIES_MIN_DF = 200;
  * `cdf` is `@stdlib/stats-base-dists-chisquare-cdf` for df <
  * {@link CHI_SQUARE_SERIES_MIN_DF}; from there on (gamma shape ≥ 100) it is
  * the regularized incomplete gamma P(df/2, x/2) of exactdraw's series,
- * because the @stdlib gamma cdf is measured wrong at shapes ≥ 1000 (see
+ * because the `@stdlib` gamma cdf is measured wrong at shapes ≥ 1000 (see
  * DEVELOPERS.md).
  *
  * @param df - degrees of freedom, a finite number > 0 (not necessarily an integer)

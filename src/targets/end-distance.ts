@@ -7,7 +7,14 @@
  */
 import type { Target } from '../core/types.js';
 
-/** Where a density is unbounded: at the lower end, the upper end, or both. */
+/**
+ * Where a density is unbounded: at the lower end, the upper end, or both.
+ *
+ * @example
+ * ```ts
+ * const side: PoleSide | undefined = betaTarget(0.5, 0.5).poles; // 'both'
+ * ```
+ */
 export type PoleSide = 'lower' | 'upper' | 'both';
 
 /**

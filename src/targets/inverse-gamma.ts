@@ -23,7 +23,7 @@ import { lowerRegularizedGamma, upperRegularizedGamma } from './_internals/gamma
  *
  * CDF: P(X ≤ x) = Q(α, β/x), the upper regularized incomplete gamma:
  * `@stdlib/stats-base-dists-invgamma-cdf` for α < {@link GAMMA_SERIES_MIN_SHAPE},
- * exactdraw's series / continued fraction from there on (the @stdlib gamma
+ * exactdraw's series / continued fraction from there on (the `@stdlib` gamma
  * functions are measured wrong at shapes ≥ 1000, see DEVELOPERS.md).
  * `sf(x) = P(α, β/x)` from the same series (accurate in the upper tail).
  *

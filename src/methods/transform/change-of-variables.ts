@@ -13,6 +13,11 @@ import type { PoleSide, PoleTarget } from '../../targets/end-distance.js';
  * The smallest distance to an end that the change of variables represents:
  * 2^−1022 ≈ 2.2e-308, the smallest normal double (below it a distance loses
  * relative precision, and so would the transformed density).
+ *
+ * @example
+ * ```ts
+ * poleTransform(gammaTarget(0.5), 'lower').minDistanceLower === MIN_POLE_DISTANCE; // true: the end is 0
+ * ```
  */
 export const MIN_POLE_DISTANCE = Math.pow(2, -1022);
 
@@ -21,14 +26,33 @@ export const MIN_POLE_DISTANCE = Math.pow(2, -1022);
  * an end e ≠ 0 the smallest distance represented is this many spacings of
  * the doubles at e (2^30·|e|·2^−52 ≈ 2.4e-7·|e|), so that x = e ± d carries
  * d to a relative 2^−30.
+ *
+ * @example
+ * ```ts
+ * // a pole at 2 without logDensityFromLower: distances below 2^30·2·2^−52 ≈ 4.8e-7 are not represented
+ * poleTransform({ logDensity: (x) => -0.5 * Math.log(x - 2), support: [2, 3] }, 'lower').minDistanceLower;
+ * ```
  */
 export const POLE_ULPS_WITHOUT_DISTANCE_FORM = Math.pow(2, 30);
 
-/** Which map a {@link PoleTransform} uses. */
+/**
+ * Which map a {@link PoleTransform} uses.
+ *
+ * @example
+ * ```ts
+ * const m: PoleMap = poleTransform(betaTarget(0.5, 0.5), 'both').map; // 'logit'
+ * ```
+ */
 export type PoleMap = 'log-lower' | 'log-upper' | 'logit';
 
 /**
  * The transformed target of {@link poleTransform} and the map back to x.
+ *
+ * @example
+ * ```ts
+ * const tr: PoleTransform = poleTransform(betaTarget(2, 0.3), 'upper'); // Y = log(1 − X)
+ * tr.toX(-40); // 1 − e^−40
+ * ```
  */
 export interface PoleTransform {
   /** The map: `'log-lower'` (Y = log(X − a)), `'log-upper'` (Y = log(b − X)) or `'logit'` (Y = logit((X − a)/(b − a))). */

@@ -20,7 +20,14 @@ const RISE_RUN = 4;
 const MIN_RISE = 8e-3;
 /** Probing stops early (no pole) after three probes without a rise once within this fraction of the starting distance. */
 const EARLY_STOP_DISTANCE = 1e-8;
-/** The change of variables refuses a target when the estimated mass below its smallest distance exceeds this. */
+/**
+ * The change of variables refuses a target when the estimated mass below its smallest distance exceeds this.
+ *
+ * @example
+ * ```ts
+ * exactSampler(gammaTarget(0.01)); // throws: about 8e-4 of the mass lies below 2^−1022
+ * ```
+ */
 export const MAX_UNREPRESENTED_MASS = 1e-12;
 
 /** What {@link detectPoles} found. @internal */

@@ -16,10 +16,24 @@ import { checkRepresentable, detectPoles } from './detect.js';
  * Values of the `poleAt` option of {@link adaptiveRejectionSampler} and
  * {@link ratioOfUniformsSampler}: the end(s) where the density has a pole,
  * or `'auto'` to use the target's declared `poles` or to search for them.
+ *
+ * @example
+ * ```ts
+ * const where: PoleOption = 'auto';
+ * adaptiveRejectionSampler(gammaTarget(0.5), { poleAt: where, seed: 1 });
+ * ```
  */
 export type PoleOption = PoleSide | 'auto';
 
-/** A sampler that draws a transformed variable Y and returns x(Y). */
+/**
+ * A sampler that draws a transformed variable Y and returns x(Y).
+ *
+ * @example
+ * ```ts
+ * const s = exactSampler(gammaTarget(0.5), { seed: 1 }).sampler as TransformedSampler;
+ * s.transform.description; // 'Y = log(X − 0)'
+ * ```
+ */
 export interface TransformedSampler extends Sampler {
   /** The change of variables (its `target` is the density of Y, `toX` the map back). */
   readonly transform: PoleTransform;
