@@ -110,7 +110,11 @@ export interface PoleTransform {
  * Draws are x = e ± d rounded to the nearest double; at e = 0 that is d
  * itself (full resolution down to 2^−1022); a draw that rounds onto the
  * pole (only possible at e ≠ 0, when d is below half the spacing of the
- * doubles at e) is returned as the nearest double inside the support.
+ * doubles at e) is returned as the nearest double inside the support. So
+ * near e ≠ 0 the returned draws have the resolution of the doubles there:
+ * for beta(0.1, 0.1) about 1.3 % of the mass lies within 2^−53 of 1, and
+ * those draws all come back as 1 − 2^−53 (their distances to 1 were drawn
+ * exactly, but a double x cannot carry them).
  *
  * @param target - the target, with a finite end at each pole
  * @param side - where the poles are: `'lower'`, `'upper'` or `'both'`
