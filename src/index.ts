@@ -85,3 +85,17 @@ export { negativeBinomialTarget } from './targets/discrete/negative-binomial.js'
 export { geometricTarget } from './targets/discrete/geometric.js';
 export { truncateDiscrete } from './targets/discrete/truncate.js';
 export type { TruncatedDiscreteTarget } from './targets/discrete/truncate.js';
+export type { PoleSide, PoleTarget } from './targets/end-distance.js';
+export { exponentialTarget } from './targets/exponential.js';
+export { laplaceTarget } from './targets/laplace.js';
+export { weibullTarget } from './targets/weibull.js';
+export { lognormalTarget } from './targets/lognormal.js';
+export { chiSquareTarget, CHI_SQUARE_SERIES_MIN_DF } from './targets/chi-square.js';
+export { inverseGammaTarget } from './targets/inverse-gamma.js';
+export { paretoTarget } from './targets/pareto.js';
+export { gumbelTarget } from './targets/gumbel.js';
+export { generalizedInverseGaussianTarget } from './targets/generalized-inverse-gaussian.js';
+export { poleTransform, MIN_POLE_DISTANCE, POLE_ULPS_WITHOUT_DISTANCE_FORM } from './methods/transform/change-of-variables.js';
+export type { PoleTransform, PoleMap } from './methods/transform/change-of-variables.js';
+export type { PoleOption, TransformedSampler } from './methods/transform/sampler.js';
+export { MAX_UNREPRESENTED_MASS } from './methods/transform/detect.js';

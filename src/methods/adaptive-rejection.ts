@@ -4,7 +4,7 @@
  * @packageDocumentation
  */
 import { wrapDraws } from '../core/draws.js';
-import { InvalidTargetError } from '../core/errors.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
 import { resolveBoolean } from '../core/validate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
@@ -13,6 +13,8 @@ import { hullFill } from './hull/kernel.js';
 import { setupHull } from './hull/setup.js';
 import type { TransformName } from './envelope/transforms.js';
 import { createTableSampler } from './table-sampler.js';
+import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import type { PoleOption } from './transform/sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
 
@@ -70,6 +72,18 @@ export interface AdaptiveRejectionOptions extends SamplerOptions {
    * @defaultValue {@link DEFAULT_TABLE_TAIL_MASS} (1e-6)
    */
   tailMass?: number;
+  /**
+   * The density has an integrable pole at this end of the support
+   * (`'lower'`, `'upper'`, `'both'`), or `'auto'`: the target's declared
+   * `poles`, else a search of the finite ends. The sampler then draws the
+   * transformed variable Y = log(X − a), log(b − X) or logit((X − a)/(b − a))
+   * (see {@link poleTransform}) and maps each draw back; `envelope`
+   * describes the hull of Y. Not allowed together with `startPoints`
+   * (points in x). Without it, a density unbounded at an end is refused
+   * with a message that names the end and suggests this option.
+   * @defaultValue undefined (no change of variables)
+   */
+  poleAt?: PoleOption;
 }
 
 /** A sampler built on an adaptive hull; also describes its current envelope. */
@@ -78,7 +92,7 @@ export interface AdaptiveRejectionSampler extends Sampler {
   readonly envelope: EnvelopeDescription;
 }
 
-const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'strips', 'tailMass', 'seed', 'stream', 'uniform'] as const;
+const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRejections', 'fast', 'strips', 'tailMass', 'seed', 'stream', 'uniform', 'poleAt'] as const;
 
 /**
  * Adaptive rejection sampling (Gilks & Wild 1992; derivative-free form
@@ -154,7 +168,17 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   if (!fast && (opts?.strips !== undefined || opts?.tailMass !== undefined)) {
     throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts?.strips)}, tailMass ${String(opts?.tailMass)})`);
   }
-  const setup = setupHull(api, target, options, KNOWN);
+  const pole = readPoleOption(api, options);
+  if (pole !== undefined) {
+    if (options?.startPoints !== undefined) throw new InvalidOptionError(`${api}: options.startPoints (points in x) cannot be combined with options.poleAt = '${pole}' (the hull is built in the transformed variable)`);
+    return samplerAcrossPole(api, target, pole, options ?? {}, adaptiveRejectionSampler, ['envelope']);
+  }
+  let setup: ReturnType<typeof setupHull>;
+  try {
+    setup = setupHull(api, target, options, KNOWN);
+  } catch (e) {
+    throw explainPole(api, target, e);
+  }
   if (fast) return createTableSampler(api, setup, options);
   const { hull, counters, uniform, maxRejections } = setup;
 

@@ -21,6 +21,7 @@ import { blackBoxAssumption, scanSpacing } from './auto/assumption.js';
 import { exactWithBounds } from './auto/with-bounds.js';
 import type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
+import { exactAcrossPoles } from './transform/exact.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
 const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;
@@ -102,9 +103,14 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * is recorded in `choice.rejected` and the next one is tried (log hull →
  * inverse-sqrt hull → piecewise → ratio-of-uniforms). Errors that describe
  * the target rather than a method's shape needs are not retried: a tail that
- * does not decay ({@link ImproperDensityError}, "no decay found"), a density
- * unbounded at an end of the support ({@link InvalidTargetError}), NaN or
+ * does not decay ({@link ImproperDensityError}, "no decay found"), NaN or
  * +Infinity from logDensity ({@link NonFiniteDensityError}).
+ *
+ * A density with an integrable pole at a finite end (declared in
+ * `target.poles`, found by probing an end other than 0 before the scan, or
+ * found where the scan refuses the target) is sampled through the change of
+ * variables of {@link poleTransform}: the choice above is made for Y and
+ * `choice.reason` names the map.
  *
  * The chosen sampler receives the options (`seed`, `uniform`,
  * `maxRejections`), so its stream is that method's stream for the same
@@ -115,7 +121,7 @@ export const FAST_PATH_MIN_DRAWS = 10_000;
  * @param target - the target
  * @param options - uniform source and rejection bound for the chosen method
  * @returns the sampler, with `choice` (method, reason, scan) and the chosen `sampler`
- * @throws {@link InvalidTargetError} for bad inputs or a density unbounded at an end of the support
+ * @throws {@link InvalidTargetError} for bad inputs, or a pole whose mass closer to the end than 2^−1022 cannot be represented
  * @throws {@link ImproperDensityError} when a tail does not decay, or decays like |x|^−α with α ≤ 1
  * @throws {@link ShapeViolationError} when every method refuses the target
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
@@ -159,8 +165,19 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   if (t.dLogDensity !== undefined) (wrapped as { dLogDensity?: (x: number) => number }).dLogDensity = t.dLogDensity;
   if (t.mode !== undefined) (wrapped as { mode?: number }).mode = t.mode;
 
+  // A pole at a finite end (declared, or found where the scan refuses the target): change of variables (transform/exact.ts).
+  const acrossPole = (e: unknown, spent: number): ExactSampler | undefined => exactAcrossPoles(api, target, { ...t, logDensity: wrapped.logDensity }, e, (y) => exactSampler(y, options), spent);
+  const declaredPole = acrossPole(undefined, 0);
+  if (declaredPole !== undefined) return declaredPole;
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
-  const scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, target.modes ?? [], false);
+  let scanResult: ReturnType<typeof scanTarget>;
+  try {
+    scanResult = scanTarget(api, t, ev, SHAPE_SCAN_POINTS, target.modes ?? [], false);
+  } catch (e) {
+    const viaPole = acrossPole(e, ev.evaluations);
+    if (viaPole !== undefined) return viaPole;
+    throw e;
+  }
   const scan = verdict(scanResult.points, scanResult.logMax, ev.evaluations, t, scanResult.centre);
   const assumption = blackBoxAssumption(scan.points, scan, boundsRefused === undefined ? undefined : `its logDensityBounds could not cover it: ${boundsRefused.error}`);
   if (scan.heavyTailExponent <= 1) {

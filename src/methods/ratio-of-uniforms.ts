@@ -5,13 +5,15 @@
  * @packageDocumentation
  */
 import { Counters } from '../core/counters.js';
-import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { EnvelopeViolationError, InvalidOptionError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
+import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import type { PoleOption } from './transform/sampler.js';
 
 /** Options of {@link ratioOfUniformsSampler}. */
 export interface RatioOfUniformsOptions extends SamplerOptions {
@@ -45,6 +47,19 @@ export interface RatioOfUniformsOptions extends SamplerOptions {
    * @defaultValue 1,000,000
    */
   maxRejections?: number;
+  /**
+   * The density has an integrable pole at this end of the support
+   * (`'lower'`, `'upper'`, `'both'`), or `'auto'`: the target's declared
+   * `poles`, else a search of the finite ends. The sampler then draws the
+   * transformed variable Y = log(X − a), log(b − X) or logit((X − a)/(b − a))
+   * (see {@link poleTransform}), whose density is bounded, and maps each
+   * draw back; `region` and `logEnvelope` describe Y. Not allowed together
+   * with `shift` or `squeeze` (given in x). Without it, a density unbounded
+   * at an end is refused with a message that names the end and suggests
+   * this option.
+   * @defaultValue undefined (no change of variables)
+   */
+  poleAt?: PoleOption;
 }
 
 /**
@@ -116,7 +131,7 @@ export interface RatioOfUniformsSampler extends Sampler {
  */
 const SQUEEZE_TOLERANCE = 1e-12;
 
-const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', 'uniform'] as const;
+const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', 'uniform', 'poleAt'] as const;
 
 /**
  * Ratio-of-uniforms sampler (Kinderman & Monahan 1977) with power r
@@ -187,6 +202,13 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', '
 export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsOptions = {}): RatioOfUniformsSampler {
   const api = 'ratioOfUniformsSampler';
   checkOptionKeys(api, options, KNOWN);
+  const pole = readPoleOption(api, options);
+  if (pole !== undefined) {
+    if (options.shift !== undefined || options.squeeze !== undefined) {
+      throw new InvalidOptionError(`${api}: options.shift and options.squeeze (given in x) cannot be combined with options.poleAt = '${pole}' (the region is built in the transformed variable)`);
+    }
+    return samplerAcrossPole(api, target, pole, options, ratioOfUniformsSampler, ['region', 'logEnvelope']);
+  }
   const power = options.power === undefined ? 1 : checkPositive(api, 'options.power', options.power);
   const shift = options.shift === undefined ? undefined : checkFinite(api, 'options.shift', options.shift);
   const squeeze = options.squeeze;
@@ -196,7 +218,12 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const t = checkTarget(api, target);
-  const rect = computeRectangle(api, t, power, shift);
+  let rect: ReturnType<typeof computeRectangle>;
+  try {
+    rect = computeRectangle(api, t, power, shift);
+  } catch (e) {
+    throw explainPole(api, target, e);
+  }
   return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, uniform);
 }
 

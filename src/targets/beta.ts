@@ -6,6 +6,7 @@
 import { betaCdf, betaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import type { PoleTarget } from './end-distance.js';
 
 /** The largest double below 1. */
 const ONE_BELOW = 1 - Math.pow(2, -53);
@@ -37,6 +38,13 @@ const ONE_BELOW = 1 - Math.pow(2, -53);
  * `dLogDensity(x) = (a − 1)/x − (b − 1)/(1 − x)`, with the one-sided limit at
  * x = 0 and x = 1 and NaN outside [0, 1].
  *
+ * Poles: where an exponent is negative the target declares the unbounded
+ * end(s) in `poles` (see {@link PoleTarget}), and gives
+ * `logDensityFromUpper(d)` = log f(1 − d) and its derivative computed from
+ * the distance d = 1 − x itself (`log1p(−d)` and `log d`), so that the change
+ * of variables of {@link exactSampler} keeps full resolution near 1, where
+ * the doubles x are spaced by 1.1e-16.
+ *
  * `cdf` is `@stdlib/stats-base-dists-beta-cdf`; `sf(x)` is the beta cdf of
  * `1 − x` with the parameters swapped (accurate near x = 1).
  *
@@ -50,7 +58,7 @@ const ONE_BELOW = 1 - Math.pow(2, -53);
  * t.mode; // 0.2
  * ```
  */
-export function betaTarget(a: number, b: number): FamilyTarget {
+export function betaTarget(a: number, b: number): FamilyTarget & PoleTarget {
   const api = 'betaTarget';
   checkPositive(api, 'a', a);
   checkPositive(api, 'b', b);
@@ -69,7 +77,7 @@ export function betaTarget(a: number, b: number): FamilyTarget {
   else if (a === 1 && b === 1) mode = 0.5;
   else if (a <= 1 && b >= 1) mode = 0;
   else mode = 1; // b <= 1 <= a
-  const target: FamilyTarget = {
+  const target: FamilyTarget & PoleTarget = {
     logDensity(x: number): number {
       if (x > 0 && x < 1) {
         return (am1 === 0 ? 0 : am1 * Math.log(x)) + (bm1 === 0 ? 0 : bm1 * Math.log1p(-x)) + c;
@@ -85,6 +93,19 @@ export function betaTarget(a: number, b: number): FamilyTarget {
       return NaN;
     },
     support: [0, 1] as const,
+    ...(a < 1 || b < 1 ? { poles: a < 1 && b < 1 ? ('both' as const) : a < 1 ? ('lower' as const) : ('upper' as const) } : {}),
+    logDensityFromUpper(d: number): number {
+      if (d > 0 && d < 1) return (am1 === 0 ? 0 : am1 * Math.log1p(-d)) + (bm1 === 0 ? 0 : bm1 * Math.log(d)) + c;
+      if (d === 0) return atOne;
+      if (d === 1) return atZero;
+      return d !== d ? NaN : -Infinity;
+    },
+    dLogDensityFromUpper(d: number): number {
+      if (d > 0 && d < 1) return am1 / (1 - d) - bm1 / d;
+      if (d === 0) return dAtOne;
+      if (d === 1) return dAtZero;
+      return NaN;
+    },
     cdf(x: number): number {
       if (x !== x) return NaN;
       if (x <= 0) return 0;

@@ -6,6 +6,7 @@
 import { gammaCdf, gammaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import type { PoleTarget } from './end-distance.js';
 import { lowerRegularizedGamma, upperRegularizedGamma } from './_internals/gamma-series.js';
 
 /**
@@ -38,6 +39,9 @@ export const GAMMA_SERIES_MIN_SHAPE = 100;
  * where it marks the end at which the density is unbounded, not a point of
  * maximal finite density (logDensity is `-Infinity` there, see above).
  *
+ * For shape < 1 the target declares `poles: 'lower'` (see {@link PoleTarget}):
+ * {@link exactSampler} then samples log X, whose density is log-concave.
+ *
  * `dLogDensity(x) = (shape − 1)/x − rate`; at x = 0 it returns the one-sided
  * limit (+Infinity, −rate or −Infinity), and NaN for x < 0.
  *
@@ -61,7 +65,7 @@ export const GAMMA_SERIES_MIN_SHAPE = 100;
  * t.mode;                      // 1
  * ```
  */
-export function gammaTarget(shape: number, rate: number = 1): FamilyTarget {
+export function gammaTarget(shape: number, rate: number = 1): FamilyTarget & PoleTarget {
   const api = 'gammaTarget';
   checkPositive(api, 'shape', shape);
   checkPositive(api, 'rate', rate);
@@ -76,6 +80,8 @@ export function gammaTarget(shape: number, rate: number = 1): FamilyTarget {
       if (x > 0) {
         if (x === Infinity) return -Infinity;
         const rx = rate * x;
+        // rate·x underflows to 0 only for x near the smallest doubles and rate < 1
+        if (rx === 0) return (shapeM1 === 0 ? 0 : shapeM1 * (Math.log(x) + logRate)) + c;
         return (shapeM1 === 0 ? 0 : shapeM1 * Math.log(rx)) - rx + c;
       }
       if (x === 0) return atZero;
@@ -87,6 +93,7 @@ export function gammaTarget(shape: number, rate: number = 1): FamilyTarget {
       return NaN;
     },
     support: [0, Infinity] as const,
+    ...(shape < 1 ? { poles: 'lower' as const } : {}),
     mode: shape > 1 ? Math.max(Number.MIN_VALUE, shapeM1 / rate) : 0,
     cdf(x: number): number {
       if (!(x > 0)) return x !== x ? NaN : 0;

@@ -6,11 +6,12 @@
 import { InvalidTargetError } from '../core/errors.js';
 import { checkTarget } from '../core/validate.js';
 import type { SurvivalTarget } from './family-target.js';
+import type { PoleSide, PoleTarget } from './end-distance.js';
 
 /**
  * A target returned by {@link truncate}: its support is always set.
  */
-export interface TruncatedTarget extends SurvivalTarget {
+export interface TruncatedTarget extends SurvivalTarget, PoleTarget {
   /** The truncated support: the intersection of the target's support with `[lower, upper]`. */
   readonly support: readonly [number, number];
 }
@@ -29,6 +30,10 @@ export interface TruncatedTarget extends SurvivalTarget {
  * - `mode`: the target's mode hint clamped into the new support. For a
  *   unimodal target the clamped mode is the mode of the truncation. Absent
  *   when the target has none.
+ * - Poles ({@link PoleTarget}): a declared pole, and the log-density by the
+ *   distance to that end, are kept for each end of the target's support that
+ *   the truncation keeps (e.g. `truncate(gammaTarget(0.5), 0, 1e-6)` keeps
+ *   the pole at 0) and dropped for an end it moves.
  * - `cdf`: `(F(x) − F(lo)) / (F(hi) − F(lo))` with `[lo, hi]` the new support.
  *   When the target also has `sf` (the exactdraw extension of
  *   {@link SurvivalTarget}; all ready-made targets have it) and the interval
@@ -94,6 +99,7 @@ export function truncate(target: SurvivalTarget, lower: number, upper: number): 
     out.dLogDensity = (x: number): number => (x < lo || x > hi ? NaN : dld(x));
   }
   if (base.mode !== undefined) out.mode = Math.min(hi, Math.max(lo, base.mode));
+  keepPoles(target as PoleTarget, out, lo === base.lower, hi === base.upper, hi - lo);
   if (typeof F0 === 'function') {
     const F = (F0 as (x: number) => number).bind(target);
     const S = typeof S0 === 'function' ? (S0 as (x: number) => number).bind(target) : undefined;
@@ -123,4 +129,27 @@ export function truncate(target: SurvivalTarget, lower: number, upper: number): 
     }
   }
   return out;
+}
+
+/** Copies the pole declaration and distance forms of the ends that the truncation keeps. */
+function keepPoles(
+  target: PoleTarget,
+  out: { -readonly [K in keyof TruncatedTarget]: TruncatedTarget[K] },
+  keepLower: boolean,
+  keepUpper: boolean,
+  width: number,
+): void {
+  const p = target.poles;
+  const lower = keepLower && (p === 'lower' || p === 'both');
+  const upper = keepUpper && (p === 'upper' || p === 'both');
+  const side: PoleSide | undefined = lower && upper ? 'both' : lower ? 'lower' : upper ? 'upper' : undefined;
+  if (side !== undefined) out.poles = side;
+  const fl = target.logDensityFromLower;
+  const dfl = target.dLogDensityFromLower;
+  const fu = target.logDensityFromUpper;
+  const dfu = target.dLogDensityFromUpper;
+  if (keepLower && typeof fl === 'function') out.logDensityFromLower = (d: number): number => (d > width ? -Infinity : fl.call(target, d));
+  if (keepLower && typeof dfl === 'function') out.dLogDensityFromLower = (d: number): number => (d > width ? NaN : dfl.call(target, d));
+  if (keepUpper && typeof fu === 'function') out.logDensityFromUpper = (d: number): number => (d > width ? -Infinity : fu.call(target, d));
+  if (keepUpper && typeof dfu === 'function') out.dLogDensityFromUpper = (d: number): number => (d > width ? NaN : dfu.call(target, d));
 }

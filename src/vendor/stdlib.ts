@@ -101,3 +101,28 @@ export const negativeBinomialCdf: (k: number, r: number, p: number) => number = 
 export const geometricLogpmf: (k: number, p: number) => number = geometricLogpmfImpl;
 /** Geometric(p) cdf at k. @internal */
 export const geometricCdf: (k: number, p: number) => number = geometricCdfImpl;
+// Families added with issue 11 (exponential … Gumbel).
+import exponentialCdfImpl from '@stdlib/stats-base-dists-exponential-cdf';
+import laplaceCdfImpl from '@stdlib/stats-base-dists-laplace-cdf';
+import weibullCdfImpl from '@stdlib/stats-base-dists-weibull-cdf';
+import lognormalCdfImpl from '@stdlib/stats-base-dists-lognormal-cdf';
+import chisquareCdfImpl from '@stdlib/stats-base-dists-chisquare-cdf';
+import invgammaCdfImpl from '@stdlib/stats-base-dists-invgamma-cdf';
+import paretoType1CdfImpl from '@stdlib/stats-base-dists-pareto-type1-cdf';
+import gumbelCdfImpl from '@stdlib/stats-base-dists-gumbel-cdf';
+/** Exponential(rate) cdf at x. @internal */
+export const exponentialCdf: (x: number, rate: number) => number = exponentialCdfImpl;
+/** Laplace(mu, b) cdf at x. @internal */
+export const laplaceCdf: (x: number, mu: number, b: number) => number = laplaceCdfImpl;
+/** Weibull(shape k, scale lambda) cdf at x. @internal */
+export const weibullCdf: (x: number, k: number, lambda: number) => number = weibullCdfImpl;
+/** Lognormal(mu, sigma) cdf at x. @internal */
+export const lognormalCdf: (x: number, mu: number, sigma: number) => number = lognormalCdfImpl;
+/** Chi-square(k) cdf at x. @internal */
+export const chisquareCdf: (x: number, k: number) => number = chisquareCdfImpl;
+/** Inverse-gamma(shape alpha, scale beta) cdf at x. @internal */
+export const invgammaCdf: (x: number, alpha: number, beta: number) => number = invgammaCdfImpl;
+/** Pareto type I(shape alpha, scale beta) cdf at x. @internal */
+export const paretoType1Cdf: (x: number, alpha: number, beta: number) => number = paretoType1CdfImpl;
+/** Gumbel(mu, beta) cdf at x. @internal */
+export const gumbelCdf: (x: number, mu: number, beta: number) => number = gumbelCdfImpl;

@@ -34,12 +34,13 @@ const MAY_IMPORT: Record<string, readonly string[]> = {
   'methods/table': ['core', 'random', 'methods/envelope'],
   'methods/ratio-of-uniforms': ['core', 'random', 'bounds', 'methods/envelope'],
   'methods/certified': ['core', 'random', 'methods/envelope'],
+  'methods/transform': ['core', 'random', 'bounds', 'targets', 'methods/envelope', 'methods/auto'],
   formula: ['core', 'vendor'],
   // The chooser's helpers: they may use the methods they choose between.
   'methods/auto': ['core', 'random', 'bounds', 'methods', 'methods/envelope', 'methods/certified', 'methods/piecewise'],
-  methods: ['core', 'random', 'bounds', 'methods/envelope', 'methods/hull', 'methods/piecewise', 'methods/table', 'methods/ratio-of-uniforms', 'methods/certified', 'methods/auto'],
+  methods: ['core', 'random', 'bounds', 'methods/envelope', 'methods/hull', 'methods/piecewise', 'methods/table', 'methods/ratio-of-uniforms', 'methods/certified', 'methods/auto', 'methods/transform'],
   checks: ['core', 'vendor', 'targets', 'methods/envelope'],
-  index: ['core', 'random', 'bounds', 'targets', 'proposals', 'methods', 'methods/envelope', 'methods/table', 'methods/certified', 'methods/auto', 'checks', 'formula', 'discrete'],
+  index: ['core', 'random', 'bounds', 'targets', 'proposals', 'methods', 'methods/envelope', 'methods/table', 'methods/certified', 'methods/auto', 'methods/transform', 'checks', 'formula', 'discrete'],
   node: ['core', 'random', 'index', 'checks', 'methods', 'targets', 'proposals'],
   cli: ['core', 'random', 'vendor', 'bounds', 'targets', 'proposals', 'methods', 'checks', 'index', 'node', 'discrete'],
 };
