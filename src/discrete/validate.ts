@@ -3,7 +3,8 @@
  *
  * @packageDocumentation
  */
-import { InvalidOptionError, InvalidTargetError, NonFiniteDensityError } from '../core/errors.js';
+import { checkLogDensity } from '../core/evaluate.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
 import type { DiscreteTarget } from '../core/types.js';
 
 /** A discrete target whose members have been checked. @internal */
@@ -73,11 +74,9 @@ export function checkDiscreteTarget(api: string, target: DiscreteTarget): Checke
   return { logPmf: target.logPmf.bind(target), lower, upper, mode: mode as number | undefined };
 }
 
-/** Evaluates logPmf(k) and throws {@link NonFiniteDensityError} on NaN or +Infinity. @internal */
+/** Evaluates logPmf(k) and throws NonFiniteDensityError (the one check, core/evaluate.ts) on NaN or +Infinity. @internal */
 export function evalLogPmf(api: string, logPmf: (k: number) => number, k: number): number {
-  const v = logPmf(k);
-  if (typeof v !== 'number' || v !== v || v === Infinity) throw new NonFiniteDensityError(api, k, v);
-  return v;
+  return checkLogDensity(api, k, logPmf(k));
 }
 
 /** Throws unless `out` is a Float64Array or an Int32Array. @internal */

@@ -4,8 +4,9 @@
  *
  * @packageDocumentation
  */
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
-import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
+import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
 import type { CheckedDiscreteTarget } from '../validate.js';
 
 /** Largest |k| passed to logPmf: draws stay safe integers. @internal */
@@ -37,7 +38,7 @@ export class SetupEvaluator {
     if (c !== undefined) return c;
     const v = this.t.logPmf(k);
     this.counters.setupEvaluations++;
-    if (typeof v !== 'number' || v !== v || v === Infinity) throw new NonFiniteDensityError(this.api, k, v);
+    checkLogDensity(this.api, k, v);
     this.memo.set(k, v);
     return v;
   }

@@ -26,12 +26,13 @@
  * five points per side (the edge, the secant's other end, one point beyond).
  * @internal
  */
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, ImproperDensityError, NonFiniteDensityError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, ImproperDensityError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
 import type { DiscreteSampler } from '../types.js';
-import { checkDiscreteFillArray, int32RangeError } from '../validate.js';
+import { discreteDraws } from '../_internals/draws.js';
 
 /** One side of the hat. @internal */
 export interface LogConcaveSide {
@@ -167,7 +168,7 @@ export function logConcaveSampler(
         g = G;
         const hk = logPmf(k);
         counters.densityEvaluations++;
-        if (hk !== hk || hk === Infinity || typeof hk !== 'number') throw new NonFiniteDensityError(api, k, hk);
+        checkLogDensity(api, k, hk);
         if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
         if (hk < sq - DISCRETE_LOG_MARGIN) {
           throw new ShapeViolationError(`${api}: logPmf(${k}) = ${hk} is below the chord from the mode ${m} (${sq}); the pmf is not log-concave`, [Math.min(k, m), Math.max(k, m)]);
@@ -183,7 +184,7 @@ export function logConcaveSampler(
           g = (right ? hr : hl) + j * s;
           const hk = logPmf(k);
           counters.densityEvaluations++;
-          if (hk !== hk || hk === Infinity || typeof hk !== 'number') throw new NonFiniteDensityError(api, k, hk);
+          checkLogDensity(api, k, hk);
           if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
           if (v <= Math.exp(hk - g)) return k;
         }
@@ -191,32 +192,5 @@ export function logConcaveSampler(
       if (++rej >= maxRejections) throw new StalledSamplerError(api, rej, counters.samples, counters.proposals);
     }
   };
-  return {
-    sample(): number {
-      const k = draw();
-      counters.samples++;
-      return k;
-    },
-    fill<T extends Float64Array | Int32Array>(out: T): T {
-      checkDiscreteFillArray(api, out);
-      const n = out.length;
-      if (out instanceof Int32Array) {
-        for (let i = 0; i < n; i++) {
-          const k = draw();
-          if (k > 2147483647 || k < -2147483648) throw int32RangeError(api, k);
-          out[i] = k;
-          counters.samples++;
-        }
-      } else {
-        for (let i = 0; i < n; i++) {
-          out[i] = draw();
-          counters.samples++;
-        }
-      }
-      return out;
-    },
-    get stats() {
-      return counters.snapshot();
-    },
-  };
+  return discreteDraws(api, draw, counters);
 }

@@ -20,12 +20,13 @@
  * decays faster than j^-2.
  * @internal
  */
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, ImproperDensityError, NonFiniteDensityError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, ImproperDensityError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
 import type { DiscreteSampler } from '../types.js';
-import { checkDiscreteFillArray, int32RangeError } from '../validate.js';
+import { discreteDraws } from '../_internals/draws.js';
 
 /** The rectangle of {@link buildRatioRectangle}: logs of u₊ and −u₋. @internal */
 export interface RatioRectangle {
@@ -109,7 +110,7 @@ export function ratioSampler(
       const k = Math.floor(x);
       const hk = logPmf(k);
       counters.densityEvaluations++;
-      if (hk !== hk || hk === Infinity || typeof hk !== 'number') throw new NonFiniteDensityError(api, k, hk);
+      checkLogDensity(api, k, hk);
       const d = hk - F;
       if (d > DISCRETE_LOG_MARGIN) throw new EnvelopeViolationError(api, k, hk, F + DISCRETE_LOG_MARGIN);
       const j = k - m;
@@ -120,26 +121,5 @@ export function ratioSampler(
     }
     throw new StalledSamplerError(api, maxRejections, counters.samples, counters.proposals);
   };
-  return {
-    sample(): number {
-      const k = draw();
-      counters.samples++;
-      return k;
-    },
-    fill<T extends Float64Array | Int32Array>(out: T): T {
-      checkDiscreteFillArray(api, out);
-      const n = out.length;
-      const int = out instanceof Int32Array;
-      for (let i = 0; i < n; i++) {
-        const k = draw();
-        if (int && (k > 2147483647 || k < -2147483648)) throw int32RangeError(api, k);
-        out[i] = k;
-        counters.samples++;
-      }
-      return out;
-    },
-    get stats() {
-      return counters.snapshot();
-    },
-  };
+  return discreteDraws(api, draw, counters);
 }

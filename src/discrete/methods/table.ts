@@ -19,8 +19,9 @@
  * below about 2^-53 may round to probability 0.
  * @internal
  */
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, InvalidTargetError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
 import { buildAlias, quantizeWeights } from '../_internals/tables.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
@@ -122,7 +123,7 @@ export function tableSamplerOf(
     const g = (right ? hR : hL) + j * s;
     const hk = logPmf(k);
     counters.densityEvaluations++;
-    if (hk !== hk || hk === Infinity || typeof hk !== 'number') throw new NonFiniteDensityError(api, k, hk);
+    checkLogDensity(api, k, hk);
     if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
     return v <= Math.exp(hk - g) ? k : NaN;
   };

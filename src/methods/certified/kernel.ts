@@ -6,8 +6,9 @@
  *
  * @packageDocumentation
  */
+import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
-import { EnvelopeViolationError, NonFiniteDensityError, StalledSamplerError } from '../../core/errors.js';
+import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
 import { GuideTable } from '../envelope/guide-table.js';
 import { logSumExp } from './build.js';
@@ -191,7 +192,7 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       }
       const lf = logf(x);
       cnt.densityEvaluations++;
-      if (lf !== lf || lf === Infinity || typeof lf !== 'number') throw new NonFiniteDensityError(s.api, x, lf);
+      checkLogDensity(s.api, x, lf);
       if (lf > lg) throw new EnvelopeViolationError(s.api, x, lf, lg);
       if (lf < ls) throw new EnvelopeViolationError(s.api, x, lf, ls, 'squeeze');
       if (v <= Math.exp(lf - lg)) {

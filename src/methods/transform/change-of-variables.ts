@@ -165,50 +165,14 @@ export function buildPoleTransform(api: string, target: PoleTarget, side: PoleSi
   const fmt = (e: number): string => String(e);
 
   if (side === 'lower') {
-    const yLo = Math.log(minLo);
-    const yHi = Number.isFinite(b) ? Math.log(b - a) : Infinity;
-    const width = b - a;
-    const out: { -readonly [K in keyof Target]: Target[K] } = {
-      logDensity(y: number): number {
-        if (!(y >= yLo && y <= yHi)) return y !== y ? NaN : -Infinity;
-        const d = Math.exp(y);
-        if (!(d < Infinity) || d > width) return -Infinity;
-        const l = lfLo(d);
-        return l === -Infinity ? l : l + y;
-      },
-      support: [yLo, yHi],
-    };
-    if (hasD && dLo !== undefined) {
-      out.dLogDensity = (y: number): number => {
-        const d = Math.exp(y);
-        return dLo(d) * d + 1;
-      };
-    }
+    const out = logDistanceTarget(lfLo, hasD ? dLo : undefined, 1, minLo, b - a);
     return freeze('log-lower', side, `Y = log(X − ${fmt(a)})`, out, a, b, minLo, NaN, (y: number): number => {
       const x = a + Math.exp(y);
       return x > a ? (x <= b ? x : b) : insideLo;
     });
   }
   if (side === 'upper') {
-    const yLo = Math.log(minHi);
-    const yHi = Number.isFinite(a) ? Math.log(b - a) : Infinity;
-    const width = b - a;
-    const out: { -readonly [K in keyof Target]: Target[K] } = {
-      logDensity(y: number): number {
-        if (!(y >= yLo && y <= yHi)) return y !== y ? NaN : -Infinity;
-        const d = Math.exp(y);
-        if (!(d < Infinity) || d > width) return -Infinity;
-        const l = lfHi(d);
-        return l === -Infinity ? l : l + y;
-      },
-      support: [yLo, yHi],
-    };
-    if (hasD && dHi !== undefined) {
-      out.dLogDensity = (y: number): number => {
-        const d = Math.exp(y);
-        return -dHi(d) * d + 1;
-      };
-    }
+    const out = logDistanceTarget(lfHi, hasD ? dHi : undefined, -1, minHi, b - a);
     return freeze('log-upper', side, `Y = log(${fmt(b)} − X)`, out, a, b, NaN, minHi, (y: number): number => {
       const x = b - Math.exp(y);
       return x < b ? (x >= a ? x : a) : insideHi;
@@ -259,6 +223,40 @@ export function buildPoleTransform(api: string, target: PoleTarget, side: PoleSi
     const x = b - (w * e) / (1 + e);
     return x < b ? x : insideHi;
   });
+}
+
+/**
+ * The density of Y = log(d), d the distance to the pole's end, on
+ * [log(minDistance), log(width)]: f(end ± e^y)·e^y in log form. `sign` is the
+ * derivative of x with respect to d (+1 at the lower end, −1 at the upper).
+ * @internal
+ */
+function logDistanceTarget(
+  lf: (d: number) => number,
+  dl: ((d: number) => number) | undefined,
+  sign: 1 | -1,
+  minDistance: number,
+  width: number,
+): { -readonly [K in keyof Target]: Target[K] } {
+  const yLo = Math.log(minDistance);
+  const yHi = Math.log(width); // +Infinity when the far end is infinite
+  const out: { -readonly [K in keyof Target]: Target[K] } = {
+    logDensity(y: number): number {
+      if (!(y >= yLo && y <= yHi)) return y !== y ? NaN : -Infinity;
+      const d = Math.exp(y);
+      if (!(d < Infinity) || d > width) return -Infinity;
+      const l = lf(d);
+      return l === -Infinity ? l : l + y;
+    },
+    support: [yLo, yHi],
+  };
+  if (dl !== undefined) {
+    out.dLogDensity = (y: number): number => {
+      const d = Math.exp(y);
+      return sign * dl(d) * d + 1;
+    };
+  }
+  return out;
 }
 
 function freeze(

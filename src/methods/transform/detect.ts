@@ -4,7 +4,8 @@
  *
  * @packageDocumentation
  */
-import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
+import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import type { PoleSide, PoleTarget } from '../../targets/end-distance.js';
 import { MIN_POLE_DISTANCE } from './change-of-variables.js';
@@ -128,9 +129,8 @@ export function checkRepresentable(api: string, tr: PoleTransform): { evaluation
   let evaluations = 0;
   const ev = (y: number): number => {
     evaluations++;
-    const v = g(y);
-    if (v !== v || v === Infinity) throw new NonFiniteDensityError(api, tr.toX(y), v);
-    return v;
+    const v: unknown = g(y);
+    return checkLogDensity(api, tr.toX(y), v);
   };
   const lo = Math.max(yLo, -745);
   const hi = Math.min(yHi, 710);
