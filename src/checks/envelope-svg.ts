@@ -4,6 +4,7 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import type { Target } from '../core/types.js';
 import { evaluateEnvelope } from '../methods/hull/describe.js';
 import type { EnvelopeDescription } from '../methods/hull/describe.js';
@@ -60,7 +61,7 @@ function label(v: number): string {
 
 function checkSize(name: string, v: unknown, min: number, max: number): number {
   if (typeof v !== 'number' || !Number.isFinite(v) || v < min || v > max) {
-    throw new InvalidTargetError(`${API}: options.${name} must be a number in [${min}, ${max}], got ${String(v)}`);
+    throw new InvalidOptionError(`${API}: options.${name} must be a number in [${min}, ${max}], got ${String(v)}`);
   }
   return v;
 }
@@ -104,15 +105,15 @@ export function envelopeSvg(
     throw new InvalidTargetError(`${API}: target must be an object with a logDensity function`);
   }
   if (options === null || typeof options !== 'object') {
-    throw new InvalidTargetError(`${API}: options must be an object, got ${String(options)}`);
+    throw new InvalidOptionError(`${API}: options must be an object, got ${String(options)}`);
   }
   const width = checkSize('width', options.width ?? 640, 100, 10000);
   const height = checkSize('height', options.height ?? 360, 80, 10000);
   const n = Math.floor(checkSize('points', options.points ?? 400, 2, 100000));
   const logPlot = options.logScale ?? false;
-  if (typeof logPlot !== 'boolean') throw new InvalidTargetError(`${API}: options.logScale must be a boolean, got ${String(logPlot)}`);
+  if (typeof logPlot !== 'boolean') throw new InvalidOptionError(`${API}: options.logScale must be a boolean, got ${String(logPlot)}`);
   const title = options.title ?? 'Target, envelope and squeeze';
-  if (typeof title !== 'string') throw new InvalidTargetError(`${API}: options.title must be a string, got ${String(title)}`);
+  if (typeof title !== 'string') throw new InvalidOptionError(`${API}: options.title must be a string, got ${String(title)}`);
 
   const [sLo, sHi] = env.support;
   const tp = env.touchPoints;
@@ -121,7 +122,7 @@ export function envelopeSvg(
   if (options.range !== undefined) {
     const r = options.range;
     if (!Array.isArray(r) || r.length !== 2 || !Number.isFinite(r[0]) || !Number.isFinite(r[1]) || !(r[0] < r[1])) {
-      throw new InvalidTargetError(`${API}: options.range must be a pair [a, b] of finite numbers with a < b, got ${String(r)}`);
+      throw new InvalidOptionError(`${API}: options.range must be a pair [a, b] of finite numbers with a < b, got ${String(r)}`);
     }
     a = r[0];
     b = r[1];

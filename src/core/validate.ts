@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError, NonFiniteDensityError } from './errors.js';
+import { InvalidOptionError, InvalidTargetError, NonFiniteDensityError } from './errors.js';
 import type { Target } from './types.js';
 
 /** A target whose optional members have been checked. @internal */
@@ -50,7 +50,7 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
   let mode = target.mode;
   if (mode !== undefined) {
     if (typeof mode !== 'number' || !Number.isFinite(mode)) {
-      throw new InvalidTargetError(`${api}: target.mode must be a finite number when given, got ${String(mode)}`);
+      throw new InvalidTargetError(`${api}: target.mode must be a finite number when given, got ${showValue(mode)}`);
     }
     if (mode < lower || mode > upper) {
       throw new InvalidTargetError(`${api}: target.mode = ${mode} lies outside the support [${lower}, ${upper}]`);
@@ -93,26 +93,48 @@ export function evalLog(api: string, logDensity: (x: number) => number, x: numbe
   return v;
 }
 
-/** Throws unless `v` is a finite number. @internal */
+/**
+ * A value as messages show it: strings quoted (`'42'`), everything else as
+ * `String(v)` (arrays in brackets, objects by their tag).
+ * @internal
+ */
+export function showValue(v: unknown): string {
+  if (typeof v === 'string') return `'${v}'`;
+  if (Array.isArray(v)) return `[${v.map(showValue).join(', ')}]`;
+  if (v !== null && typeof v === 'object') return Object.prototype.toString.call(v);
+  return String(v);
+}
+
+/**
+ * The error class for a bad value of the parameter `name`: an option
+ * (`name` starts with `options.`) gets {@link InvalidOptionError}
+ * (`'INVALID_OPTION'`), a target or family parameter {@link InvalidTargetError}.
+ * @internal
+ */
+function badValue(name: string, message: string): InvalidTargetError | InvalidOptionError {
+  return name.startsWith('options.') ? new InvalidOptionError(message) : new InvalidTargetError(message);
+}
+
+/** Throws unless `v` is a finite number (`InvalidOptionError` when `name` is `options.…`). @internal */
 export function checkFinite(api: string, name: string, v: unknown): number {
   if (typeof v !== 'number' || !Number.isFinite(v)) {
-    throw new InvalidTargetError(`${api}: ${name} must be a finite number, got ${String(v)}`);
+    throw badValue(name, `${api}: ${name} must be a finite number, got ${showValue(v)}`);
   }
   return v;
 }
 
-/** Throws unless `v` is a finite number > 0. @internal */
+/** Throws unless `v` is a finite number > 0 (`InvalidOptionError` when `name` is `options.…`). @internal */
 export function checkPositive(api: string, name: string, v: unknown): number {
   if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) {
-    throw new InvalidTargetError(`${api}: ${name} must be a finite number > 0, got ${String(v)}`);
+    throw badValue(name, `${api}: ${name} must be a finite number > 0, got ${showValue(v)}`);
   }
   return v;
 }
 
-/** Throws unless `v` is an integer in `[min, max]`. @internal */
+/** Throws unless `v` is an integer in `[min, max]` (`InvalidOptionError` when `name` is `options.…`). @internal */
 export function checkInteger(api: string, name: string, v: unknown, min: number, max: number): number {
   if (typeof v !== 'number' || !Number.isInteger(v) || v < min || v > max) {
-    throw new InvalidTargetError(`${api}: ${name} must be an integer in [${min}, ${max}], got ${String(v)}`);
+    throw badValue(name, `${api}: ${name} must be an integer in [${min}, ${max}], got ${showValue(v)}`);
   }
   return v;
 }
@@ -121,11 +143,11 @@ export function checkInteger(api: string, name: string, v: unknown, min: number,
 export function checkOptionKeys(api: string, opts: object | undefined, known: readonly string[]): void {
   if (opts === undefined) return;
   if (opts === null || typeof opts !== 'object') {
-    throw new InvalidTargetError(`${api}: options must be an object, got ${opts === null ? 'null' : typeof opts}`);
+    throw new InvalidOptionError(`${api}: options must be an object, got ${opts === null ? 'null' : typeof opts}`);
   }
   for (const k of Object.keys(opts)) {
     if (!known.includes(k)) {
-      throw new InvalidTargetError(`${api}: unknown option '${k}' (known: ${known.join(', ')})`);
+      throw new InvalidOptionError(`${api}: unknown option '${k}' (known: ${known.map((n) => `'${n}'`).join(', ')})`);
     }
   }
 }

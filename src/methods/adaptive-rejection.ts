@@ -5,6 +5,7 @@
  */
 import { checkFillArray } from '../core/validate.js';
 import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './hull/describe.js';
@@ -130,7 +131,7 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   const api = 'adaptiveRejectionSampler';
   const fast = options === null || typeof options !== 'object' ? undefined : options.fast;
   if (fast !== undefined && typeof fast !== 'boolean') {
-    throw new InvalidTargetError(`${api}: options.fast must be a boolean, got ${String(fast)}`);
+    throw new InvalidOptionError(`${api}: options.fast must be a boolean, got ${String(fast)}`);
   }
   const setup = setupHull(api, target, options, KNOWN);
   if (fast === true) return createTableSampler(api, setup, undefined);
@@ -143,7 +144,7 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
     try {
       hullFill(hull, out, n, counters, uniform, maxRejections);
     } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) failure = e;
+      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError) && !(e instanceof InvalidOptionError)) failure = e;
       throw e;
     }
   };

@@ -5,6 +5,7 @@
  */
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
 import type { CheckedTarget } from '../core/validate.js';
@@ -376,14 +377,14 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
     ? DEFAULT_MAX_REJECTIONS
     : checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
   const fast = checkBoolean(api, 'options.fast', opts.fast);
-  if (fast && adapt) throw new InvalidTargetError(`${api}: options.fast and options.adapt cannot both be true (the table of the fast path does not change after setup)`);
+  if (fast && adapt) throw new InvalidOptionError(`${api}: options.fast and options.adapt cannot both be true (the table of the fast path does not change after setup)`);
   if (!fast && (opts.strips !== undefined || opts.tailMass !== undefined)) {
-    throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts.strips)}, tailMass ${String(opts.tailMass)})`);
+    throw new InvalidOptionError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts.strips)}, tailMass ${String(opts.tailMass)})`);
   }
   const strips = opts.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', opts.strips, 2, MAX_TABLE_STRIPS);
   const tailMass = opts.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
   if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
-    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
+    throw new InvalidOptionError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
   }
   const uniform = resolveUniform(api, opts);
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
@@ -578,7 +579,7 @@ class Piecewise implements PiecewiseSampler {
         this.repair();
       }
     } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) this.failure = e;
+      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError) && !(e instanceof InvalidOptionError)) this.failure = e;
       throw e;
     }
   }
@@ -672,16 +673,16 @@ function checkDerivative(api: string, pts: readonly ScanPoint[]): void {
 
 function checkBreakpoints(api: string, pts: readonly number[], t: CheckedTarget): number[] {
   if (!Array.isArray(pts)) {
-    throw new InvalidTargetError(`${api}: options.breakpoints must be an array of numbers, got ${String(pts)}`);
+    throw new InvalidOptionError(`${api}: options.breakpoints must be an array of numbers, got ${String(pts)}`);
   }
   const out: number[] = [];
   for (let i = 0; i < pts.length; i++) {
     const x = pts[i] as unknown;
     if (typeof x !== 'number' || !Number.isFinite(x)) {
-      throw new InvalidTargetError(`${api}: options.breakpoints[${i}] must be a finite number, got ${String(x)}`);
+      throw new InvalidOptionError(`${api}: options.breakpoints[${i}] must be a finite number, got ${String(x)}`);
     }
     if (x < t.lower || x > t.upper) {
-      throw new InvalidTargetError(`${api}: options.breakpoints[${i}] = ${x} lies outside the support [${t.lower}, ${t.upper}]`);
+      throw new InvalidOptionError(`${api}: options.breakpoints[${i}] = ${x} lies outside the support [${t.lower}, ${t.upper}]`);
     }
     out.push(x);
   }
@@ -690,7 +691,7 @@ function checkBreakpoints(api: string, pts: readonly number[], t: CheckedTarget)
 
 function checkRatio(api: string, v: unknown): number {
   if (typeof v !== 'number' || !(v > 1) || !(v <= 100)) {
-    throw new InvalidTargetError(`${api}: options.targetAreaRatio must be a number in (1, 100], got ${String(v)}`);
+    throw new InvalidOptionError(`${api}: options.targetAreaRatio must be a number in (1, 100], got ${String(v)}`);
   }
   return v;
 }

@@ -6,6 +6,7 @@
  */
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
 import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
@@ -186,7 +187,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const shift = options.shift === undefined ? undefined : checkFinite(api, 'options.shift', options.shift);
   const squeeze = options.squeeze;
   if (squeeze !== undefined && typeof squeeze !== 'function') {
-    throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
+    throw new InvalidOptionError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
   const maxRejections =
     options.maxRejections === undefined

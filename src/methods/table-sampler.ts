@@ -5,6 +5,7 @@
  * @packageDocumentation
  */
 import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import type { SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
 import type { Counters } from '../core/counters.js';
 import type { AliasCells } from './table/alias.js';
@@ -198,7 +199,7 @@ export function createTableSampler(api: string, setup: HullSetup, options: Table
   const strips = options?.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', options.strips, 2, MAX_TABLE_STRIPS);
   const tailMass = options?.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
   if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
-    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
+    throw new InvalidOptionError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
   }
   const { hull, counters, uniform, maxRejections } = setup;
   const logDensity = setup.target.logDensity;
@@ -247,7 +248,7 @@ export function tableDraws(
     try {
       tableFill(st, out, n, counters, blk, maxRejections);
     } catch (e) {
-      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError)) failure = e;
+      if (!(e instanceof StalledSamplerError) && !(e instanceof InvalidTargetError) && !(e instanceof InvalidOptionError)) failure = e;
       throw e;
     }
   };
