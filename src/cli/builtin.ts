@@ -7,7 +7,7 @@
 import { gammaFactory, zigguratFactory } from '../vendor/peers.js';
 import * as ed from '../index.js';
 import type { Sampler, SamplerStats, Uniform } from '../core/types.js';
-import type { SuiteEntry } from './suite.js';
+import type { SuiteEntry } from '../node/suite.js';
 import { quadratureCdf } from './demo.js';
 
 /** A suite entry that is a peer generator, not an exactdraw sampler. */

@@ -7,7 +7,7 @@
 import { andersonDarlingCheck } from '../checks/anderson-darling.js';
 import { ksCheck } from '../checks/ks.js';
 import { substream } from '../random/substream.js';
-import type { SuiteEntry } from './suite.js';
+import type { SuiteEntry } from '../node/suite.js';
 
 /** Options of {@link runCheck}. */
 export interface CheckOptions {

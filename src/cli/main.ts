@@ -14,7 +14,7 @@ import type { BuiltinEntry } from './builtin.js';
 import { compareBaseline, formatBench, readBaseline, runBench } from './bench.js';
 import { formatCheck, runCheck } from './check.js';
 import { runDemo } from './demo.js';
-import { loadSuite } from './suite.js';
+import { loadSuite } from '../node/suite.js';
 
 const USAGE = `usage:
   exactdraw demo                       run the bike-share fleet demo (invented data)

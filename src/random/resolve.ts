@@ -5,6 +5,7 @@
  */
 import { InvalidTargetError } from '../core/errors.js';
 import { InvalidOptionError } from '../core/errors.js';
+import { showValue } from '../core/validate.js';
 import type { SamplerOptions, Uniform } from '../core/types.js';
 import { DEFAULT_SEED, mersenneTwister } from './mersenne-twister.js';
 import { substream } from './substream.js';
@@ -30,14 +31,14 @@ export function resolveUniform(api: string, opts: SamplerOptions | undefined): U
     }
     return checkedUniform(api, given);
   }
-  const seed = opts?.seed ?? DEFAULT_SEED;
+  const seed = opts?.seed === undefined ? DEFAULT_SEED : opts.seed; // null is refused below, not taken for the default
   if (typeof seed !== 'number' || !Number.isInteger(seed) || seed < 0 || seed > Number.MAX_SAFE_INTEGER) {
-    throw new InvalidOptionError(`${api}: options.seed must be an integer in [0, 2^53 - 1], got ${String(seed)}`);
+    throw new InvalidOptionError(`${api}: options.seed must be an integer in [0, 2^53 - 1], got ${showValue(seed)}`);
   }
   const stream = opts?.stream;
   if (stream === undefined) return mersenneTwister(seed);
   if (typeof stream !== 'number' || !Number.isInteger(stream) || stream < 0 || stream > Number.MAX_SAFE_INTEGER) {
-    throw new InvalidOptionError(`${api}: options.stream must be an integer in [0, 2^53 - 1], got ${String(stream)}`);
+    throw new InvalidOptionError(`${api}: options.stream must be an integer in [0, 2^53 - 1], got ${showValue(stream)}`);
   }
   return substream(seed, stream);
 }
