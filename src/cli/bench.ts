@@ -182,28 +182,40 @@ async function expect<T extends ChildMessage['type']>(p: Promise<ChildMessage>, 
 /** Runs the cases (one child process each, rounds interleaved) and returns the report. */
 export async function runBench(cases: BenchCase[], opts: BenchOptions, only: string[] | null = null): Promise<BenchReport> {
   const procs: CaseProcess[] = [];
+  const P = Math.max(1, Math.min(REPLICAS, opts.rounds));
   try {
-    // start at most two at a time (the machine may be small); each builds its sampler and warms up
-    const ready: number[] = new Array<number>(cases.length);
-    for (let k = 0; k < cases.length; k += 2) {
-      const batch = cases.slice(k, k + 2).map((c) => new CaseProcess(opts.childScript, c, opts.seed, 'interleaved', opts.rounds));
-      procs.push(...batch);
-      opts.progress?.(`starting ${Math.min(k + 2, cases.length)}/${cases.length}: ${batch.map((p) => p.c.name).join(', ')}`);
-      const msgs = await Promise.all(batch.map((p) => expect(p.next(), 'ready')));
-      msgs.forEach((m, j) => (ready[k + j] = m.setupMs));
+    // P processes per case (a process's level can differ from another's by tens of per cent: JIT
+    // decisions, placement); round r times replica r mod P of every case, so the spread of the
+    // per-round ratios includes that variation. Start at most two at a time; each builds its sampler and warms up.
+    const all: Array<{ k: number; p: number }> = [];
+    for (let k = 0; k < cases.length; k++) for (let p = 0; p < P; p++) all.push({ k, p });
+    const grid: CaseProcess[][] = cases.map(() => []);
+    const setupMs: number[][] = cases.map(() => []);
+    for (let i = 0; i < all.length; i += 2) {
+      const batch = all.slice(i, i + 2).map(({ k, p }) => {
+        const proc = new CaseProcess(opts.childScript, cases[k], opts.seed, 'interleaved', opts.rounds);
+        grid[k][p] = proc;
+        procs.push(proc);
+        return { k, proc };
+      });
+      opts.progress?.(`starting ${Math.min(i + 2, all.length)}/${all.length} processes: ${batch.map((b) => b.proc.c.name).join(', ')}`);
+      const msgs = await Promise.all(batch.map((b) => expect(b.proc.next(), 'ready')));
+      msgs.forEach((m, j) => setupMs[batch[j].k].push(m.setupMs));
     }
+    const ready = setupMs.map((xs) => median(xs));
     const roundsNs: number[][] = cases.map(() => []);
     const wallNs: number[][] = cases.map(() => []);
     for (let r = 0; r < opts.rounds; r++) {
       opts.progress?.(`round ${r + 1}/${opts.rounds}`);
       for (let j = 0; j < cases.length; j++) {
         const k = (j + r) % cases.length;
-        const m = await expect(procs[k].next({ type: 'round' }), 'round');
+        const m = await expect(grid[k][r % P].next({ type: 'round' }), 'round');
         roundsNs[k].push(m.ns);
         wallNs[k].push(m.wallNs);
       }
     }
-    const done = await Promise.all(procs.map((p) => expect(p.next({ type: 'finish' }), 'done')));
+    const done = await Promise.all(grid.map((g) => expect(g[0].next({ type: 'finish' }), 'done')));
+    for (const g of grid) for (const p of g.slice(1)) p.kill();
     let check: SelfCheck | null = null;
     const gateIndex = cases.findIndex((c) => c.name === opts.gateReference);
     const uniformIndex = cases.findIndex((c) => c.module === null && c.name === RAW_UNIFORM);
@@ -257,6 +269,9 @@ export async function runBench(cases: BenchCase[], opts: BenchOptions, only: str
   }
 }
 
+/** Processes per case (rounds rotate over them). */
+export const REPLICAS = 3;
+
 /** Name of the raw uniform row (the default gate reference, always run). */
 export const RAW_UNIFORM = 'mt19937 uniform (raw)';
 
@@ -265,7 +280,7 @@ export function formatBench(report: BenchReport): string {
   const pad = (s: string, n: number): string => s.padEnd(n);
   const num = (x: number | null, d: number): string => (x === null ? '-' : x.toFixed(d));
   const lines = [
-    `exactdraw bench: ${report.draws} draws x ${report.rounds} rounds (ns/draw: process CPU time, median over rounds of the fastest of ${FILLS_PER_ROUND} fills), each case in its own process, rounds interleaved; exactdraw ${report.exactdraw}, node ${report.node}, ${report.cpu}, seed ${report.seed}`,
+    `exactdraw bench: ${report.draws} draws x ${report.rounds} rounds (ns/draw: process CPU time, median over rounds of the fastest fill of each round; counts: a fresh sampler over one round's draws), each case in ${REPLICAS} processes of its own, rounds interleaved; exactdraw ${report.exactdraw}, node ${report.node}, ${report.cpu}, seed ${report.seed}`,
     pad('case', 46) + pad('ns/draw', 10) + pad('wall ns', 10) + pad('x gate', 8) + pad('±noise', 8) + pad('accept', 8) + pad('evals/draw', 11) + pad('unif/draw', 10) + pad('setup ms', 9) + pad('x ref', 7) + 'reference',
   ];
   for (const r of report.rows) {
@@ -333,19 +348,23 @@ async function findCase(c: BenchCase): Promise<BuiltinEntry> {
   return e;
 }
 
-/** Fills per round; a round reports the fastest (interruptions by other processes only ever add time). */
+/** Fills per round, at least; a round reports the fastest (interruptions only ever add time). */
 export const FILLS_PER_ROUND = 3;
+/** A round repeats fills until it has used this much CPU time (ms), so that short fills are timed many times. */
+export const ROUND_CPU_MS = 20;
 
 /**
- * Times `FILLS_PER_ROUND` fills; returns the fastest in CPU time of this
- * process (user + system, µs resolution) and in wall time, as ns per draw.
+ * Times at least `FILLS_PER_ROUND` fills, and more until the round has used
+ * `ROUND_CPU_MS` of CPU time (at most 1000); returns the fastest in CPU time
+ * of this process (user + system, µs resolution) and in wall time, as ns per draw.
  * CPU time does not count the time the process waits for a core, which on a
  * shared machine is most of the noise of wall time.
  */
 function timedFill(s: Sampler, out: Float64Array, name: string): { cpu: number; wall: number } {
   let cpu = Infinity;
   let wall = Infinity;
-  for (let k = 0; k < FILLS_PER_ROUND; k++) {
+  let used = 0;
+  for (let k = 0; k < 1000 && (k < FILLS_PER_ROUND || used < ROUND_CPU_MS * 1e6); k++) {
     const c0 = process.cpuUsage();
     const a = performance.now();
     s.fill(out);
@@ -354,7 +373,9 @@ function timedFill(s: Sampler, out: Float64Array, name: string): { cpu: number; 
     let sum = 0;
     for (let i = 0; i < out.length; i += 97) sum += out[i];
     if (!Number.isFinite(sum)) throw new Error(`'${name}' produced a non-finite draw`);
-    cpu = Math.min(cpu, (c1.user + c1.system) * 1e3);
+    const ns = (c1.user + c1.system) * 1e3;
+    used += ns;
+    cpu = Math.min(cpu, ns);
     wall = Math.min(wall, (b - a) * 1e6);
   }
   return { cpu: cpu / out.length, wall: wall / out.length };
@@ -399,14 +420,15 @@ export function runBenchChild(): void {
         const t = timedFill(sampler as Sampler, out, (c as BenchCase).name);
         await send({ type: 'round', ns: t.cpu, wallNs: t.wall });
       } else if (msg.type === 'finish') {
-        const s = sampler as Sampler;
+        // counts from a fresh sampler over one round's draws: deterministic for a seed and --draws
+        // (the timed sampler made as many fills as the clock allowed)
         const e = entry as BuiltinEntry;
         const cc = c as BenchCase;
-        const st = s.stats;
         const cnt = counting(substream(seed, cc.index));
         const fresh = e.create(cnt.u, { seed, stream: cc.index });
-        const n = Math.min(cc.draws, 200_000);
+        const n = cc.draws;
         fresh.fill(new Float64Array(n));
+        const st = fresh.stats;
         const owns = cnt.calls() === 0;
         await send({
           type: 'done',

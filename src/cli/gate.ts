@@ -81,7 +81,7 @@ export interface GateFinding {
 /** Result of {@link gate}. */
 export interface GateResult {
   findings: GateFinding[];
-  /** `'pass'`, `'regression'` (a gated metric grew beyond the tolerance, or a baseline row is missing), or `'too-noisy'` (no regression, but some row's noise exceeds the tolerance). */
+  /** `'pass'`, `'regression'` (a gated metric grew beyond the tolerance and the noise, or a baseline row is missing), or `'too-noisy'` (no regression, but some row's noise exceeds the tolerance). */
   verdict: 'pass' | 'regression' | 'too-noisy';
 }
 
@@ -92,10 +92,11 @@ const pct = (x: number): string => `${(100 * x).toFixed(1)} %`;
  *
  * Time is gated on each row's ratio to the gate reference (medians of
  * per-round ratios). A ratio regresses when it exceeds the baseline's by
- * more than `tolerance`; the run's own noise (and the baseline's) is checked
- * first: when `GATE_Z` combined standard errors exceed the tolerance, the
- * row is reported `too-noisy` instead (the gate could not tell a regression
- * of that size from noise). Counts are deterministic for a seed and are
+ * more than `tolerance` and by more than the noise (`GATE_Z` combined
+ * standard errors of this run and the baseline), so that noise alone is
+ * flagged with probability below 0.2 % per row. When the noise exceeds the
+ * tolerance, the row is reported `too-noisy`: a regression of the
+ * tolerance's size could not be told from noise there. Counts are deterministic for a seed and are
  * gated with `countTolerance`. A baseline row absent from the run (renamed
  * or deleted) is `missing`, a row absent from the baseline `new`.
  */
@@ -118,17 +119,7 @@ export function gate(current: readonly GateRow[], baseline: readonly GateRow[], 
     if (r.name !== opts.gateReference && r.ratioToGate !== null && b.ratioToGate !== null && r.gateLogNoise !== null && b.gateLogNoise !== null) {
       const noise = GATE_Z * Math.hypot(r.gateLogNoise, b.gateLogNoise);
       const delta = Math.log(r.ratioToGate / b.ratioToGate);
-      if (noise >= limit) {
-        findings.push({
-          name: r.name,
-          kind: 'too-noisy',
-          metric: 'ratioToGate',
-          baseline: b.ratioToGate,
-          current: r.ratioToGate,
-          resolvable: Math.expm1(noise),
-          message: `TOO NOISY ${r.name}: the noise of this run and the baseline (${GATE_Z} standard errors: ${pct(Math.expm1(noise))}) exceeds the tolerance ${pct(opts.tolerance)}; not gated (use more --rounds or --draws, or a quieter machine)`,
-        });
-      } else if (delta > limit) {
+      if (delta > limit && delta > noise) {
         findings.push({
           name: r.name,
           kind: 'regression',
@@ -137,6 +128,16 @@ export function gate(current: readonly GateRow[], baseline: readonly GateRow[], 
           current: r.ratioToGate,
           resolvable: Math.expm1(noise),
           message: `REGRESSION ${r.name}: time ratio to '${opts.gateReference}' ${r.ratioToGate.toPrecision(4)} vs baseline ${b.ratioToGate.toPrecision(4)} (+${pct(Math.expm1(delta))}, tolerance ${pct(opts.tolerance)}, noise ±${pct(Math.expm1(noise))})`,
+        });
+      } else if (noise >= limit) {
+        findings.push({
+          name: r.name,
+          kind: 'too-noisy',
+          metric: 'ratioToGate',
+          baseline: b.ratioToGate,
+          current: r.ratioToGate,
+          resolvable: Math.expm1(noise),
+          message: `TOO NOISY ${r.name}: ratio ${r.ratioToGate.toPrecision(4)} vs baseline ${b.ratioToGate.toPrecision(4)}; the noise of this run and the baseline (${GATE_Z} standard errors: ${pct(Math.expm1(noise))}) exceeds the tolerance ${pct(opts.tolerance)}, so only a change beyond the noise is flagged (use more --rounds or --draws, or a quieter machine)`,
         });
       }
     }

@@ -4,8 +4,8 @@
  *
  * Exit codes: 0 success; 1 a check failed, nothing was checked, or a
  * benchmark regressed; 2 usage error, a module that cannot be loaded or a
- * baseline that cannot be used (all found before the run); 3 the benchmark
- * gate could not decide (the run's noise exceeds the tolerance).
+ * baseline that cannot be used (all found before the run); 3 (only with
+ * `--fail-on-noise`) the run's noise exceeds the tolerance of the gate.
  *
  * @packageDocumentation
  */
@@ -44,12 +44,13 @@ const HELP: Record<string, string> = {
                           and the rows' references are always run
   --json                  print the JSON report (schema exactdraw-bench/2) instead of the table
   --out FILE              also write the JSON report to FILE
-  --baseline FILE         gate against a saved report: exit 1 on a regression or a missing row, 3 when
-                          the run is too noisy to gate; draws, rounds and seed default to the baseline's
+  --baseline FILE         gate against a saved report: exit 1 on a regression (beyond the tolerance and
+                          the run's noise) or a missing row; draws, rounds and seed default to the baseline's
   --tolerance T (0.2)     relative slack on the time ratios
   --count-tolerance C     relative slack on evaluations and uniforms per draw (default: T)
   --gate-reference NAME   row the time ratios are taken to (default: '${RAW_UNIFORM}')
   --gate-times            also gate raw ns per draw (off: raw times drift with the machine's load)
+  --fail-on-noise         exit 3 when a row's noise exceeds the tolerance (default: a warning)
   --skip-self-check       do not time the raw uniform alone in a fresh process
   --quiet                 no progress line (it is shown on stderr only when stderr is a terminal)
 ${SUITE_NOTE}`,
@@ -90,6 +91,7 @@ const OPTIONS: Record<string, Record<string, OptionSpec>> = {
     'gate-reference': { type: 'string' },
     'gate-times': { type: 'boolean' },
     'skip-self-check': { type: 'boolean' },
+    'fail-on-noise': { type: 'boolean' },
     quiet: { type: 'boolean' },
   },
   check: {
@@ -279,13 +281,13 @@ async function bench(values: Values, moduleSpec: string | undefined, out: (s: st
     if (env.length > 0) lines.push(`note: this run and the baseline differ in ${env.join('; ')}; ratios transfer better than raw times, but compare with care`);
     for (const f of g.findings) lines.push(f.message);
     if (verdict === 'pass') lines.push(`no regression against ${baselineFile} (tolerance ${tolerance}, ${report.rows.length} rows, time gated on ratios to '${gateReference}')`);
-    else if (verdict === 'too-noisy') lines.push(`GATE INCONCLUSIVE against ${baselineFile}: no regression seen, but the noise of some rows exceeds the tolerance ${tolerance}`);
+    else if (verdict === 'too-noisy') lines.push(`no regression against ${baselineFile} beyond the noise, but the noise of some rows exceeds the tolerance ${tolerance} (WARNING: a regression of that size could hide there${values['fail-on-noise'] === true ? '; --fail-on-noise: exit 3' : ''})`);
   }
   const file = str(values, 'out');
   if (file !== undefined) writeJson(file, json);
   out(values.json === true ? JSON.stringify(json, null, 2) : formatBench(report));
   for (const l of lines) err(l);
-  return verdict === 'regression' ? 1 : verdict === 'too-noisy' ? 3 : 0;
+  return verdict === 'regression' ? 1 : verdict === 'too-noisy' && values['fail-on-noise'] === true ? 3 : 0;
 }
 
 async function check(values: Values, moduleSpec: string | undefined, out: (s: string) => void): Promise<number> {

@@ -3,7 +3,7 @@ import { resolve } from 'node:path';
 
 // Uses the build (worker threads load compiled JavaScript).
 const dist = (p: string): string => resolve('dist', p);
-const TINY = 'test/fixtures/tiny-suite.mjs';
+const TINY = 'test/fixtures/tiny-suite.mjs'; // a relative module path resolves against the working directory
 
 describe('fillParallel', () => {
   it('fillParallel is deterministic for a seed and worker count and equals partitionedFill in one thread', async () => {
