@@ -7,7 +7,6 @@ import { join } from 'node:path';
 import { run, suiteModule, tempDir } from './run.js';
 
 const TINY = 'test/fixtures/tiny-suite.mjs';
-const BIASED = 'test/fixtures/tiny-biased.mjs';
 
 describe('exactdraw check', () => {
   it('passes a correct module (exit 0) and states the overall false-positive rate', () => {
