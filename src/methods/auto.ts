@@ -6,7 +6,7 @@
  */
 import { ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import { checkFillArray, checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
 import { tableSampler } from './table-sampler.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { adaptiveRejectionSampler } from './adaptive-rejection.js';
@@ -278,7 +278,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
       choice,
       sampler: s,
       sample: () => s.sample(),
-      fill: (out: Float64Array) => s.fill(out),
+      fill: (out: Float64Array) => (checkFillArray('exactSampler(...)', out), s.fill(out)),
       get stats(): SamplerStats {
         const st = s.stats;
         return { ...st, setupEvaluations: st.setupEvaluations + setupOther };
