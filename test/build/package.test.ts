@@ -149,6 +149,9 @@ describe('published build', () => {
       expect(cjs).toBe('3499211612');
       const cli = execFileSync(process.execPath, [join(dir, 'node_modules/exactdraw/dist/cli/main.js'), 'check', '--only', 'fast hull normal (own stream)', '--n', '2000'], { cwd: dir, encoding: 'utf8' });
       expect(cli).toContain('all checks passed');
+      // the shipped example suite imports 'exactdraw' and runs from the installed package
+      const ex = execFileSync(process.execPath, [join(dir, 'node_modules/exactdraw/dist/cli/main.js'), 'check', 'node_modules/exactdraw/examples/ci-suite.mjs', '--draws', '2000'], { cwd: dir, encoding: 'utf8' });
+      expect(ex).toMatch(/all checks passed \(3 checked\)/);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
