@@ -213,7 +213,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const shift = options.shift === undefined ? undefined : checkFinite(api, 'options.shift', options.shift);
   const squeeze = options.squeeze;
   if (squeeze !== undefined && typeof squeeze !== 'function') {
-    throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
+    throw new InvalidOptionError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);

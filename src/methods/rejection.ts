@@ -6,6 +6,7 @@
 import { findLogBound } from '../bounds/find-log-bound.js';
 import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
@@ -83,7 +84,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   const api = 'rejectionSampler';
   const t = checkTarget(api, target);
   if (options === undefined || options === null || typeof options !== 'object') {
-    throw new InvalidTargetError(`${api}: options with a proposal are required, got ${String(options)}`);
+    throw new InvalidOptionError(`${api}: options with a proposal are required, got ${String(options)}`);
   }
   checkOptionKeys(api, options, KNOWN);
   const proposal = options.proposal;
@@ -91,7 +92,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   checkCovers(api, [t.lower, t.upper], pSupport);
   const squeeze = options.squeeze;
   if (squeeze !== undefined && typeof squeeze !== 'function') {
-    throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
+    throw new InvalidOptionError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);

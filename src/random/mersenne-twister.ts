@@ -116,8 +116,16 @@ export function mersenneTwister(seed: number = DEFAULT_SEED): MersenneTwister {
  */
 export function restoreMersenneTwister(state: MersenneTwisterState): MersenneTwister {
   const s = state as Partial<MersenneTwisterState> | null;
-  if (s === null || typeof s !== 'object' || s.format !== STATE_FORMAT || s.version !== 1 || !Array.isArray(s.words)) {
-    throw new InvalidTargetError(`restoreMersenneTwister: state is not an exactdraw MT19937 state (format ${String(s?.format)})`);
+  if (s === null || typeof s !== 'object' || s.format !== STATE_FORMAT || !Array.isArray(s.words)) {
+    const f = s !== null && typeof s === 'object' ? s.format : undefined;
+    throw new InvalidTargetError(`restoreMersenneTwister: state is not an exactdraw MT19937 state (format ${typeof f === 'string' ? `'${f}'` : String(f)}, expected '${STATE_FORMAT}' with a words array)`);
+  }
+  if (s.version !== 1) {
+    throw new InvalidTargetError(`restoreMersenneTwister: state version ${typeof s.version === 'string' ? `'${s.version}'` : String(s.version)} is not supported by this exactdraw (it reads version 1)`);
+  }
+  const expected = mt19937Factory({ seed: 1, copy: true }).state.length;
+  if (s.words.length !== expected) {
+    throw new InvalidTargetError(`restoreMersenneTwister: state.words has ${s.words.length} words, expected ${expected} (a truncated or edited state)`);
   }
   const words = s.words;
   for (let i = 0; i < words.length; i++) {
@@ -130,7 +138,8 @@ export function restoreMersenneTwister(state: MersenneTwisterState): MersenneTwi
   try {
     prng = mt19937Factory({ state: new Uint32Array(words), copy: true });
   } catch (e) {
-    throw new InvalidTargetError(`restoreMersenneTwister: state rejected (${(e as Error).message})`);
+    void e; // the bundled generator's own message names its internals, not this API
+    throw new InvalidTargetError('restoreMersenneTwister: state.words is not a valid MT19937 state (its header words do not match; a state edited by hand?)');
   }
   return wrapStdlibMt(prng);
 }

@@ -7,6 +7,7 @@
 import { InvalidTargetError } from '../core/errors.js';
 import type { OwnedStream, Sampler, Uniform } from '../core/types.js';
 import { substream } from './substream.js';
+import { showValue } from '../core/validate.js';
 
 /**
  * Index range `[start, end)` of part `part` when `length` draws are split into
@@ -47,8 +48,9 @@ export function partRange(length: number, parts: number, part: number): [number,
  */
 export function partitionedFill(create: (uniform: Uniform, own: OwnedStream) => Sampler, out: Float64Array, parts: number, seed: number): Float64Array {
   if (typeof create !== 'function') throw new InvalidTargetError(`partitionedFill: create must be a function (uniform) => Sampler, got ${typeof create}`);
-  if (!(out instanceof Float64Array)) throw new InvalidTargetError('partitionedFill: out must be a Float64Array');
-  if (!Number.isInteger(parts) || parts < 1) throw new InvalidTargetError(`partitionedFill: parts must be an integer >= 1, got ${String(parts)}`);
+  if (!(out instanceof Float64Array)) throw new InvalidTargetError(`partitionedFill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
+  if (!Number.isInteger(parts) || parts < 1) throw new InvalidTargetError(`partitionedFill: parts must be an integer >= 1, got ${showValue(parts)}`);
+  if (typeof seed !== 'number' || !Number.isInteger(seed) || seed < 0 || seed > Number.MAX_SAFE_INTEGER) throw new InvalidTargetError(`partitionedFill: seed must be an integer in [0, 2^53 - 1], got ${showValue(seed)}`);
   for (let k = 0; k < parts; k++) {
     const [a, b] = partRange(out.length, parts, k);
     if (b > a) create(substream(seed, k), { seed, stream: k }).fill(out.subarray(a, b));

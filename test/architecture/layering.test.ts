@@ -49,13 +49,7 @@ const MAY_IMPORT: Record<string, readonly string[]> = {
  * Imports that break the table today, each named and explained; the test
  * fails when one disappears (remove it here) or when a new one appears.
  */
-const KNOWN_EXCEPTIONS: readonly string[] = [
-  // TEMPORARY (issue 15, item 2): exactdraw/node re-exports the suite format from the command's
-  // folder; the branch `ci` moves src/cli/suite.ts where both can use it. The lead removes these
-  // two entries when merging that branch.
-  'src/node/index.ts -> src/cli/suite.ts',
-  'src/node/fill-worker.ts -> src/cli/suite.ts',
-];
+const KNOWN_EXCEPTIONS: readonly string[] = [];
 
 function areaOf(file: string): string {
   const rel = relative(SRC, file).split('\\').join('/');

@@ -98,7 +98,7 @@ describe('published build', () => {
       for (let i = 0; i < 10_000; i++) v = u.uint32();
       expect(v).toBe(4123659995);
     }
-    expect(() => cjs.tableSampler(cjs.normalTarget(0, 1), { strips: 1 })).toThrow(cjs.InvalidTargetError);
+    expect(() => cjs.tableSampler(cjs.normalTarget(0, 1), { strips: 1 })).toThrow(cjs.InvalidOptionError);
   });
 
   it('the core runs in a bare ECMAScript context (no process, Buffer, require, timers): bundled dist/index.js in node:vm draws what Node draws', async () => {
@@ -114,7 +114,7 @@ describe('published build', () => {
           const auto = Array.from(e.exactSampler(e.gammaTarget(2.5), { seed: 2 }).fill(new Float64Array(200)));
           const ks = e.ksCheck(new Float64Array(auto), e.gammaTarget(2.5).cdf).pValue;
           let typed = '';
-          try { e.tableSampler(e.normalTarget(0, 1), { strips: 1 }); } catch (err) { typed = err instanceof e.InvalidTargetError ? err.code : 'other'; }
+          try { e.tableSampler(e.normalTarget(0, 1), { strips: 1 }); } catch (err) { typed = err instanceof e.InvalidOptionError ? err.code : 'other'; }
           return JSON.stringify({ fast, auto, ks, typed, globals: [typeof process, typeof Buffer, typeof require, typeof setTimeout] });
         })()`,
         ctx,
@@ -125,7 +125,7 @@ describe('published build', () => {
     expect(got.fast).toEqual(Array.from(esm.tableSampler(esm.normalTarget(0, 1), { seed: 1 }).fill(new Float64Array(200))));
     expect(got.auto).toEqual(Array.from(esm.exactSampler(esm.gammaTarget(2.5), { seed: 2 }).fill(new Float64Array(200))));
     expect(got.ks).toBe(esm.ksCheck(new Float64Array(got.auto), esm.gammaTarget(2.5).cdf as (x: number) => number).pValue);
-    expect(got.typed).toBe('INVALID_TARGET');
+    expect(got.typed).toBe('INVALID_OPTION');
   });
 
   it('the packed package installs alone (no dependency to fetch) and works from a fresh project: ESM, CommonJS, exactdraw/node, the command', () => {
@@ -149,6 +149,9 @@ describe('published build', () => {
       expect(cjs).toBe('3499211612');
       const cli = execFileSync(process.execPath, [join(dir, 'node_modules/exactdraw/dist/cli/main.js'), 'check', '--only', 'fast hull normal (own stream)', '--n', '2000'], { cwd: dir, encoding: 'utf8' });
       expect(cli).toContain('all checks passed');
+      // the shipped example suite imports 'exactdraw' and runs from the installed package
+      const ex = execFileSync(process.execPath, [join(dir, 'node_modules/exactdraw/dist/cli/main.js'), 'check', 'node_modules/exactdraw/examples/ci-suite.mjs', '--draws', '2000'], { cwd: dir, encoding: 'utf8' });
+      expect(ex).toMatch(/all checks passed \(3 checked\)/);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
