@@ -63,8 +63,9 @@ describe('tableSampler option errors', () => {
     });
   }
 
-  it("adaptiveRejectionSampler(normal, { fast: 'yes' }) throws InvalidTargetError naming options.fast", () => {
-    expect(() => adaptiveRejectionSampler(t, { fast: 'yes' as unknown as boolean })).toThrow(/adaptiveRejectionSampler: options.fast must be a boolean, got yes/);
+  it("adaptiveRejectionSampler(normal, { fast: 'yes' }) throws InvalidOptionError naming options.fast", () => {
+    expect(() => adaptiveRejectionSampler(t, { fast: 'yes' as unknown as boolean })).toThrow(/adaptiveRejectionSampler: options.fast must be a boolean, got 'yes'/);
+    expect(() => adaptiveRejectionSampler(t, { fast: 'yes' as unknown as boolean })).toThrow(InvalidOptionError);
   });
 
   it('tableSampler(...).fill(not a Float64Array) throws InvalidTargetError', () => {
