@@ -1,0 +1,163 @@
+#!/usr/bin/env node
+// Rewrites the library core to the deterministic elementary functions of src/vendor/math.ts:
+//   Math.exp(…) → exp(…), Math.log(…) → log(…), … (every function that module exports), and
+//   a ** b → pow(a, b) (operands: a number, a name, a member chain, or one parenthesised group),
+// and adds or extends the `import { … } from '<relative>/vendor/math.js';` line of each file.
+// Scope: src/**/*.ts except src/cli/, src/node/ (Node-only tools) and src/vendor/ (the
+// implementations). Idempotent: a second run changes nothing. Refuses (exit 1, no file written)
+// a file that declares a name it would import, or a `**` it cannot rewrite.
+//   node scripts/deterministic-math.mjs          rewrite in place, list the files changed
+//   node scripts/deterministic-math.mjs --check  only report what would change (exit 1 if anything)
+import { readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { dirname, join, relative, sep } from 'node:path';
+
+const ROOT = join(dirname(new URL(import.meta.url).pathname), '..');
+const SRC = join(ROOT, 'src');
+const MATH = join(SRC, 'vendor', 'math.ts');
+const SKIP = [join(SRC, 'cli') + sep, join(SRC, 'node') + sep, join(SRC, 'vendor') + sep];
+
+// the functions src/vendor/math.ts exports
+const NAMES = [...readFileSync(MATH, 'utf8').matchAll(/^export \{ (\w+) \} from/gm)].map((m) => m[1]);
+if (!NAMES.includes('pow')) throw new Error('src/vendor/math.ts must export pow');
+
+function files(dir) {
+  const out = [];
+  for (const name of readdirSync(dir)) {
+    const p = join(dir, name);
+    if (SKIP.some((s) => (p + sep).startsWith(s))) continue;
+    if (statSync(p).isDirectory()) out.push(...files(p));
+    else if (p.endsWith('.ts') && !p.endsWith('.d.ts')) out.push(p);
+  }
+  return out;
+}
+
+/** Splits source into code and non-code (comments, strings, template literal text) segments. */
+function segments(src) {
+  const out = [];
+  let i = 0;
+  let start = 0;
+  const push = (end, code) => {
+    if (end > start) out.push({ text: src.slice(start, end), code });
+    start = end;
+  };
+  while (i < src.length) {
+    const c = src[i];
+    const d = src[i + 1];
+    if (c === '/' && d === '/') {
+      push(i, true);
+      const e = src.indexOf('\n', i);
+      i = e < 0 ? src.length : e;
+      push(i, false);
+    } else if (c === '/' && d === '*') {
+      push(i, true);
+      const e = src.indexOf('*/', i + 2);
+      i = e < 0 ? src.length : e + 2;
+      push(i, false);
+    } else if (c === "'" || c === '"') {
+      push(i, true);
+      i++;
+      while (i < src.length && src[i] !== c) i += src[i] === '\\' ? 2 : 1;
+      i++;
+      push(i, false);
+    } else if (c === '`') {
+      // template text is not code; ${…} parts are (no nested templates in this code base)
+      push(i, true);
+      i++;
+      while (i < src.length && src[i] !== '`') {
+        if (src[i] === '\\') i += 2;
+        else if (src[i] === '$' && src[i + 1] === '{') {
+          push(i + 2, false);
+          let depth = 1;
+          i += 2;
+          while (i < src.length && depth > 0) {
+            if (src[i] === '{') depth++;
+            else if (src[i] === '}') depth--;
+            if (depth > 0) i++;
+          }
+          push(i, true);
+        } else i++;
+      }
+      i++;
+      push(i, false);
+    } else i++;
+  }
+  push(src.length, true);
+  return out;
+}
+
+const OPERAND = String.raw`(?:\d+(?:\.\d+)?(?:e[+-]?\d+)?|[A-Za-z_$][\w$]*(?:\.[A-Za-z_$][\w$]*)*|\([^()]*\))`;
+const POW_RE = new RegExp(String.raw`(${OPERAND})\s*\*\*\s*(-?${OPERAND})`, 'g');
+const MATH_RE = new RegExp(String.raw`\bMath\.(${NAMES.join('|')})\b(?=\s*\()`, 'g');
+
+function rewrite(file) {
+  const src = readFileSync(file, 'utf8');
+  const used = new Set();
+  const problems = [];
+  const body = segments(src)
+    .map((s) => {
+      if (!s.code) return s.text;
+      let t = s.text.replace(MATH_RE, (m, name) => {
+        used.add(name);
+        return name;
+      });
+      t = t.replace(POW_RE, (m, a, b) => {
+        used.add('pow');
+        return `pow(${a}, ${b})`;
+      });
+      if (/\*\*/.test(t)) problems.push(`a ** the script cannot rewrite: ${t.trim().split('\n').find((l) => l.includes('**'))}`);
+      return t;
+    })
+    .join('');
+  if (used.size === 0 && problems.length === 0) return null;
+  // a name the file declares itself would be shadowed by (or shadow) the import
+  for (const name of used) {
+    const decl = new RegExp(String.raw`(?:\b(?:const|let|var|function|class)\s+${name}\b|[(,]\s*${name}\s*[:?,)=])`);
+    const code = segments(src).filter((s) => s.code).map((s) => s.text).join('');
+    if (decl.test(code)) problems.push(`declares its own '${name}'`);
+  }
+  if (problems.length > 0) return { problems };
+  let spec = relative(dirname(file), join(SRC, 'vendor', 'math.js')).split(sep).join('/');
+  if (!spec.startsWith('.')) spec = './' + spec;
+  const importRe = new RegExp(String.raw`^import \{ ([^}]*) \} from '${spec.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}';\n`, 'm');
+  let out;
+  const existing = importRe.exec(body);
+  if (existing) {
+    const names = new Set(existing[1].split(',').map((s) => s.trim()).filter(Boolean));
+    for (const n of used) names.add(n);
+    out = body.replace(importRe, `import { ${[...names].sort().join(', ')} } from '${spec}';\n`);
+  } else {
+    // after the last top-level import (imports are single-line or end with `from '…';`)
+    const line = `import { ${[...used].sort().join(', ')} } from '${spec}';\n`;
+    const re = /^import[\s\S]*?from '[^']+';\n|^import '[^']+';\n/gm;
+    let last = -1;
+    for (let m = re.exec(body); m !== null; m = re.exec(body)) last = m.index + m[0].length;
+    if (last >= 0) out = body.slice(0, last) + line + body.slice(last);
+    else {
+      // after the leading doc comment, if any
+      const doc = /^\/\*\*[\s\S]*?\*\/\n/.exec(body);
+      const at = doc ? doc[0].length : 0;
+      out = body.slice(0, at) + line + body.slice(at);
+    }
+  }
+  return out === src ? null : { out, used };
+}
+
+const check = process.argv.includes('--check');
+const changes = [];
+const refused = [];
+for (const f of files(SRC)) {
+  const r = rewrite(f);
+  if (r === null) continue;
+  if (r.problems) refused.push(`${relative(ROOT, f)}: ${r.problems.join('; ')}`);
+  else changes.push([f, r]);
+}
+if (refused.length > 0) {
+  console.error(`deterministic-math: refused (nothing written):\n  ${refused.join('\n  ')}`);
+  process.exit(1);
+}
+for (const [f, r] of changes) {
+  if (!check) writeFileSync(f, r.out);
+  console.log(`${check ? 'would rewrite' : 'rewrote'} ${relative(ROOT, f)} (${[...r.used].sort().join(', ')})`);
+}
+console.log(`deterministic-math: ${changes.length} file(s) ${check ? 'to change' : 'changed'}`);
+if (check && changes.length > 0) process.exit(1);
