@@ -86,7 +86,8 @@ function segments(src) {
 }
 
 const OPERAND = String.raw`(?:\d+(?:\.\d+)?(?:e[+-]?\d+)?|[A-Za-z_$][\w$]*(?:\.[A-Za-z_$][\w$]*)*|\([^()]*\))`;
-const POW_RE = new RegExp(String.raw`(${OPERAND})\s*\*\*\s*(-?${OPERAND})`, 'g');
+// not part of a longer operand on either side (f(x) ** 2, 2 ** a[i], 2 ** f(x) are left alone, then refused)
+const POW_RE = new RegExp(String.raw`(?<![\w$.)\]])(${OPERAND})\s*\*\*\s*(-?${OPERAND})(?![\w$.(\[])`, 'g');
 const MATH_RE = new RegExp(String.raw`\bMath\.(${NAMES.join('|')})\b(?=\s*\()`, 'g');
 
 function rewrite(file) {
