@@ -7,6 +7,7 @@ import { InvalidTargetError } from '../core/errors.js';
 import type { Target } from '../core/types.js';
 import { evaluateEnvelope } from '../methods/hull/describe.js';
 import type { EnvelopeDescription } from '../methods/hull/describe.js';
+import { exp } from '../vendor/math.js';
 
 /** Options of {@link envelopeSvg}. */
 export interface EnvelopeSvgOptions {
@@ -204,7 +205,7 @@ export function envelopeSvg(
     const x = a + ((b - a) * i) / 4;
     parts.push(`<text x="${fmt(px(x))}" y="${fmt(padT + ph + 16)}" text-anchor="middle">${escapeXml(label(x))}</text>`);
   }
-  parts.push(`<text x="${fmt(padL - 6)}" y="${fmt(py(yMax) + 4)}" text-anchor="end">${escapeXml(label(logPlot ? yMax + ref : Math.exp(top + ref)))}</text>`);
+  parts.push(`<text x="${fmt(padL - 6)}" y="${fmt(py(yMax) + 4)}" text-anchor="end">${escapeXml(label(logPlot ? yMax + ref : exp(top + ref)))}</text>`);
   parts.push(`<text x="${fmt(padL - 6)}" y="${fmt(py(yMin) + 4)}" text-anchor="end">${escapeXml(logPlot ? label(yMin + ref) : '0')}</text>`);
   parts.push(`<text x="${fmt(padL + pw / 2)}" y="${fmt(height - 6)}" text-anchor="middle">x</text>`);
   parts.push(`</g>`);

@@ -24,6 +24,7 @@ import { buildPiecewiseStripTable } from './table/piecewise-build.js';
 import { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS, tableDraws } from './table-sampler.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
+import { exp } from '../vendor/math.js';
 
 /**
  * Default of {@link PiecewiseOptions.targetAreaRatio}: refinement stops once
@@ -628,7 +629,7 @@ function describe(grid: Grid, t: Tables, ratio: number, ev: Evaluator): Piecewis
     gridPoints: Object.freeze(grid.x.slice()),
     logEnvelopeArea: t.logEnvelopeArea,
     logSqueezeArea: t.logSqueezeArea,
-    areaRatio: Math.exp(t.logEnvelopeArea - t.logSqueezeArea),
+    areaRatio: exp(t.logEnvelopeArea - t.logSqueezeArea),
     targetAreaRatio: ratio,
     inflections: Object.freeze(grid.inflections()),
     extrema: Object.freeze(grid.extrema()),

@@ -10,6 +10,7 @@ import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../
 import { checkFinite, checkInteger, checkOptionKeys, checkPositive, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
+import { log, pow } from '../vendor/math.js';
 
 /** Options of {@link ratioOfUniformsSampler}. */
 export interface RatioOfUniformsOptions extends SamplerOptions {
@@ -245,7 +246,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       logVMinAbs: rect.logVMinAbs + k * LM,
       scaledVMin: rect.vMin,
       scaledVMax: rect.vMax,
-      logRectangleArea: LM + Math.log(this.vWidth),
+      logRectangleArea: LM + log(this.vWidth),
     });
   }
 
@@ -260,7 +261,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       ...this.regionBase,
       estimatedAcceptance: p,
       acceptanceStandardError: proposals > 0 ? Math.sqrt((p * (1 - p)) / proposals) : NaN,
-      logRegionAreaEstimate: this.regionBase.logRectangleArea + Math.log(p),
+      logRegionAreaEstimate: this.regionBase.logRectangleArea + log(p),
     });
   }
 
@@ -269,7 +270,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     const LM = this.rect.logDensityBound;
     if (d === 0) return LM;
     const logV = d > 0 ? this.rect.logVMax : this.rect.logVMinAbs;
-    return LM + Math.min(0, this.ratio * (logV - Math.log(Math.abs(d))));
+    return LM + Math.min(0, this.ratio * (logV - log(Math.abs(d))));
   }
 
   sample(): number {
@@ -311,9 +312,9 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
         const u = 1 - uniform();
         const v = vMin + vWidth * uniform();
         c.proposals++;
-        const x = unitPower ? s + v / u : s + v / Math.pow(u, r);
+        const x = unitPower ? s + v / u : s + v / pow(u, r);
         if (x >= lower && x <= upper && x > -Infinity && x < Infinity) {
-          const lhs = r1 * Math.log(u);
+          const lhs = r1 * log(u);
           let q = -Infinity;
           if (squeeze !== undefined) {
             q = squeeze(x);
@@ -331,7 +332,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
           const d = x - s;
           if (d > vPlus || -d > vMinus) {
             // Only here can |x − s|·(f/M)^(r/(r+1)) exceed the v-bound (f/M ≤ 1 is checked above).
-            const env = LM + ratio * ((d > 0 ? logVPlus : logVMinus) - Math.log(Math.abs(d)));
+            const env = LM + ratio * ((d > 0 ? logVPlus : logVMinus) - log(Math.abs(d)));
             if (lf > env) throw new EnvelopeViolationError(api, x, lf, env, 'envelope');
           }
           if (q > lf + SQUEEZE_TOLERANCE * (1 + Math.abs(lf))) throw new EnvelopeViolationError(api, x, lf, q, 'squeeze');

@@ -10,6 +10,7 @@ import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { checkFinite, checkInteger, checkOptionKeys, checkTarget, checkFillArray } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
+import { log } from '../vendor/math.js';
 
 /** Options of {@link rejectionSampler}. */
 export interface RejectionOptions extends SamplerOptions {
@@ -113,7 +114,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
       counters.proposals++;
       if (x >= lower && x <= upper) {
         const logEnv = logC + proposal.logDensity(x);
-        const logV = Math.log(1 - uniform());
+        const logV = log(1 - uniform());
         const threshold = logV + logEnv;
         let s = -Infinity;
         if (squeeze !== undefined) {

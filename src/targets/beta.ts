@@ -6,9 +6,10 @@
 import { betaCdf, betaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { log, log1p, pow } from '../vendor/math.js';
 
 /** The largest double below 1. */
-const ONE_BELOW = 1 - Math.pow(2, -53);
+const ONE_BELOW = 1 - pow(2, -53);
 
 /**
  * The beta distribution Beta(a, b) (density x^(a−1) (1−x)^(b−1) / B(a, b) on
@@ -72,7 +73,7 @@ export function betaTarget(a: number, b: number): FamilyTarget {
   const target: FamilyTarget = {
     logDensity(x: number): number {
       if (x > 0 && x < 1) {
-        return (am1 === 0 ? 0 : am1 * Math.log(x)) + (bm1 === 0 ? 0 : bm1 * Math.log1p(-x)) + c;
+        return (am1 === 0 ? 0 : am1 * log(x)) + (bm1 === 0 ? 0 : bm1 * log1p(-x)) + c;
       }
       if (x === 0) return atZero;
       if (x === 1) return atOne;

@@ -7,6 +7,7 @@ import { gammaCdf, gammaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import { lowerRegularizedGamma, upperRegularizedGamma } from './_internals/gamma-series.js';
+import { log } from '../vendor/math.js';
 
 /**
  * Shape from which {@link gammaTarget} computes its cdf with the incomplete
@@ -65,7 +66,7 @@ export function gammaTarget(shape: number, rate: number = 1): FamilyTarget {
   const api = 'gammaTarget';
   checkPositive(api, 'shape', shape);
   checkPositive(api, 'rate', rate);
-  const logRate = Math.log(rate);
+  const logRate = log(rate);
   const shapeM1 = shape - 1;
   const c = logRate - gammaln(shape);
   const atZero = shape > 1 ? -Infinity : shape === 1 ? logRate : -Infinity;
@@ -76,7 +77,7 @@ export function gammaTarget(shape: number, rate: number = 1): FamilyTarget {
       if (x > 0) {
         if (x === Infinity) return -Infinity;
         const rx = rate * x;
-        return (shapeM1 === 0 ? 0 : shapeM1 * Math.log(rx)) - rx + c;
+        return (shapeM1 === 0 ? 0 : shapeM1 * log(rx)) - rx + c;
       }
       if (x === 0) return atZero;
       return x < 0 ? -Infinity : NaN;

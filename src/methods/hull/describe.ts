@@ -6,6 +6,7 @@
 import type { TransformName } from './transforms.js';
 import { T_LOG, logHeight, pieceLogArea } from './transforms.js';
 import type { Hull } from './hull.js';
+import { exp, log } from '../../vendor/math.js';
 
 /**
  * One piece of a hull envelope: on `[lower, upper]` the envelope is the
@@ -78,8 +79,8 @@ function logSumExp(v: readonly number[]): number {
   for (const x of v) if (x > m) m = x;
   if (m === -Infinity || m === Infinity) return m;
   let s = 0;
-  for (const x of v) s += Math.exp(x - m);
-  return m + Math.log(s);
+  for (const x of v) s += exp(x - m);
+  return m + log(s);
 }
 
 /** Builds the description of a hull. @internal */

@@ -8,6 +8,7 @@
 import { ImproperDensityError, NonFiniteDensityError, ShapeViolationError } from '../../core/errors.js';
 import { GuideTable } from './guide-table.js';
 import { T_LOG, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from './transforms.js';
+import { exp } from '../../vendor/math.js';
 
 /**
  * Absolute part of the tolerance, in log-density units, of every comparison
@@ -281,7 +282,7 @@ export class Hull {
     this.th[j] = th;
     this.pq[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
     this.logArea[j] = la;
-    this.area[j] = Math.exp(la);
+    this.area[j] = exp(la);
   }
 
   private setInvalid(j: number, lo: number, hi: number): void {

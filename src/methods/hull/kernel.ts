@@ -9,6 +9,7 @@ import type { Uniform } from '../../core/types.js';
 import { HULL_LOG_TOLERANCE_ABSOLUTE, HULL_LOG_TOLERANCE_RELATIVE, nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
 import { T_LOG } from './transforms.js';
+import { exp, log, log1p } from '../../vendor/math.js';
 
 /**
  * Fills `out[0..n)` with draws from the target under the hull `h`.
@@ -70,7 +71,7 @@ export function hullFill(
       const w = wd[j];
       const q = pq[j];
       let d: number;
-      if (isLog) d = q === 0 ? u2 * w : -Math.log1p(-u2 * q) / sig[j];
+      if (isLog) d = q === 0 ? u2 * w : -log1p(-u2 * q) / sig[j];
       else d = w === Infinity ? u2 / ((1 - u2) * q) : (u2 * w) / (1 + (1 - u2) * q * w);
       if (d > w) d = w;
       let x = hx[j] + dir[j] * d;
@@ -83,7 +84,7 @@ export function hullFill(
       let lenv: number;
       let lsq: number;
       if (isLog) {
-        if (u3 < Math.exp(c - t)) {
+        if (u3 < exp(c - t)) {
           out[i] = x;
           break;
         }
@@ -95,8 +96,8 @@ export function hullFill(
           out[i] = x;
           break;
         }
-        lenv = -2 * Math.log(-t);
-        lsq = c === -Infinity ? -Infinity : -2 * Math.log(-c);
+        lenv = -2 * log(-t);
+        lsq = c === -Infinity ? -Infinity : -2 * log(-c);
       }
       const lf = logf(x);
       counters.densityEvaluations++;
@@ -113,7 +114,7 @@ export function hullFill(
       }
       // updating step (Gilks & Wild 1992): every evaluated candidate becomes a touch point
       adapt(h, x, lf);
-      if (u3 < Math.exp(lr - lenv)) {
+      if (u3 < exp(lr - lenv)) {
         out[i] = x;
         break;
       }

@@ -32,6 +32,7 @@
 import { ImproperDensityError, ShapeViolationError } from '../../core/errors.js';
 import { T_INV_SQRT, T_LOG, pieceConstant, pieceLogArea } from '../hull/transforms.js';
 import type { Evaluator, ScanPoint } from './scan.js';
+import { exp, log, log1p, pow } from '../../vendor/math.js';
 
 /** Cell classes (see the module remarks). @internal */
 export const C = 1;
@@ -76,7 +77,7 @@ export const NEGLIGIBLE_DROP = 1500;
  * its rounding is absolute). A curvature below it is "linear".
  * @internal
  */
-export const NOISE = 64 * Math.pow(2, -52);
+export const NOISE = 64 * pow(2, -52);
 
 /**
  * Secant construction: largest deviation (absolute part, in log space) that
@@ -225,8 +226,8 @@ export function logSumExp(v: ArrayLike<number>): number {
   for (let i = 0; i < v.length; i++) if (v[i] > m) m = v[i];
   if (m === -Infinity || m === Infinity) return m;
   let s = 0;
-  for (let i = 0; i < v.length; i++) s += Math.exp(v[i] - m);
-  return m + Math.log(s);
+  for (let i = 0; i < v.length; i++) s += exp(v[i] - m);
+  return m + log(s);
 }
 
 /**
@@ -616,7 +617,7 @@ export class Grid {
     const out = o * slope; // rate of change of log f moving outwards
     if ((cls === C || cls === L || cls === NEG) && out < 0) return { kind: TAIL_LOG, x: xk, l: lk, sig: -out };
     // T(f) = −1/√f relative to f(x_k): T = −e^{−(l − l_k)/2}, so T(x_k) = −1 and T' = −T·l'/2.
-    const T1 = -Math.exp(-0.5 * (this.l[k1] - lk));
+    const T1 = -exp(-0.5 * (this.l[k1] - lk));
     const w1 = Math.abs(xk - this.x[k1]);
     const tChordOut = (o * (-1 - T1)) / w1; // dT/dx on the outer cell
     let tConcave = false;
@@ -630,7 +631,7 @@ export class Grid {
       tConcave = tl - tChordOut >= -e && tChordOut - tr >= -e;
       tSlope = tk;
     } else if (k2 >= 0 && k2 < n && this.l[k2] > -Infinity) {
-      const T2 = -Math.exp(-0.5 * (this.l[k2] - lk));
+      const T2 = -exp(-0.5 * (this.l[k2] - lk));
       const w2 = Math.abs(this.x[k1] - this.x[k2]);
       const tChordIn = (o > 0 ? T1 - T2 : T2 - T1) / w2;
       const cl = o > 0 ? tChordIn : tChordOut;
@@ -646,8 +647,8 @@ export class Grid {
         `${api}: no decay found in the ${side} tail: at the outermost scanned point x = ${xk} logDensity is ${lk} and its slope outwards is ${out} (not negative); the mass may be infinite`,
       );
     }
-    const r0 = Math.log(Math.abs(this.x[k1] - this.centre));
-    const r1 = Math.log(Math.abs(xk - this.centre));
+    const r0 = log(Math.abs(this.x[k1] - this.centre));
+    const r1 = log(Math.abs(xk - this.centre));
     const alpha = r1 > r0 ? -(lk - this.l[k1]) / (r1 - r0) : NaN;
     if (alpha <= 1) {
       throw new ImproperDensityError(
@@ -718,7 +719,7 @@ export class Grid {
     let top = -Infinity;
     for (let j = 0; j < m; j++) if (t.logAreas[j] > top) top = t.logAreas[j];
     if (!(top > -Infinity)) throw new ShapeViolationError(`${this.api}: the envelope has no piece of positive area`);
-    for (let j = 0; j < m; j++) t.area[j] = Math.exp(t.logAreas[j] - top);
+    for (let j = 0; j < m; j++) t.area[j] = exp(t.logAreas[j] - top);
     t.logEnvelopeArea = logSumExp(t.logAreas) + ref;
     t.logSqueezeArea = logSumExp(t.logSqueezeAreas) + ref;
     return t;
@@ -799,7 +800,7 @@ export class Grid {
    */
   refine(ratio: number, maxPieces: number, maxRounds: number): Tables {
     let t = this.tables();
-    const logRatio = Math.log(ratio);
+    const logRatio = log(ratio);
     for (let round = 0; round < maxRounds; round++) {
       if (t.logEnvelopeArea - t.logSqueezeArea <= logRatio || t.n >= maxPieces) break;
       const top = t.logEnvelopeArea - t.ref;
@@ -809,7 +810,7 @@ export class Grid {
       let upGap = 0;
       let maxGap = 0;
       for (let j = 0; j < t.n; j++) {
-        const gap = Math.exp(t.logAreas[j] - top) - Math.exp(t.logSqueezeAreas[j] - top);
+        const gap = exp(t.logAreas[j] - top) - exp(t.logSqueezeAreas[j] - top);
         const lo = t.lo[j];
         if (lo === -Infinity) lowGap += gap;
         else if (t.hi[j] === Infinity) upGap += gap;
@@ -864,7 +865,7 @@ export class Grid {
     if (!Number.isFinite(xn) || xn === t.x) return;
     const ln = this.ev.l(xn);
     const gn = this.tangent ? this.ev.g(xn, ln) : NaN;
-    const envAt = t.kind === TAIL_LOG ? t.l - t.sig * d : t.l - 2 * Math.log1p(t.sig * d);
+    const envAt = t.kind === TAIL_LOG ? t.l - t.sig * d : t.l - 2 * log1p(t.sig * d);
     if (ln > envAt + LOG_TOLERANCE_ABSOLUTE + LOG_TOLERANCE_RELATIVE * Math.abs(ln)) this.surprises++;
     if (o > 0) {
       this.x.push(xn);

@@ -10,6 +10,7 @@ import type { GuideTable } from '../hull/guide-table.js';
 import { T_LOG } from '../hull/transforms.js';
 import { LOG_TOLERANCE_ABSOLUTE, LOG_TOLERANCE_RELATIVE } from './grid.js';
 import type { Tables } from './grid.js';
+import { exp, log1p } from '../../vendor/math.js';
 
 /** Mutable state the kernel reads (tables are replaced after a repair). @internal */
 export interface KernelState {
@@ -83,7 +84,7 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
       const sg = sig[j];
       const isLog = kind[j] === T_LOG;
       let d: number;
-      if (isLog) d = q === 0 ? u2 * w : -Math.log1p(-u2 * q) / sg;
+      if (isLog) d = q === 0 ? u2 * w : -log1p(-u2 * q) / sg;
       else d = w === Infinity ? u2 / ((1 - u2) * q) : (u2 * w) / (1 + (1 - u2) * q * w);
       if (d > w) d = w;
       const h = xh[j];
@@ -93,10 +94,10 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
       const u3 = uniform();
       if (x > -Infinity && x < Infinity) {
         const dd = dir[j] > 0 ? x - h : h - x;
-        const env = isLog ? href[j] - sg * dd : href[j] - 2 * Math.log1p(sg * dd);
+        const env = isLog ? href[j] - sg * dd : href[j] - 2 * log1p(sg * dd);
         const sv = sqv[j];
         const sq = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqa[j]);
-        if (u3 < Math.exp(sq - env)) {
+        if (u3 < exp(sq - env)) {
           out[i] = x;
           break;
         }
@@ -117,7 +118,7 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
           }
           throw new EnvelopeViolationError(api, x, lf, bound, what);
         }
-        if (u3 < Math.exp(lr - env)) {
+        if (u3 < exp(lr - env)) {
           out[i] = x;
           break;
         }
@@ -133,7 +134,7 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
 export function pieceLogEnvelope(t: Tables, j: number, x: number): number {
   const h = t.xh[j];
   const dd = t.dir[j] > 0 ? x - h : h - x;
-  return t.kind[j] === T_LOG ? t.href[j] - t.sig[j] * dd : t.href[j] - 2 * Math.log1p(t.sig[j] * dd);
+  return t.kind[j] === T_LOG ? t.href[j] - t.sig[j] * dd : t.href[j] - 2 * log1p(t.sig[j] * dd);
 }
 
 /** log squeeze of piece j at x, relative to t.ref (−Infinity: none). @internal */
@@ -150,7 +151,7 @@ export function pieceInverse(t: Tables, j: number, u: number): number {
   const w = t.w[j];
   const q = t.q[j];
   let d: number;
-  if (t.kind[j] === T_LOG) d = q === 0 ? u * w : -Math.log1p(-u * q) / t.sig[j];
+  if (t.kind[j] === T_LOG) d = q === 0 ? u * w : -log1p(-u * q) / t.sig[j];
   else d = w === Infinity ? u / ((1 - u) * q) : (u * w) / (1 + (1 - u) * q * w);
   if (d > w) d = w;
   const x = t.xh[j] + t.dir[j] * d;
