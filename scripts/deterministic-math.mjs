@@ -3,6 +3,9 @@
 //   Math.exp(…) → exp(…), Math.log(…) → log(…), … (every function that module exports), and
 //   a ** b → pow(a, b) (operands: a number, a name, a member chain, or one parenthesised group),
 // and adds or extends the `import { … } from '<relative>/vendor/math.js';` line of each file.
+// A one-line top-level declaration whose initialiser calls those functions is marked pure
+// (`const X = /* @__PURE__ */ (() => 1 - pow(2, -53))();`), so that bundlers can still drop the
+// constant when unused (a call of an imported function is otherwise kept: it might have side effects).
 // Scope: src/**/*.ts except src/cli/, src/node/ (Node-only tools) and src/vendor/ (the
 // implementations). Idempotent: a second run changes nothing. Refuses (exit 1, no file written)
 // a file that declares a name it would import, or a `**` it cannot rewrite.
@@ -109,7 +112,22 @@ function rewrite(file) {
       return t;
     })
     .join('');
-  if (used.size === 0 && problems.length === 0) return null;
+  // top-level declaration lines: mark initialisers that call the vendored functions as pure
+  const importsMath = used.size > 0 || /from '[^']*vendor\/math\.js';/.test(src);
+  let annotated = body;
+  if (importsMath) {
+    const call = new RegExp(String.raw`(?<![\w$.])(?:${NAMES.join('|')})\(`);
+    const single = new RegExp(String.raw`^(?:${NAMES.join('|')})\([^;]*\)$`);
+    annotated = body.replace(/^((?:export )?(?:const|let|var) [\w$]+(?:\s*:\s*[^=]+)?\s*=\s*)(.+);([ \t]*\/\/.*)?$/gm, (line, head, rhs, tail = '') => {
+      const bare = rhs.replaceAll('/* @__PURE__ */ ', '');
+      if (bare.startsWith('(() => ') || !call.test(bare)) return line;
+      // a lone call is annotated; any other expression (1 - pow(2, -53)) is wrapped, since
+      // bundlers keep an operator applied to a call (it might call valueOf)
+      return `${head}/* @__PURE__ */ ${single.test(bare) ? bare : `(() => ${bare})()`};${tail}`;
+    });
+  }
+  if (used.size === 0 && problems.length === 0) return annotated === src ? null : { out: annotated, used: new Set(['@__PURE__']) };
+  const bodyAnnotated = annotated;
   // a name the file declares itself would be shadowed by (or shadow) the import
   for (const name of used) {
     const decl = new RegExp(String.raw`(?:\b(?:const|let|var|function|class)\s+${name}\b|[(,]\s*${name}\s*[:?,)=])`);
@@ -121,23 +139,23 @@ function rewrite(file) {
   if (!spec.startsWith('.')) spec = './' + spec;
   const importRe = new RegExp(String.raw`^import \{ ([^}]*) \} from '${spec.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}';\n`, 'm');
   let out;
-  const existing = importRe.exec(body);
+  const existing = importRe.exec(bodyAnnotated);
   if (existing) {
     const names = new Set(existing[1].split(',').map((s) => s.trim()).filter(Boolean));
     for (const n of used) names.add(n);
-    out = body.replace(importRe, `import { ${[...names].sort().join(', ')} } from '${spec}';\n`);
+    out = bodyAnnotated.replace(importRe, `import { ${[...names].sort().join(', ')} } from '${spec}';\n`);
   } else {
     // after the last top-level import (imports are single-line or end with `from '…';`)
     const line = `import { ${[...used].sort().join(', ')} } from '${spec}';\n`;
     const re = /^import[\s\S]*?from '[^']+';\n|^import '[^']+';\n/gm;
     let last = -1;
-    for (let m = re.exec(body); m !== null; m = re.exec(body)) last = m.index + m[0].length;
-    if (last >= 0) out = body.slice(0, last) + line + body.slice(last);
+    for (let m = re.exec(bodyAnnotated); m !== null; m = re.exec(bodyAnnotated)) last = m.index + m[0].length;
+    if (last >= 0) out = bodyAnnotated.slice(0, last) + line + bodyAnnotated.slice(last);
     else {
       // after the leading doc comment, if any
-      const doc = /^\/\*\*[\s\S]*?\*\/\n/.exec(body);
+      const doc = /^\/\*\*[\s\S]*?\*\/\n/.exec(bodyAnnotated);
       const at = doc ? doc[0].length : 0;
-      out = body.slice(0, at) + line + body.slice(at);
+      out = bodyAnnotated.slice(0, at) + line + bodyAnnotated.slice(at);
     }
   }
   return out === src ? null : { out, used };

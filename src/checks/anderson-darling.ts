@@ -8,7 +8,7 @@ import type { CheckResult } from './ks.js';
 import { sortedSample } from './ks.js';
 import { exp, expm1, log, log1p, pow } from '../vendor/math.js';
 
-const ONE_MINUS_EPS = 1 - pow(2, -53);
+const ONE_MINUS_EPS = /* @__PURE__ */ (() => 1 - pow(2, -53))();
 
 /**
  * Limiting distribution function of the Anderson–Darling statistic,

@@ -9,7 +9,7 @@ import type { FamilyTarget } from './family-target.js';
 import { log, log1p, pow } from '../vendor/math.js';
 
 /** The largest double below 1. */
-const ONE_BELOW = 1 - pow(2, -53);
+const ONE_BELOW = /* @__PURE__ */ (() => 1 - pow(2, -53))();
 
 /**
  * The beta distribution Beta(a, b) (density x^(a−1) (1−x)^(b−1) / B(a, b) on

@@ -77,7 +77,7 @@ export const NEGLIGIBLE_DROP = 1500;
  * its rounding is absolute). A curvature below it is "linear".
  * @internal
  */
-export const NOISE = 64 * pow(2, -52);
+export const NOISE = /* @__PURE__ */ (() => 64 * pow(2, -52))();
 
 /**
  * Secant construction: largest deviation (absolute part, in log space) that
