@@ -81,6 +81,12 @@ export function adPValue(n: number, z: number): number {
  * @param cdf - the hypothesised continuous CDF
  * @returns the statistic A² and its p-value
  * @throws {@link InvalidTargetError} for a bad sample, a non-function cdf, or a cdf value outside [0, 1]
+ * @example
+ * ```ts
+ * const t = gammaTarget(2.5);
+ * const draws = tableSampler(t, { seed: 1 }).fill(new Float64Array(5_000));
+ * const { statistic, pValue } = andersonDarlingCheck(draws, t.cdf!);
+ * ```
  */
 export function andersonDarlingCheck(draws: ArrayLike<number>, cdf: (x: number) => number): CheckResult {
   if (typeof cdf !== 'function') throw new InvalidTargetError(`andersonDarlingCheck: cdf must be a function, got ${typeof cdf}`);

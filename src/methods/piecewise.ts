@@ -245,66 +245,20 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * envelope and lower squeeze that are valid because of the cell's shape.
  *
  * @remarks
- * **Why curvature, not monotonicity.** Between two curvature changes log f
- * is concave or convex, and that alone gives a two-sided bound by straight
- * lines in log space: on a concave cell the tangents (or, without
- * derivatives, the chords of the neighbouring cells extended, as in
- * Gilks 1992) lie above log f and the chord below; on a convex cell the
- * chord lies above and the tangents below. Such bounds hold across an
- * extremum too, so extrema need no exact location (they are reported in
- * the description, from the grid), while curvature changes are located to
- * 2^−24 of the cell they were found in, so that the part of a cell on the
- * wrong side of one is too short to matter (the error is of order
- * |(log f)'''|·δ³ for a miss δ, far below the check tolerance). A cell
- * whose data contradict both shapes (a kink or a jump of log f) is halved
- * until it is consistent or until no double lies inside it.
- *
- * **Scan.** From a centre (the mode hint, else a global maximisation),
- * geometric rays go to both ends with two probes per doubling of the
- * distance (seeing features at every scale, the decay of the tails, and a
- * density unbounded at a finite end), and uniform grids sharing
- * `scanPoints` points cover five nested windows, each twice as far from
- * the centre as the outermost ray probe within e^5, e^10, e^20, e^40, e^80
- * of the maximum (or higher than the probe before it); `breakpoints` are
- * added. Nested windows keep a fine grid near the mass whatever the tails.
- * Each cell's curvature class comes from the derivative (tangent
- * construction: l'(a) ≥ chord slope ≥ l'(b) is concave) or from second
- * divided differences (secant construction), with a rounding allowance of
- * 64 ulps of the values involved ({@link PIECEWISE_NOISE}); a curvature
- * below it counts as linear, and a verdict made uncertain by neighbouring
- * cells of very different widths is not used (the wider cell is halved).
- * Cells whose density is below e^−1500 of the maximum at both ends have
- * zero area in double precision and are never selected. With dLogDensity
- * the setup first checks that the derivative lies between the chords around
- * each scan point, as it must for a smooth density, and refuses an
- * inconsistent one.
- *
- * **Tails** beyond the outermost scan points (far out: the rays go until
- * 2^64·max(1, |centre|) from the centre, further while the density still rises): an
- * exponential piece (tangent or chord) when log f is concave there, else a
- * piece under T(f) = −1/√f (Hörmann 1995) when that transform is concave
- * there (densities decaying like |x|^−2 or faster, such as Student-t
- * with df ≥ 1). A tail that does not decrease throws
- * {@link ImproperDensityError}; one that decays slower than |x|^−2 throws
- * {@link ShapeViolationError} (use {@link ratioOfUniformsSampler} with a
- * power, or truncate).
- *
- * **Refinement.** Cells whose envelope-minus-squeeze area is among the
- * largest are halved (and tails moved outwards) until
- * (envelope area)/(squeeze area) ≤ `targetAreaRatio` or `maxPieces`. Every
- * new point is first compared with the envelope it falls in; a
- * contradiction means a shape was misread, and the cell is reclassified.
- *
- * **Sampling.** Pieces are chosen by a guide table (Chen & Asau 1974) over
- * their areas (log-sum-exp); an exponential piece is inverted exactly with
- * expm1/log1p forms (flat pieces, slope·width < 1e-15, as uniform). Each
- * proposal consumes three uniforms (piece, position, acceptance), which is
- * part of the stream contract. A candidate under the squeeze is accepted
- * without evaluation; every evaluation is checked for NaN/+Infinity and
- * against envelope and squeeze (tolerance 1e-9 + 1e-12·|log f| in log
- * space); a violation throws {@link EnvelopeViolationError} with x unless
- * `adapt` is set (see there). After a thrown violation or non-finite
- * density the sampler is unusable: every later call throws the same error.
+ * Setup scans the target (about 1,400 to 10,000 evaluations of logDensity,
+ * and of dLogDensity with the tangent construction), cuts the support where
+ * log f changes curvature and bounds every cell by exponential envelope and
+ * squeeze pieces; beyond the scan, each tail gets an exponential piece or one
+ * under T(f) = −1/√f (densities decaying like |x|^−2 or faster). A tail that
+ * does not decrease throws {@link ImproperDensityError}; one that decays
+ * slower than |x|^−2 throws {@link ShapeViolationError} (use
+ * {@link ratioOfUniformsSampler} with a power, or truncate). Each proposal
+ * consumes three uniforms. Every evaluation while drawing is checked against
+ * envelope and squeeze; a violation throws {@link EnvelopeViolationError}
+ * unless `adapt` is set, and after a thrown error every later call throws it
+ * again. For a target that changes often and is log-concave, the adaptive hull
+ * is far cheaper. (How the scan, the shape classes, the refinement and the
+ * tails work: DEVELOPERS.md, "Method internals".)
  *
  * **Limits.** A feature narrower than the local scan spacing that no ray
  * probe, grid point or breakpoint touches is invisible to the setup, and
@@ -325,16 +279,11 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * construction); for a target that changes often and is log-concave, the
  * adaptive hull is far cheaper.
  *
- * **Fast path** (`fast: true`, returns a {@link PiecewiseTableSampler}):
- * after the envelope is built, a strip table over it (the table of
- * {@link tableSampler}, alias-selected regions, one uniform per draw in the
- * common case) is derived from the envelope and squeeze alone: both are
- * monotone on every piece, so their extremes on a strip are at its ends,
- * and the table is exact wherever the envelope is valid. Setup also
- * evaluates the target at every strip boundary (about `strips` to 2,000
- * more evaluations) and checks each value against the envelope; a value
- * outside it (a feature the scan missed) is added to the grid and the
- * envelope rebuilt before any draw is made (at most
+ * **Fast path** (`fast: true`, returns a {@link PiecewiseTableSampler}): a
+ * strip table over the envelope (the table of {@link tableSampler}, one
+ * uniform per draw in the common case). Setup also evaluates the target at
+ * every strip boundary (about `strips` to 2,000 more evaluations) and repairs
+ * the envelope where a value falls outside it, before any draw (at most
  * {@link PIECEWISE_TABLE_REPAIR_ROUNDS} rounds, then
  * {@link EnvelopeViolationError}). Measured on the worked multimodal
  * example: about 20–30 ns per draw instead of 90–160 ns (bench/README.md).

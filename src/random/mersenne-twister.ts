@@ -235,7 +235,15 @@ export function mersenneTwister(seed: number = DEFAULT_SEED): MersenneTwister {
  * {@link MersenneTwister.saveState}; it continues the saved stream exactly.
  *
  * @param state - a saved state (possibly after a JSON round trip)
+ * @returns a source that continues the saved stream
  * @throws {@link InvalidTargetError} when the state is malformed
+ * @example
+ * ```ts
+ * const u = mersenneTwister(7);
+ * const saved = JSON.stringify(u.saveState()); // e.g. written to a checkpoint file
+ * const v = restoreMersenneTwister(JSON.parse(saved));
+ * v() === u(); // true
+ * ```
  */
 export function restoreMersenneTwister(state: MersenneTwisterState): MersenneTwister {
   const s = state as Partial<MersenneTwisterState> | null;
