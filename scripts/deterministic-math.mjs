@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 // Rewrites the library core to the deterministic elementary functions of src/vendor/math.ts:
-//   Math.exp(…) → exp(…), Math.log(…) → log(…), … (every function that module exports), and
+//   Math.exp(…) → exp(…), Math.log → log, … (every function that module exports; calls and references), and
 //   a ** b → pow(a, b) (operands: a number, a name, a member chain, or one parenthesised group),
 // and adds or extends the `import { … } from '<relative>/vendor/math.js';` line of each file.
 // A one-line top-level declaration whose initialiser calls those functions is marked pure
@@ -91,7 +91,8 @@ function segments(src) {
 const OPERAND = String.raw`(?:\d+(?:\.\d+)?(?:e[+-]?\d+)?|[A-Za-z_$][\w$]*(?:\.[A-Za-z_$][\w$]*)*|\([^()]*\))`;
 // not part of a longer operand on either side (f(x) ** 2, 2 ** a[i], 2 ** f(x) are left alone, then refused)
 const POW_RE = new RegExp(String.raw`(?<![\w$.)\]])(${OPERAND})\s*\*\*\s*(-?${OPERAND})(?![\w$.(\[])`, 'g');
-const MATH_RE = new RegExp(String.raw`\bMath\.(${NAMES.join('|')})\b(?=\s*\()`, 'g');
+// calls and bare references (a table { exp: Math.exp } becomes { exp: exp })
+const MATH_RE = new RegExp(String.raw`\bMath\.(${NAMES.join('|')})\b`, 'g');
 
 function rewrite(file) {
   const src = readFileSync(file, 'utf8');
@@ -130,7 +131,15 @@ function rewrite(file) {
   const bodyAnnotated = annotated;
   // a name the file declares itself would be shadowed by (or shadow) the import
   for (const name of used) {
-    const decl = new RegExp(String.raw`(?:\b(?:const|let|var|function|class)\s+${name}\b|[(,]\s*${name}\s*[:?,)=])`);
+    const decl = new RegExp(
+      [
+        String.raw`\b(?:const|let|var|function|class)\s+${name}\b`, // const log = …
+        String.raw`\b(?:const|let|var)\s*[{[][^}\]]*\b${name}\b[^}\]]*[}\]]\s*=`, // const { log } = …
+        String.raw`\bfunction\s*[\w$]*\s*\([^)]*\b${name}\b[^)]*\)`, // function f(log) …
+        String.raw`\(([^()]*[(,]\s*)?${name}\s*[:?,)=][^()]*\)\s*(?::\s*[^=>{]+)?=>`, // (a, log) => …
+        String.raw`\b${name}\s*=>`, // log => …
+      ].join('|'),
+    );
     const code = segments(src).filter((s) => s.code).map((s) => s.text).join('');
     if (decl.test(code)) problems.push(`declares its own '${name}'`);
   }
