@@ -52,7 +52,20 @@ export interface SuiteEntry {
   reference?: string;
 }
 
-/** Validates the entries of a suite and returns them. */
+/**
+ * Validates the entries of a suite (the `samplers` export of a suite module) and returns them.
+ *
+ * @param source - name of the module, for the messages
+ * @param value - the exported array
+ * @returns the entries
+ * @throws `InvalidTargetError` (from exactdraw) naming the entry and field at fault
+ * @example
+ * ```ts
+ * const entries = validateSuite('inline suite', [
+ *   { name: 'ride speed', create: (uniform) => tableSampler(normalTarget(15, 3.5), { uniform }) },
+ * ]);
+ * ```
+ */
 export function validateSuite(source: string, value: unknown): SuiteEntry[] {
   if (!Array.isArray(value)) {
     throw new InvalidTargetError(`exactdraw: ${source} must export 'samplers' (or a default export): an array of { name, create(uniform, own), cdf?, reference? }`);
@@ -71,7 +84,18 @@ export function validateSuite(source: string, value: unknown): SuiteEntry[] {
   return value as SuiteEntry[];
 }
 
-/** Imports a suite module from a path or URL and validates it. */
+/**
+ * Imports a suite module from a path or URL and validates it.
+ *
+ * @param spec - a file path (relative to the working directory) or a URL
+ * @returns the validated entries
+ * @throws `InvalidTargetError` (from exactdraw) when the module exports no valid suite
+ * @example
+ * ```ts
+ * const entries = await loadSuite('./my-samplers.mjs');
+ * const s = entries[0].create(substream(1, 0), { seed: 1, stream: 0 });
+ * ```
+ */
 export async function loadSuite(spec: string): Promise<SuiteEntry[]> {
   const url = /^[a-z]+:/i.test(spec) ? spec : pathToFileURL(resolvePath(spec)).href;
   const mod = (await import(url)) as { samplers?: unknown; default?: unknown };
