@@ -60,10 +60,20 @@ export function goldenRun(lib: typeof Lib): GoldenResult {
     ['student-t(3)', lib.studentTTarget(3)],
     ['student-t(2.5, 1, 2)', lib.studentTTarget(2.5, 1, 2)],
     ['logistic(1, 2)', lib.logisticTarget(1, 2)],
+    ['exponential(1.5)', lib.exponentialTarget(1.5)],
+    ['laplace(1, 2)', lib.laplaceTarget(1, 2)],
+    ['weibull(1.7, 2)', lib.weibullTarget(1.7, 2)],
+    ['lognormal(0.3, 0.8)', lib.lognormalTarget(0.3, 0.8)],
+    ['chi-square(5)', lib.chiSquareTarget(5)],
+    ['inverse-gamma(3, 2)', lib.inverseGammaTarget(3, 2)],
+    ['pareto(2.5, 1)', lib.paretoTarget(2.5, 1)],
+    ['gumbel(1, 2)', lib.gumbelTarget(1, 2)],
+    ['gig(0.5, 2, 3)', lib.generalizedInverseGaussianTarget(0.5, 2, 3)],
   ];
   for (const [name, t] of families) {
     guard(name, () => {
-      const xs = Array.from({ length: 80 }, (_, i) => (name.startsWith('beta') ? (i + 0.5) / 80 : -6 + i * 0.17));
+      const positive = /^(weibull|lognormal|chi-square|inverse-gamma|pareto|gig|exponential)/.test(name);
+      const xs = Array.from({ length: 80 }, (_, i) => (name.startsWith('beta') ? (i + 0.5) / 80 : positive ? 0.05 + i * 0.11 : -6 + i * 0.17));
       put(`${name} logDensity`, xs.map((x) => t.logDensity(x)));
       put(`${name} cdf`, xs.map((x) => (t.cdf as (x: number) => number)(x)));
     });
@@ -118,6 +128,52 @@ export function goldenRun(lib: typeof Lib): GoldenResult {
     draws('exact bimodal', lib.exactSampler(bimodal, { seed: 22 }), 400);
     draws('exact gamma(1.7)', lib.exactSampler(lib.gammaTarget(1.7), { seed: 23 }), 400);
   });
+  // certified envelopes (formula targets and hand-written bounds), families, pole transforms
+  guard('certified', () => {
+    // invented: a broad and a narrow normal component, written as a formula
+    const mix = lib.formulaTarget('logsumexp(log(0.7) - x^2/2, log(0.3) - log(s) - (x - 3)^2 / (2*s^2))', { support: [-Infinity, Infinity], parameters: { s: 0.05 } });
+    put('formula mixture logDensity', Array.from({ length: 40 }, (_, i) => mix.logDensity(-4 + i * 0.2)));
+    const b = mix.logDensityBounds(-1, 0.5);
+    put('formula mixture bounds on [-1, 0.5]', [b[0], b[1]]);
+    draws('certified formula mixture', lib.certifiedSampler(mix, { seed: 30 }), 400);
+    const trig = lib.formulaTarget('-x^2/2 + log(2 + sin(3*x) * cos(x))', { support: [-Infinity, Infinity] });
+    draws('certified formula trig', lib.certifiedSampler(trig, { seed: 31 }), 400);
+    draws('exact formula mixture', lib.exactSampler(mix, { seed: 32 }), 400);
+  });
+  guard('families', () => {
+    draws('hull gumbel(1, 2)', lib.adaptiveRejectionSampler(lib.gumbelTarget(1, 2), { seed: 33 }), 300);
+    draws('table weibull(1.7, 2)', lib.tableSampler(lib.weibullTarget(1.7, 2), { seed: 34 }), 1000);
+    draws('exact lognormal(0.3, 0.8)', lib.exactSampler(lib.lognormalTarget(0.3, 0.8), { seed: 35 }), 300);
+    draws('exact gig(0.5, 2, 3)', lib.exactSampler(lib.generalizedInverseGaussianTarget(0.5, 2, 3), { seed: 36 }), 300);
+  });
+  guard('poles', () => {
+    draws('exact gamma(0.5) (pole transform)', lib.exactSampler(lib.gammaTarget(0.5), { seed: 37 }), 400);
+    draws('hull beta(0.5, 0.5) poleAt both', lib.adaptiveRejectionSampler(lib.betaTarget(0.5, 0.5), { poleAt: 'both', seed: 38 }), 400);
+    draws('ratio-of-uniforms chi-square(1) poleAt lower', lib.ratioOfUniformsSampler(lib.chiSquareTarget(1), { poleAt: 'lower', seed: 39 }), 400);
+    const pt = lib.poleTransform(lib.weibullTarget(0.6), 'lower');
+    put('poleTransform weibull(0.6) logDensity of Y', [-30, -5, -1, 0, 1, 2].map((y) => pt.target.logDensity(y)));
+  });
+  // discrete targets
+  guard('discrete', () => {
+    const families: [string, Lib.DiscreteFamilyTarget][] = [
+      ['poisson(3.5)', lib.poissonTarget(3.5)],
+      ['binomial(20, 0.3)', lib.binomialTarget(20, 0.3)],
+      ['negative-binomial(3, 0.4)', lib.negativeBinomialTarget(3, 0.4)],
+      ['geometric(0.2)', lib.geometricTarget(0.2)],
+    ];
+    for (const [name, t] of families) put(`${name} logPmf and cdf`, Array.from({ length: 20 }, (_, k) => [t.logPmf(k), t.cdf(k)]).flat());
+    draws('discrete poisson(3.5) auto', lib.discreteSampler(lib.poissonTarget(3.5), { seed: 40 }), 400);
+    draws('discrete poisson(1e4) log-concave', lib.discreteSampler(lib.poissonTarget(1e4), { seed: 41 }), 400);
+    draws('discrete binomial(20, 0.3) table', lib.discreteSampler(lib.binomialTarget(20, 0.3), { method: 'table', seed: 42 }), 400);
+    draws('discrete negative-binomial(3, 0.4) ratio-of-uniforms', lib.discreteSampler(lib.negativeBinomialTarget(3, 0.4), { method: 'ratio-of-uniforms', seed: 43 }), 400);
+    // invented: hourly rentals at one station, zero-inflated counts (arithmetic only)
+    const rentals: Lib.DiscreteTarget = { logPmf: (k: number) => (k < 0 || k > 40 ? -Infinity : k === 0 ? 0.5 : -0.05 * (k - 6) * (k - 6)), support: [0, 40] };
+    draws('discrete invented rentals', lib.discreteSampler(rentals, { seed: 44, expectedDraws: 1e6 }), 400);
+    const w = lib.weightedIndexSampler(new Float64Array([1, 0, 3, 0.5, 2.25, 1e-9]), { seed: 45 });
+    draws('weightedIndex alias', w, 400);
+    put('weightedIndex alias probabilities', w.probabilities());
+    draws('weightedIndex inversion', lib.weightedIndexSampler([5, 1, 1, 7, 0.125], { method: 'inversion', seed: 46 }), 400);
+  });
   guard('partitioned', () => {
     const out = lib.partitionedFill((u, own) => lib.tableSampler(lib.normalTarget(0, 1), { ...own }), new Float64Array(1000), 4, 2026);
     put('partitionedFill table normal 4 parts', out);
@@ -147,6 +203,12 @@ export function goldenRun(lib: typeof Lib): GoldenResult {
     ['uniform out of range', () => lib.tableSampler(lib.normalTarget(0, 1), { uniform: () => 1 }).sample()],
     ['ks on one value', () => lib.ksCheck([1], (x) => x)],
     ['bad option', () => lib.tableSampler(lib.normalTarget(0, 1), { seed: 1.5 })],
+    ['certified without bounds', () => lib.certifiedSampler({ logDensity: (x: number) => -x * x } as unknown as Lib.FormulaTarget, { seed: 1 })],
+    ['formula syntax error', () => lib.formulaTarget('x +* 2', { support: [0, 1] })],
+    ['poisson negative mean', () => lib.poissonTarget(-1)],
+    ['weighted index all zero', () => lib.weightedIndexSampler([0, 0, 0])],
+    ['unbounded density without an integrable pole', () => lib.exactSampler({ logDensity: (x) => (x > 0 && x < 1 ? 1 / x : -Infinity), support: [0, 1] }, { seed: 1 }).sample()],
+    ['gamma shape too small for the pole transform', () => lib.exactSampler(lib.gammaTarget(0.01), { seed: 1 }).sample()],
   ];
   for (const [name, f] of bad) {
     try {

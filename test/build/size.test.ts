@@ -4,9 +4,11 @@
  * import of a few names from dist/index.js, minified, and the result is
  * gzipped. The goals of the project: `{ substream }` ≤ 8 KB,
  * `{ normalTarget, tableSampler }` ≤ 25 KB, everything ≤ 60 KB (KB = 1,000 bytes, gzip level 9).
- * The first two are asserted. Everything measured 66.6 KB when this test was written (the
- * library's own code is 43 KB of it, the vendored @stdlib numerics most of the rest), so that
- * case asserts a regression cap of 70 KB and prints how far it is from the goal.
+ * The first two are asserted. Everything measured 66.6 KB when this test was written and
+ * 100.9 KB after the certified envelopes, formula targets, nine families, pole transforms and
+ * discrete targets landed (the library's own code is 75.7 KB of it, the vendored @stdlib
+ * numerics most of the rest; no @stdlib package is bundled twice), so that case asserts a
+ * regression cap of 105 KB and prints how far it is from the goal.
  */
 import { describe, expect, it } from 'vitest';
 import { resolve } from 'node:path';
@@ -37,7 +39,7 @@ async function bundledSize(code: string): Promise<{ min: number; gzip: number }>
 const CASES: [string, string, number, number][] = [
   ['{ substream }', "import { substream } from 'exactdraw'; globalThis.r = substream(1, 2)();", 8_000, 8_000],
   ['{ normalTarget, tableSampler }', "import { normalTarget, tableSampler } from 'exactdraw'; globalThis.r = tableSampler(normalTarget(0, 1), { seed: 1 }).sample();", 25_000, 25_000],
-  ['everything', "import * as all from 'exactdraw'; globalThis.r = all;", 70_000, 60_000],
+  ['everything', "import * as all from 'exactdraw'; globalThis.r = all;", 105_000, 60_000],
 ];
 
 describe('size budget of the ESM build (esbuild, minified, gzip)', () => {

@@ -433,7 +433,7 @@ const LGAMMA_INC_FROM = 1.4616321449683625;
 /** Right end of the decreasing branch (the double just below the minimum point). */
 const LGAMMA_DEC_TO = 1.4616321449683622;
 /** A lower bound of min lgamma = −0.12148629053584960809551… (mpmath 1.3.0, 40 digits), widened like every function value. */
-const LGAMMA_MIN = widenDn(-0.12148629053584961);
+const LGAMMA_MIN = /* @__PURE__ */ widenDn(-0.12148629053584961);
 
 /** lgamma point value on the library's domain: `x > 0`, `lgamma(0) = +Infinity`, NaN for `x < 0`. @internal */
 export function lgammaValue(x: number): number {

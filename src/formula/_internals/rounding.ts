@@ -35,9 +35,11 @@ import { pow } from '../../vendor/math.js';
 
 const F = new Float64Array(1);
 const U = new Uint32Array(F.buffer);
-F[0] = 1;
-/** Index of the low and high 32-bit words of a double (endianness). */
-const HI = U[1] === 0x3ff00000 ? 1 : 0;
+/** Index of the low and high 32-bit words of a double (endianness); pure, so that bundles without the formula code drop it. */
+const HI = /* @__PURE__ */ (() => {
+  F[0] = 1;
+  return U[1] === 0x3ff00000 ? 1 : 0;
+})();
 const LO = 1 - HI;
 
 /** Largest finite double. @internal */
