@@ -52,6 +52,11 @@ describe('size budget of the ESM build (esbuild, minified, gzip)', () => {
     });
   }
 
+  it('regression guard: import { substream } stays under 2 KB gzip (1.3 KB measured; an impure top-level statement of the formula code once made it 4.4 KB)', async () => {
+    const s = await bundledSize(CASES[0][1]);
+    expect(s.gzip).toBeLessThanOrEqual(2_000);
+  });
+
   it('twin: importing a name that reaches more code bundles larger (the measure sees what an import pulls in)', async () => {
     const small = await bundledSize(CASES[0][1]);
     const large = await bundledSize("import { substream, exactSampler, studentTTarget } from 'exactdraw'; globalThis.r = [substream, exactSampler, studentTTarget];");
