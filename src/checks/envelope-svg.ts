@@ -10,6 +10,7 @@ import type { Target } from '../core/types.js';
 import { evaluateEnvelope } from '../methods/envelope/description.js';
 import type { EnvelopeDescription } from '../methods/envelope/description.js';
 import { roundTicks } from './svg-ticks.js';
+import { exp } from '../vendor/math.js';
 
 /** Options of {@link envelopeSvg}. */
 export interface EnvelopeSvgOptions {
@@ -235,7 +236,7 @@ export function envelopeSvg(
   if (!(top > -Infinity)) top = 0;
   const bottom = top - 30;
   // plotted y: linear, relative to the maximum (0 .. 1); log, the logDensity values themselves
-  const yOf = (lv: number): number => (logPlot ? lv + ref : Math.exp(lv - top));
+  const yOf = (lv: number): number => (logPlot ? lv + ref : exp(lv - top));
   const yMax = logPlot ? top + ref : 1.04;
   const yMin = logPlot ? bottom + ref : 0;
 

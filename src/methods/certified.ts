@@ -15,6 +15,7 @@ import { buildCells } from './certified/build.js';
 import { BoundsOracle } from './certified/cells.js';
 import type { BoundsFn } from './certified/cells.js';
 import { CertifiedState, certifiedFill } from './certified/kernel.js';
+import { exp } from '../vendor/math.js';
 
 /** Default share of the envelope area the squeeze must reach before setup stops (the acceptance rate is at least this). */
 export const DEFAULT_CERTIFIED_ACCEPTANCE = 0.99;
@@ -293,7 +294,7 @@ function describeCells(s: CertifiedState, support: readonly [number, number], ro
     cells: Object.freeze(cells),
     logEnvelopeArea: s.logEnvelopeArea,
     logSqueezeArea: s.logSqueezeArea,
-    acceptanceBound: Math.exp(s.logSqueezeArea - s.logEnvelopeArea),
+    acceptanceBound: exp(s.logSqueezeArea - s.logEnvelopeArea),
     setupRounds: rounds,
   });
 }

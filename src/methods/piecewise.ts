@@ -31,6 +31,7 @@ import { tableDraws } from './table/draws.js';
 import { MAX_TABLE_STRIPS, resolveTableOptions } from './table/options.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
+import { exp } from '../vendor/math.js';
 
 /**
  * Default of {@link PiecewiseOptions.targetAreaRatio}: refinement stops once
@@ -573,7 +574,7 @@ function describe(grid: Grid, t: Tables, ratio: number, ev: Evaluator): Piecewis
     gridPoints: Object.freeze(grid.x.slice()),
     logEnvelopeArea: t.logEnvelopeArea,
     logSqueezeArea: t.logSqueezeArea,
-    areaRatio: Math.exp(t.logEnvelopeArea - t.logSqueezeArea),
+    areaRatio: exp(t.logEnvelopeArea - t.logSqueezeArea),
     targetAreaRatio: ratio,
     inflections: Object.freeze(grid.inflections()),
     extrema: Object.freeze(grid.extrema()),

@@ -13,6 +13,7 @@ import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '..
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
+import { log } from '../vendor/math.js';
 
 /** Options of {@link rejectionSampler}. */
 export interface RejectionOptions extends SamplerOptions {
@@ -120,7 +121,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
       counters.proposals++;
       if (x >= lower && x <= upper) {
         const logEnv = logC + proposal.logDensity(x);
-        const logV = Math.log(1 - uniform());
+        const logV = log(1 - uniform());
         const threshold = logV + logEnv;
         let s = -Infinity;
         if (squeeze !== undefined) {

@@ -16,6 +16,12 @@ import { showValue } from '../core/validate.js';
  * @param length - total number of draws
  * @param parts - number of parts (workers, processes, machines)
  * @param part - index of the part, 0-based
+ * @returns `[start, end)`
+ * @example
+ * ```ts
+ * partRange(10, 3, 0); // [0, 3]
+ * partRange(10, 3, 2); // [6, 10]
+ * ```
  */
 export function partRange(length: number, parts: number, part: number): [number, number] {
   return [Math.floor((part * length) / parts), Math.floor(((part + 1) * length) / parts)];
@@ -45,6 +51,11 @@ export function partRange(length: number, parts: number, part: number): [number,
  * @param seed - integer seed in [0, 2^53 − 1]
  * @returns `out`
  * @throws {@link InvalidTargetError} for bad arguments
+ * @example
+ * ```ts
+ * const out = partitionedFill((uniform, own) => tableSampler(normalTarget(0, 1), { ...own }), new Float64Array(1e6), 4, 2026);
+ * // the same array as fillParallel with 4 workers and seed 2026, or as 4 jobs each filling partRange(1e6, 4, k)
+ * ```
  */
 export function partitionedFill(create: (uniform: Uniform, own: OwnedStream) => Sampler, out: Float64Array, parts: number, seed: number): Float64Array {
   if (typeof create !== 'function') throw new InvalidTargetError(`partitionedFill: create must be a function (uniform) => Sampler, got ${typeof create}`);

@@ -78,7 +78,7 @@ describe('error codes and messages', () => {
       'restoreMersenneTwister: state version 2 is not supported by this exactdraw (it reads version 1)',
     );
     const cut = caught(() => restoreMersenneTwister({ ...saved, words: saved.words.slice(0, 100) }));
-    expect(cut.message).toContain(`state.words has 100 words, expected ${saved.words.length} (a truncated or edited state)`);
+    expect(cut.message).toContain(`state.words has 100 words, at least ${624 + 7} are needed; a truncated or edited state`); // 624 words of MT19937 state (Matsumoto & Nishimura 1998) plus the format's 6 fixed words and at least one seed word
     expect(caught(() => restoreMersenneTwister({ format: 'other' } as never)).message).toContain("format 'other'");
     // twin: the intact state restores
     expect(restoreMersenneTwister(saved)()).toBe(mersenneTwister(3)());

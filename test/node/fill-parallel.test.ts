@@ -8,7 +8,7 @@ const TINY = 'test/fixtures/tiny-suite.mjs'; // a relative module path resolves 
 describe('fillParallel', () => {
   it('fillParallel is deterministic for a seed and worker count and equals partitionedFill in one thread', async () => {
     const { fillParallel } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
-    const { partitionedFill } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { partitionedFill } = (await import(dist('index.node.js'))) /* what import 'exactdraw' loads in Node */ as typeof import('../../src/index.js');
     const { samplers } = (await import(resolve(TINY))) as { samplers: import('../../src/node/index.js').SuiteEntry[] };
     const n = 50_001;
     const a = await fillParallel({ module: TINY, name: 'tiny normal' }, new Float64Array(n), { workers: 2, seed: 9 });
@@ -32,7 +32,7 @@ describe('fillParallel', () => {
 
   it('fillParallel with a factory that owns its stream equals partitionedFill; a worker error rejects the promise with its message', async () => {
     const { fillParallel } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
-    const { partitionedFill } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { partitionedFill } = (await import(dist('index.node.js'))) /* what import 'exactdraw' loads in Node */ as typeof import('../../src/index.js');
     const { samplers } = (await import(resolve(TINY))) as { samplers: import('../../src/node/index.js').SuiteEntry[] };
     const fast = samplers.find((e) => e.name === 'tiny fast normal') as import('../../src/node/index.js').SuiteEntry;
     const a = await fillParallel({ module: TINY, name: 'tiny fast normal' }, new Float64Array(20_000), { workers: 2, seed: 4 });
@@ -46,7 +46,7 @@ describe('fillParallel', () => {
 describe('createParallelFiller', () => {
   it('repeated fills on one pool equal partitionedFill for each seed; plain and shared arrays; fewer draws than workers', async () => {
     const { createParallelFiller } = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
-    const { partitionedFill } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { partitionedFill } = (await import(dist('index.node.js'))) /* what import 'exactdraw' loads in Node */ as typeof import('../../src/index.js');
     const { samplers } = (await import(resolve(TINY))) as { samplers: import('../../src/node/index.js').SuiteEntry[] };
     const fast = samplers.find((e) => e.name === 'tiny fast normal') as import('../../src/node/index.js').SuiteEntry;
     const filler = await createParallelFiller({ module: TINY, name: 'tiny fast normal' }, { workers: 3 });
@@ -100,7 +100,7 @@ describe('createParallelFiller', () => {
 describe('exactdraw/node options and names', () => {
   it('option typos in every entry are InvalidOptionError listing the known keys; bad values name the option and quote strings', async () => {
     const node = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
-    const { InvalidOptionError, InvalidTargetError } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { InvalidOptionError, InvalidTargetError } = (await import(dist('index.node.js'))) /* what import 'exactdraw' loads in Node */ as typeof import('../../src/index.js');
     const spec = { module: TINY, name: 'tiny normal' };
     const refused = async (p: Promise<unknown>, cls: new (...a: never[]) => Error, text: string): Promise<void> => {
       const e = await p.then(
@@ -134,7 +134,7 @@ describe('exactdraw/node options and names', () => {
 
   it('validateSuite refuses entry typos (InvalidOptionError) and malformed suites (InvalidTargetError), naming the API; findSuiteEntry is typed', async () => {
     const node = (await import(dist('node/index.js'))) as typeof import('../../src/node/index.js');
-    const { InvalidOptionError, InvalidTargetError } = (await import(dist('index.js'))) as typeof import('../../src/index.js');
+    const { InvalidOptionError, InvalidTargetError } = (await import(dist('index.node.js'))) /* what import 'exactdraw' loads in Node */ as typeof import('../../src/index.js');
     const create = (): never => {
       throw new Error('not called');
     };
