@@ -3,6 +3,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
+    // timing-sensitive: run alone after this suite by `npm run test:gate` (vitest.gate.config.ts)
+    exclude: ['test/cli/bench-gate.test.ts', '**/node_modules/**'],
     testTimeout: 120_000,
     hookTimeout: 120_000,
     pool: 'forks',
