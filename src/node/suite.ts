@@ -115,8 +115,12 @@ const quoted = (names: readonly string[]): string => names.map((n) => `'${n}'`).
  * @example
  * ```ts
  * import { validateSuite } from 'exactdraw/node';
- * import { normalTarget, tableSampler } from 'exactdraw';
- * const entries = validateSuite('inline', [{ name: 'n', create: (u) => tableSampler(normalTarget(0, 1), { uniform: u }) }]);
+ * import { normalTarget, tableSampler, weightedIndexSampler } from 'exactdraw';
+ * const entries = validateSuite('inline', [
+ *   { name: 'n', create: (u) => tableSampler(normalTarget(0, 1), { uniform: u }) },
+ *   // a discrete entry: checked by a chi-square test against its pmf on its support
+ *   { name: 'k', discrete: true, create: (u) => weightedIndexSampler([1, 3], { uniform: u }), pmf: (k) => [0.25, 0.75][k], support: [0, 1] },
+ * ]);
  * ```
  */
 export function validateSuite(source: string, value: unknown, api = 'validateSuite'): SuiteEntry[] {
