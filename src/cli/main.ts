@@ -28,6 +28,8 @@ const COMMON: Record<string, OptionSpec> = { help: { type: 'boolean', short: 'h'
 
 const SUITE_NOTE = `A module exports 'samplers': [{ name, create(uniform, own) => Sampler, cdf?, reference? }];
 own = { seed, stream } names the same substream as uniform (pass it as sampler options to own it).
+A sampler of integers is marked discrete: { name, create, discrete: true, pmf?, cdf?, support? }
+(support [lower, upper] of integers, default [0, Infinity]; pmf(k) = P(X = k), else cdf(k) = P(X <= k)).
 A module path is resolved against the current working directory (URLs are used as given).`;
 
 const HELP: Record<string, string> = {
@@ -55,15 +57,17 @@ const HELP: Record<string, string> = {
   --quiet                 no progress line (it is shown on stderr only when stderr is a terminal)
 ${SUITE_NOTE}`,
   check: `usage: exactdraw check [module] [options]
-  KS and Anderson-Darling tests of every sampler that has a cdf, at a stated overall false-positive rate.
-  Samplers without a cdf are listed as not checked; a run that checks nothing fails (exit 1).
+  KS and Anderson-Darling tests of every sampler that has a cdf, and a chi-square test (cells pooled to an
+  expected count >= 5) of every discrete sampler that has a pmf or cdf, at a stated overall false-positive
+  rate. Samplers with neither are listed as not checked; a run that checks nothing fails (exit 1).
   --draws N (20000)       draws per sampler (--n is the same option)
   --seed S (20261201)     sampler i draws from substream(S, i)
-  --alpha A (0.001)       overall false-positive rate (Bonferroni over 2 tests per checked sampler)
+  --alpha A (0.001)       overall false-positive rate (Bonferroni over 2 tests per checked sampler,
+                          1 per checked discrete sampler)
   --per-test-alpha P      per-test threshold instead of alpha / tests (the replay line passes it)
   --only NAME             check only the sampler with exactly this name (repeatable)
-  --require-all           fail when a selected sampler has no cdf
-  --json                  print the JSON report (schema exactdraw-check/2) instead of the text
+  --require-all           fail when a selected sampler has no cdf (discrete: no pmf or cdf)
+  --json                  print the JSON report (schema exactdraw-check/3) instead of the text
   --out FILE              also write the JSON report to FILE
   --quiet                 accepted for symmetry with bench (check prints no progress line)
 ${SUITE_NOTE}`,
@@ -72,7 +76,7 @@ ${SUITE_NOTE}`,
 const USAGE = `usage: exactdraw <command> [options]    (exactdraw <command> --help for its options)
   exactdraw demo                       run the bike-share fleet demo (invented data)
   exactdraw bench [module] [options]   time the built-in suite or a module's samplers; regression gate
-  exactdraw check [module] [options]   KS and Anderson-Darling for every sampler with a cdf
+  exactdraw check [module] [options]   KS and Anderson-Darling (chi-square for discrete samplers) per sampler
   exactdraw --version                  print the version`;
 
 const OPTIONS: Record<string, Record<string, OptionSpec>> = {

@@ -8,7 +8,7 @@
  *
  * ```js
  * // my-samplers.mjs
- * import { rejectionSampler, tableSampler, normalTarget, cauchyProposal } from 'exactdraw';
+ * import { rejectionSampler, tableSampler, normalTarget, cauchyProposal, discreteSampler, poissonTarget } from 'exactdraw';
  * export const samplers = [
  *   {
  *     name: 'service time',                       // unique, shown in reports
@@ -21,8 +21,20 @@
  *     // the second argument names the same stream: { seed, stream }
  *     create: (uniform, own) => tableSampler(normalTarget(0, 1), { ...own }),
  *   },
+ *   {
+ *     name: 'arrivals per hour',                  // a discrete entry: integer draws
+ *     discrete: true,
+ *     create: (uniform) => discreteSampler(poissonTarget(6), { uniform, expectedDraws: 1e5 }),
+ *     pmf: (k) => Math.exp(poissonTarget(6).logPmf(k)), // or cdf: P(X <= k); optional: enables `check`
+ *     support: [0, Infinity],                     // optional, default [0, Infinity]
+ *   },
  * ];
  * ```
+ *
+ * A discrete entry (`discrete: true`) is checked by `exactdraw check` with a
+ * chi-square test ({@link SuiteEntry.pmf} or, without one, differences of its
+ * {@link SuiteEntry.cdf} at the integers); a continuous entry (the default)
+ * with KS and Anderson–Darling against its `cdf`.
  *
  * Module paths: a relative path is resolved against the current working
  * directory (`process.cwd()`), never against the file that names it; a
@@ -50,14 +62,42 @@ export interface SuiteEntry {
    * the table-driven fast path is faster on a stream it owns.
    */
   create(uniform: Uniform, own: OwnedStream): Sampler;
-  /** Optional normalized cdf of the target; entries with one are checked by `exactdraw check`. */
+  /**
+   * Optional normalized cdf of the target; entries with one are checked by
+   * `exactdraw check`. For a discrete entry: P(X ≤ k) at the integers k
+   * (used only when there is no {@link SuiteEntry.pmf}).
+   */
   cdf?(x: number): number;
   /** Optional name of a peer (built-in or another entry) to report a time ratio against. */
   reference?: string;
+  /**
+   * `true` for a sampler of integers (`discreteSampler`, `weightedIndexSampler`,
+   * …): `exactdraw check` tests it with a chi-square test against
+   * {@link SuiteEntry.pmf} (or differences of {@link SuiteEntry.cdf}).
+   * @defaultValue false
+   */
+  discrete?: boolean;
+  /**
+   * Discrete entries only: the normalized probability mass P(X = k) at the
+   * integer k (it must sum to 1 within 1e-8 over the support). Used instead
+   * of the cdf when both are given.
+   */
+  pmf?(k: number): number;
+  /**
+   * Discrete entries only: the support `[lower, upper]`, integers (`lower`
+   * may be `-Infinity`, `upper` `Infinity`).
+   * @defaultValue `[0, Infinity]`
+   */
+  support?: readonly [number, number];
 }
 
 /** The keys a suite entry may have. */
-const ENTRY_KEYS: readonly string[] = ['name', 'create', 'cdf', 'reference'];
+const ENTRY_KEYS: readonly string[] = ['name', 'create', 'cdf', 'reference', 'discrete', 'pmf', 'support'];
+
+/** Default support of a discrete suite entry (that of a discrete target). @internal */
+export const DEFAULT_DISCRETE_SUPPORT: readonly [number, number] = [0, Infinity];
+
+const show = (v: unknown): string => (typeof v === 'string' ? `'${v}'` : Array.isArray(v) ? `[${v.map(show).join(', ')}]` : v === null ? 'null' : typeof v === 'object' || typeof v === 'function' ? typeof v : String(v));
 
 const quoted = (names: readonly string[]): string => names.map((n) => `'${n}'`).join(', ');
 
@@ -68,13 +108,19 @@ const quoted = (names: readonly string[]): string => names.map((n) => `'${n}'`).
  * @param value - the module's `samplers` export
  * @param api - the public API shown in messages
  * @returns the entries
- * @throws InvalidTargetError (from `exactdraw`) when `value` is not an array of entries, an entry lacks a name or `create`, or two entries share a name
- * @throws InvalidOptionError (from `exactdraw`) when an entry has a key other than `name`, `create`, `cdf`, `reference` (a typo such as `cfd`)
+ * @throws InvalidTargetError (from `exactdraw`) when `value` is not an array of entries, an entry lacks a name or `create`, two entries share a name,
+ *   `discrete` is not a boolean, `pmf` is not a function, `support` is not a pair of integers (or infinite ends) with lower ≤ upper,
+ *   or `pmf`/`support` is given on an entry that is not `discrete: true`
+ * @throws InvalidOptionError (from `exactdraw`) when an entry has a key other than `name`, `create`, `cdf`, `reference`, `discrete`, `pmf`, `support` (a typo such as `cfd`)
  * @example
  * ```ts
  * import { validateSuite } from 'exactdraw/node';
- * import { normalTarget, tableSampler } from 'exactdraw';
- * const entries = validateSuite('inline', [{ name: 'n', create: (u) => tableSampler(normalTarget(0, 1), { uniform: u }) }]);
+ * import { normalTarget, tableSampler, weightedIndexSampler } from 'exactdraw';
+ * const entries = validateSuite('inline', [
+ *   { name: 'n', create: (u) => tableSampler(normalTarget(0, 1), { uniform: u }) },
+ *   // a discrete entry: checked by a chi-square test against its pmf on its support
+ *   { name: 'k', discrete: true, create: (u) => weightedIndexSampler([1, 3], { uniform: u }), pmf: (k) => [0.25, 0.75][k], support: [0, 1] },
+ * ]);
  * ```
  */
 export function validateSuite(source: string, value: unknown, api = 'validateSuite'): SuiteEntry[] {
@@ -94,8 +140,32 @@ export function validateSuite(source: string, value: unknown, api = 'validateSui
     if (typeof entry.create !== 'function') throw new InvalidTargetError(`${api}: ${source} samplers[${i}].create ('${entry.name}') must be a function (uniform, own) => Sampler`);
     if (entry.cdf !== undefined && typeof entry.cdf !== 'function') throw new InvalidTargetError(`${api}: ${source} samplers[${i}].cdf ('${entry.name}') must be a function when given`);
     if (entry.reference !== undefined && typeof entry.reference !== 'string') throw new InvalidTargetError(`${api}: ${source} samplers[${i}].reference ('${entry.name}') must be a string when given`);
+    checkDiscreteKeys(api, `${source} samplers[${i}]`, entry);
   });
   return value as SuiteEntry[];
+}
+
+/** The discrete keys of an entry: `discrete` a boolean, `pmf` and `support` only with `discrete: true`. */
+function checkDiscreteKeys(api: string, where: string, entry: Partial<SuiteEntry>): void {
+  const name = `('${String(entry.name)}')`;
+  const d = entry.discrete as unknown;
+  if (d !== undefined && typeof d !== 'boolean') throw new InvalidTargetError(`${api}: ${where}.discrete ${name} must be true or false when given, got ${show(d)}`);
+  const pmf = entry.pmf as unknown;
+  const support = entry.support as unknown;
+  if (d !== true) {
+    if (pmf !== undefined) throw new InvalidTargetError(`${api}: ${where}.pmf ${name} is read only for discrete entries: add discrete: true (a continuous entry is checked against its cdf)`);
+    if (support !== undefined) throw new InvalidTargetError(`${api}: ${where}.support ${name} is read only for discrete entries: add discrete: true`);
+    return;
+  }
+  if (pmf !== undefined && typeof pmf !== 'function') throw new InvalidTargetError(`${api}: ${where}.pmf ${name} must be a function k => P(X = k) when given, got ${show(pmf)}`);
+  if (support !== undefined) {
+    const bad = (): InvalidTargetError => new InvalidTargetError(`${api}: ${where}.support ${name} must be a pair [lower, upper] of integers (lower may be -Infinity, upper Infinity) with lower <= upper, got ${show(support)}`);
+    if (!Array.isArray(support) || support.length !== 2) throw bad();
+    const lo = support[0] as unknown;
+    const hi = support[1] as unknown;
+    if (typeof lo !== 'number' || typeof hi !== 'number') throw bad();
+    if (!(Number.isSafeInteger(lo) || lo === -Infinity) || !(Number.isSafeInteger(hi) || hi === Infinity) || !(lo <= hi)) throw bad();
+  }
 }
 
 /**

@@ -62,7 +62,7 @@ export const samplers = [
     expect(r1.stdout).toMatch(/no cdf here\s+not checked \(no cdf\)/);
     expect(r1.stdout).toContain('none of the 1 selected samplers has a cdf');
     const j = JSON.parse(run(['check', nocdf, '--json']).stdout);
-    expect(j.schema).toBe('exactdraw-check/2');
+    expect(j.schema).toBe('exactdraw-check/3');
     expect(j.passed).toBe(false);
     expect(j.checked).toBe(0);
     expect(j.notChecked).toEqual(['no cdf here']);
@@ -111,7 +111,7 @@ export const samplers = [
     const mod = suiteModule(dir, 'typo.mjs', "export const samplers = [{ name: 'x', create: (u) => ed.tableSampler(ed.normalTarget(0, 1), { uniform: u }), cfd: (x) => x }];");
     const r = run(['check', mod]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toContain(`exactdraw check: ${mod} samplers[0] has an unknown key 'cfd' (known: 'name', 'create', 'cdf', 'reference')`);
+    expect(r.stderr).toContain(`exactdraw check: ${mod} samplers[0] has an unknown key 'cfd' (known: 'name', 'create', 'cdf', 'reference', 'discrete', 'pmf', 'support')`);
     expect(r.stderr).not.toContain('exactdraw: exactdraw');
     expect(run(['check', join(dir, 'does-not-exist.mjs')]).code).toBe(2);
   });

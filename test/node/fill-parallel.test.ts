@@ -139,7 +139,7 @@ describe('exactdraw/node options and names', () => {
       throw new Error('not called');
     };
     expect(() => node.validateSuite('m.mjs', [{ name: 'a', create, refrence: 'x' }])).toThrow(InvalidOptionError);
-    expect(() => node.validateSuite('m.mjs', [{ name: 'a', create, refrence: 'x' }])).toThrow("validateSuite: m.mjs samplers[0] has an unknown key 'refrence' (known: 'name', 'create', 'cdf', 'reference')");
+    expect(() => node.validateSuite('m.mjs', [{ name: 'a', create, refrence: 'x' }])).toThrow("validateSuite: m.mjs samplers[0] has an unknown key 'refrence' (known: 'name', 'create', 'cdf', 'reference', 'discrete', 'pmf', 'support')");
     expect(() => node.validateSuite('m.mjs', { samplers: [] })).toThrow(InvalidTargetError);
     expect(() => node.validateSuite('m.mjs', [{ name: 'a', create }, { name: 'a', create }])).toThrow("two samplers named 'a'");
     expect(node.validateSuite('m.mjs', [{ name: 'a', create }])).toHaveLength(1); // twin: a correct entry passes
