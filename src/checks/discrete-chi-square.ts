@@ -184,6 +184,8 @@ export function discreteChiSquareCheck(
       cellC[cellC.length - 1] += accC;
     }
   }
+  // every draw outside the support: the verdict is already certain (p = 0), whatever the pooling
+  if (valid === 0) return { statistic: Infinity, pValue: 0, df: Math.max(cellP.length - 1, 0), cells: cellP.length, outside };
   if (cellP.length < 2) {
     throw new InvalidTargetError(`${api}: only ${cellP.length} cell has an expected count >= ${minExpected} with ${valid} draws; more draws are needed`);
   }

@@ -38,6 +38,9 @@ describe('discreteChiSquareCheck', () => {
   it('discreteChiSquareCheck gives p = 0 for a draw outside the support or not an integer', () => {
     expect(discreteChiSquareCheck([...rep([5, 15, 15, 5]), 4], b3, [0, 3]).pValue).toBe(0);
     expect(discreteChiSquareCheck([...rep([5, 15, 15, 5]), 1.5], b3, [0, 3]).outside).toBe(1);
+    // every draw outside: p = 0 (was a misleading 'more draws are needed'); a single valid draw still asks for more
+    const allOut = discreteChiSquareCheck([7, 8, 9.5, -1], b3, [0, 3]);
+    expect([allOut.pValue, allOut.outside]).toEqual([0, 4]);
   });
 
   it('discreteChiSquareCheck throws typed errors for a pmf that is not normalized, a bad support, empty draws', () => {
