@@ -98,8 +98,16 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
   const budget = Math.max(DISCRETE_TABLE_MIN_POINTS, Math.min(MAX_DISCRETE_TABLE_POINTS, expected));
   const refused: { method: DiscreteMethod; message: string }[] = [];
   const logPmf = t.logPmf;
-  const done = (inner: DiscreteSampler, m: DiscreteMethod, mode: number, reason: string): ChosenDiscreteSampler => {
-    const choice: DiscreteChoice = { method: m, reason, refused };
+  // the reason is written when it is read: a sampler built for one draw (a Gibbs step) never formats it
+  const done = (inner: DiscreteSampler, m: DiscreteMethod, mode: number, reason: () => string): ChosenDiscreteSampler => {
+    let text: string | undefined;
+    const choice: DiscreteChoice = {
+      method: m,
+      get reason(): string {
+        return (text ??= reason());
+      },
+      refused,
+    };
     return {
       choice,
       mode,
@@ -110,16 +118,16 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
       },
     };
   };
-  const table = (m: number | undefined, reason: string): ChosenDiscreteSampler => {
+  const table = (m: number | undefined, reason: () => string): ChosenDiscreteSampler => {
     const tab = buildDiscreteTable(ev, m, MAX_DISCRETE_TABLE_POINTS);
     let mode = tab.first;
     for (let i = 1; i < tab.logp.length; i++) if (tab.logp[i] > tab.logp[mode - tab.first]) mode = tab.first + i;
     const s = tableSamplerOf(api, tab, logPmf, lo, hi, u, counters, maxRejections);
-    return done(s, 'table', mode, `${reason}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : ', tails beyond drawn by rejection from geometric hats'}`);
+    return done(s, 'table', mode, () => `${reason()}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : ', tails beyond drawn by rejection from geometric hats'}`);
   };
   if (method === 'table' || (method === 'auto' && size <= budget)) {
     const m = size <= MAX_DISCRETE_TABLE_POINTS ? undefined : findMode(ev, t.mode ?? startOf(lo, hi));
-    return table(m, size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method');
+    return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method');
   }
   const m = findMode(ev, t.mode ?? startOf(lo, hi));
   const attempt = <T>(name: DiscreteMethod, f: () => T): T | undefined => {
@@ -136,7 +144,7 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
     if (hat !== undefined) {
       const est = tableEstimate(hat);
       if (method === 'auto' && est <= budget) {
-        const r = attempt('table', () => table(m, `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected}))`));
+        const r = attempt('table', () => table(m, () => `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected}))`));
         if (r !== undefined) return r;
       }
       const s = logConcaveSampler(api, hat, logPmf, lo, hi, u, counters, maxRejections);
@@ -145,7 +153,7 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
         s,
         'log-concave-rejection',
         m,
-        `log-concave at the measured points (mode ${m}, hat centre [${hat.left.edge}, ${hat.right.edge}], hat mass ${area.toPrecision(4)} x pmf(mode)); a table would need about ${est} points > ${budget}`,
+        () => `log-concave at the measured points (mode ${m}, hat centre [${hat.left.edge}, ${hat.right.edge}], hat mass ${area.toPrecision(4)} x pmf(mode)); a table would need about ${est} points > ${budget}`,
       );
     }
   }
@@ -153,11 +161,11 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
     const rect = attempt('ratio-of-uniforms', () => buildRatioRectangle(ev, m));
     if (rect !== undefined) {
       const s = ratioSampler(api, rect, logPmf, lo, hi, u, counters, maxRejections);
-      return done(s, 'ratio-of-uniforms', m, `not log-concave${refused.length > 0 ? ` (${refused[0].message})` : ''}; ratio-of-uniforms rectangle found around the mode ${m}`);
+      return done(s, 'ratio-of-uniforms', m, () => `not log-concave${refused.length > 0 ? ` (${refused[0].message})` : ''}; ratio-of-uniforms rectangle found around the mode ${m}`);
     }
   }
   if (method === 'auto' && size <= MAX_DISCRETE_TABLE_POINTS) {
-    return table(m, `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`);
+    return table(m, () => `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`);
   }
   throw new ShapeViolationError(`${api}: no method fits this target: ${refused.map((r) => `${r.method}: ${r.message}`).join('; ')}`);
 }

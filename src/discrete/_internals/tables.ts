@@ -70,11 +70,8 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
   }
   let deficit = TABLE_UNITS - total; // exact: total < 2^53
   if (deficit !== 0) {
-    const order = new Int32Array(n);
-    for (let i = 0; i < n; i++) order[i] = i;
-    const idx = Array.from(order);
+    const idx = remainderOrder(frac, deficit > 0);
     if (deficit > 0) {
-      idx.sort((a, b) => frac[b] - frac[a] || a - b);
       for (let pass = 0; deficit > 0 && pass < 64; pass++) {
         for (let j = 0; j < n && deficit > 0; j++) {
           const i = idx[j];
@@ -85,7 +82,6 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
         }
       }
     } else {
-      idx.sort((a, b) => frac[a] - frac[b] || a - b);
       for (let pass = 0; deficit < 0 && pass < 64; pass++) {
         for (let j = 0; j < n && deficit < 0; j++) {
           const i = idx[j];
@@ -101,6 +97,35 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
     }
   }
   return m;
+}
+
+/**
+ * Indices ordered by remainder (descending when `desc`, else ascending), ties
+ * by index: insertion sort on an Int32Array for short tables (no array of
+ * boxed numbers, no comparator closure), the built-in sort beyond. Both give
+ * the same order (a total order: remainder, then index).
+ */
+function remainderOrder(frac: Float64Array, desc: boolean): Int32Array {
+  const n = frac.length;
+  const idx = new Int32Array(n);
+  for (let i = 0; i < n; i++) idx[i] = i;
+  if (n <= 64) {
+    for (let i = 1; i < n; i++) {
+      const x = idx[i];
+      const f = frac[x];
+      let j = i - 1;
+      while (j >= 0 && (desc ? frac[idx[j]] < f : frac[idx[j]] > f)) {
+        idx[j + 1] = idx[j];
+        j--;
+      }
+      idx[j + 1] = x;
+    }
+    return idx;
+  }
+  const sorted = Array.from(idx);
+  sorted.sort(desc ? (a, b) => frac[b] - frac[a] || a - b : (a, b) => frac[a] - frac[b] || a - b);
+  idx.set(sorted);
+  return idx;
 }
 
 /** An alias table over quantized units. @internal */
