@@ -5,8 +5,8 @@
  * @packageDocumentation
  */
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
-import { InvalidOptionError, ShapeViolationError } from '../core/errors.js';
-import type { DiscreteTarget, SamplerStats } from '../core/types.js';
+import { InvalidOptionError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
+import type { DiscreteTarget, SamplerStats, Uniform } from '../core/types.js';
 import { checkInteger, checkOptionKeys } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { SetupEvaluator, findMode } from './_internals/setup.js';
@@ -14,13 +14,15 @@ import { buildLogConcaveHat, logConcaveSampler, type LogConcaveHat } from './met
 import { buildRatioRectangle, ratioSampler } from './methods/ratio-of-uniforms.js';
 import { MAX_DISCRETE_TABLE_POINTS, buildDiscreteTable, tableSamplerOf } from './methods/table.js';
 import type { ChosenDiscreteSampler, DiscreteChoice, DiscreteMethod, DiscreteSampler, DiscreteSamplerOptions } from './types.js';
-import { checkDiscreteTarget } from './validate.js';
+import { checkDiscreteTarget, type CheckedDiscreteTarget } from './validate.js';
+import { discreteDraws } from './_internals/draws.js';
+import { newUniversalHat, setUniversalHat, universalDraw } from './methods/universal.js';
 
 /** A table is always chosen when it needs at most this many points. */
 export const DISCRETE_TABLE_MIN_POINTS = 32;
 
 const KNOWN = ['seed', 'stream', 'uniform', 'method', 'expectedDraws', 'maxRejections'] as const;
-const METHODS: readonly string[] = ['auto', 'table', 'log-concave-rejection', 'ratio-of-uniforms'];
+const METHODS: readonly string[] = ['auto', 'table', 'log-concave-rejection', 'ratio-of-uniforms', 'log-concave-universal'];
 
 /**
  * Estimated table size for a log-concave pmf from its hat: the table grows
@@ -90,7 +92,23 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
   if (options?.maxRejections !== undefined) checkInteger(api, 'options.maxRejections', maxRejections, 1, Number.MAX_SAFE_INTEGER);
   const t = checkDiscreteTarget(api, target);
   const u = resolveUniform(api, options);
-  const counters = new Counters();
+  return chooseDiscrete(api, t, u, new Counters(), method as DiscreteMethod | 'auto', expected, maxRejections);
+}
+
+/**
+ * The method choice and setup of {@link discreteSampler}, after the options
+ * are resolved (shared with {@link reusableDiscreteSampler}, which resolves
+ * them once). @internal
+ */
+export function chooseDiscrete(
+  api: string,
+  t: CheckedDiscreteTarget,
+  u: Uniform,
+  counters: Counters,
+  method: DiscreteMethod | 'auto',
+  expected: number,
+  maxRejections: number,
+): ChosenDiscreteSampler {
   const ev = new SetupEvaluator(api, t, counters);
   const lo = t.lower;
   const hi = t.upper;
@@ -125,6 +143,20 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
     const s = tableSamplerOf(api, tab, logPmf, lo, hi, u, counters, maxRejections);
     return done(s, 'table', mode, () => `${reason()}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : ', tails beyond drawn by rejection from geometric hats'}`);
   };
+  if (method === 'log-concave-universal') {
+    if (t.mode === undefined || !t.logConcave || !t.normalized) {
+      throw new InvalidTargetError(
+        `${api}: method 'log-concave-universal' needs target.mode, target.logConcave = true and target.normalized = true, got mode ${String(t.mode)}, logConcave ${String(t.logConcave)}, normalized ${String(t.normalized)}`,
+      );
+    }
+    const m = t.mode;
+    const hat = newUniversalHat();
+    if (!setUniversalHat(api, hat, m, ev.h(m), lo, hi)) {
+      throw new ShapeViolationError(`${api}: method 'log-concave-universal' needs pmf(mode) >= 2^-40; logPmf(${m}) = ${ev.h(m)}`);
+    }
+    const s = discreteDraws(api, () => universalDraw(api, hat, t, lo, hi, u, counters, maxRejections), counters);
+    return done(s, 'log-concave-universal', m, () => `forced; log-concave pmf summing to at most 1 with mode ${m} (promised by the target): universal hat from pmf(mode) = ${hat.q.toPrecision(4)} alone, hat mass ${(hat.cMass + hat.rMass + hat.lMass).toPrecision(4)}`);
+  }
   if (method === 'table' || (method === 'auto' && size <= budget)) {
     const m = size <= MAX_DISCRETE_TABLE_POINTS ? undefined : findMode(ev, t.mode ?? startOf(lo, hi));
     return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method');
