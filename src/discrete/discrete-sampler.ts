@@ -12,7 +12,7 @@ import { resolveUniform } from '../random/resolve.js';
 import { SetupEvaluator, findMode } from './_internals/setup.js';
 import { buildLogConcaveHat, logConcaveSampler, type LogConcaveHat } from './methods/log-concave.js';
 import { buildRatioRectangle, ratioSampler } from './methods/ratio-of-uniforms.js';
-import { MAX_DISCRETE_TABLE_POINTS, buildDiscreteTable, tableSamplerOf } from './methods/table.js';
+import { MAX_DISCRETE_TABLE_POINTS, TABLE_PROBE_MIN_REACH, TABLE_PROBE_REACH, buildDiscreteTable, tableSamplerOf } from './methods/table.js';
 import type { ChosenDiscreteSampler, DiscreteChoice, DiscreteMethod, DiscreteSampler, DiscreteSamplerOptions } from './types.js';
 import { checkDiscreteTarget, type CheckedDiscreteTarget } from './validate.js';
 import { discreteDraws } from './_internals/draws.js';
@@ -136,12 +136,13 @@ export function chooseDiscrete(
       },
     };
   };
-  const table = (m: number | undefined, reason: () => string): ChosenDiscreteSampler => {
-    const tab = buildDiscreteTable(ev, m, MAX_DISCRETE_TABLE_POINTS);
+  // probe: check the tail hats beyond the edges (the table was not preceded by the log-concave measurement)
+  const table = (m: number | undefined, reason: () => string, probe: boolean): ChosenDiscreteSampler => {
+    const tab = buildDiscreteTable(ev, m, MAX_DISCRETE_TABLE_POINTS, probe);
     let mode = tab.first;
     for (let i = 1; i < tab.logp.length; i++) if (tab.logp[i] > tab.logp[mode - tab.first]) mode = tab.first + i;
     const s = tableSamplerOf(api, tab, logPmf, lo, hi, u, counters, maxRejections);
-    return done(s, 'table', mode, () => `${reason()}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : ', tails beyond drawn by rejection from geometric hats'}`);
+    return done(s, 'table', mode, () => `${reason()}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : `, tails beyond drawn by rejection from geometric hats${probe ? ` (each hat checked at 1, 2, 4, ... points beyond its edge up to max(${TABLE_PROBE_MIN_REACH}, ${TABLE_PROBE_REACH} x the edge's distance from the mode); the table grew past every probe above a hat)` : ' (the pmf was log-concave at the measured points)'}`}`);
   };
   if (method === 'log-concave-universal') {
     if (t.mode === undefined || !t.logConcave || !t.normalized) {
@@ -159,7 +160,7 @@ export function chooseDiscrete(
   }
   if (method === 'table' || (method === 'auto' && size <= budget)) {
     const m = size <= MAX_DISCRETE_TABLE_POINTS ? undefined : findMode(ev, t.mode ?? startOf(lo, hi));
-    return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method');
+    return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method', true);
   }
   const m = findMode(ev, t.mode ?? startOf(lo, hi));
   const attempt = <T>(name: DiscreteMethod, f: () => T): T | undefined => {
@@ -176,7 +177,7 @@ export function chooseDiscrete(
     if (hat !== undefined) {
       const est = tableEstimate(hat);
       if (method === 'auto' && est <= budget) {
-        const r = attempt('table', () => table(m, () => `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected}))`));
+        const r = attempt('table', () => table(m, () => `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected}))`, false));
         if (r !== undefined) return r;
       }
       const s = logConcaveSampler(api, hat, logPmf, lo, hi, u, counters, maxRejections);
@@ -197,7 +198,7 @@ export function chooseDiscrete(
     }
   }
   if (method === 'auto' && size <= MAX_DISCRETE_TABLE_POINTS) {
-    return table(m, () => `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`);
+    return table(m, () => `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`, true);
   }
   throw new ShapeViolationError(`${api}: no method fits this target: ${refused.map((r) => `${r.method}: ${r.message}`).join('; ')}`);
 }
