@@ -13,7 +13,7 @@ import { SetupEvaluator, findMode } from './_internals/setup.js';
 import { buildLogConcaveHat, logConcaveSampler, type LogConcaveHat } from './methods/log-concave.js';
 import { buildRatioRectangle, ratioSampler } from './methods/ratio-of-uniforms.js';
 import { MAX_DISCRETE_TABLE_POINTS, TABLE_PROBE_MIN_REACH, TABLE_PROBE_REACH, buildDiscreteTable, tableSamplerOf } from './methods/table.js';
-import type { ChosenDiscreteSampler, DiscreteChoice, DiscreteMethod, DiscreteSampler, DiscreteSamplerOptions } from './types.js';
+import type { ChosenDiscreteSampler, DiscreteChoice, DiscreteMethod, DiscreteRefusal, DiscreteSampler, DiscreteSamplerOptions } from './types.js';
 import { checkDiscreteTarget, type CheckedDiscreteTarget } from './validate.js';
 import { discreteDraws } from './_internals/draws.js';
 import { newUniversalHat, setUniversalHat, universalDraw } from './methods/universal.js';
@@ -108,24 +108,18 @@ export function chooseDiscrete(
   method: DiscreteMethod | 'auto',
   expected: number,
   maxRejections: number,
+  minTablePoints: number = DISCRETE_TABLE_MIN_POINTS,
 ): ChosenDiscreteSampler {
   const ev = new SetupEvaluator(api, t, counters);
   const lo = t.lower;
   const hi = t.upper;
   const size = hi - lo + 1;
-  const budget = Math.max(DISCRETE_TABLE_MIN_POINTS, Math.min(MAX_DISCRETE_TABLE_POINTS, expected));
+  const budget = Math.max(minTablePoints, Math.min(MAX_DISCRETE_TABLE_POINTS, expected));
   const refused: { method: DiscreteMethod; message: string }[] = [];
   const logPmf = t.logPmf;
   // the reason is written when it is read: a sampler built for one draw (a Gibbs step) never formats it
   const done = (inner: DiscreteSampler, m: DiscreteMethod, mode: number, reason: () => string): ChosenDiscreteSampler => {
-    let text: string | undefined;
-    const choice: DiscreteChoice = {
-      method: m,
-      get reason(): string {
-        return (text ??= reason());
-      },
-      refused,
-    };
+    const choice: DiscreteChoice = new LazyChoice(m, reason, refused);
     return {
       choice,
       mode,
@@ -160,7 +154,7 @@ export function chooseDiscrete(
   }
   if (method === 'table' || (method === 'auto' && size <= budget)) {
     const m = size <= MAX_DISCRETE_TABLE_POINTS ? undefined : findMode(ev, t.mode ?? startOf(lo, hi));
-    return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method', true);
+    return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${minTablePoints}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method', true);
   }
   const m = findMode(ev, t.mode ?? startOf(lo, hi));
   const attempt = <T>(name: DiscreteMethod, f: () => T): T | undefined => {
@@ -177,7 +171,7 @@ export function chooseDiscrete(
     if (hat !== undefined) {
       const est = tableEstimate(hat);
       if (method === 'auto' && est <= budget) {
-        const r = attempt('table', () => table(m, () => `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected}))`, false));
+        const r = attempt('table', () => table(m, () => `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${minTablePoints}, expectedDraws = ${expected}))`, false));
         if (r !== undefined) return r;
       }
       const s = logConcaveSampler(api, hat, logPmf, lo, hi, u, counters, maxRejections);
@@ -201,6 +195,28 @@ export function chooseDiscrete(
     return table(m, () => `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`, true);
   }
   throw new ShapeViolationError(`${api}: no method fits this target: ${refused.map((r) => `${r.method}: ${r.message}`).join('; ')}`);
+}
+
+/** A {@link DiscreteChoice} whose reason is formatted on first read (a prototype getter: cheap to create). */
+class LazyChoice implements DiscreteChoice {
+  readonly method: DiscreteMethod;
+  readonly refused: readonly DiscreteRefusal[];
+  private text: string | undefined;
+  private readonly write: () => string;
+
+  constructor(method: DiscreteMethod, write: () => string, refused: readonly DiscreteRefusal[]) {
+    this.method = method;
+    this.write = write;
+    this.refused = refused;
+  }
+
+  get reason(): string {
+    return (this.text ??= this.write());
+  }
+
+  toJSON(): { method: DiscreteMethod; reason: string; refused: readonly DiscreteRefusal[] } {
+    return { method: this.method, reason: this.reason, refused: this.refused };
+  }
 }
 
 function startOf(lo: number, hi: number): number {

@@ -98,7 +98,7 @@ export function reusableDiscreteSampler(options?: ReusableDiscreteSamplerOptions
           return k;
         }
       }
-      const s = chooseDiscrete(api, t, u, counters, 'auto', 1, maxRejections);
+      const s = chooseDiscrete(api, t, u, counters, 'auto', 1, maxRejections, 0); // no table for one draw
       last = s.choice.method;
       return s.sample();
     },

@@ -26,6 +26,27 @@ export const TABLE_UNITS = 4503599627370496; // 2^52
 /** Largest number of entries of a finite table. @internal */
 export const MAX_TABLE_ENTRIES = 1 << 24;
 
+/** Tables up to this many entries build in shared scratch arrays (no user code runs while they are in use). */
+const SCRATCH_MAX = 4096;
+const f64Scratch = [new Float64Array(64), new Float64Array(64)];
+const i32Scratch = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];
+
+/**
+ * A work array of at least n entries (contents undefined): shared scratch
+ * for small tables (a fresh one-draw sampler used to spend much of its setup
+ * allocating and collecting them), a new array beyond {@link SCRATCH_MAX}.
+ */
+function scratchF64(slot: number, n: number): Float64Array {
+  if (n > SCRATCH_MAX) return new Float64Array(n);
+  if (f64Scratch[slot].length < n) f64Scratch[slot] = new Float64Array(SCRATCH_MAX);
+  return f64Scratch[slot];
+}
+function scratchI32(slot: number, n: number): Int32Array {
+  if (n > SCRATCH_MAX) return new Int32Array(n);
+  if (i32Scratch[slot].length < n) i32Scratch[slot] = new Int32Array(SCRATCH_MAX);
+  return i32Scratch[slot];
+}
+
 /**
  * Quantizes non-negative finite weights to integer units summing to
  * {@link TABLE_UNITS} (see the module remarks). `name(i)` names entry i in
@@ -59,7 +80,7 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
   s += c;
   const scale = TABLE_UNITS / s;
   const m = new Float64Array(n);
-  const frac = new Float64Array(n);
+  const frac = scratchF64(0, n);
   let total = 0;
   for (let i = 0; i < n; i++) {
     const t = (w[i] / max) * scale;
@@ -70,7 +91,7 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
   }
   let deficit = TABLE_UNITS - total; // exact: total < 2^53
   if (deficit !== 0) {
-    const idx = remainderOrder(frac, deficit > 0);
+    const idx = remainderOrder(frac, n, deficit > 0);
     if (deficit > 0) {
       for (let pass = 0; deficit > 0 && pass < 64; pass++) {
         for (let j = 0; j < n && deficit > 0; j++) {
@@ -105,9 +126,8 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
  * boxed numbers, no comparator closure), the built-in sort beyond. Both give
  * the same order (a total order: remainder, then index).
  */
-function remainderOrder(frac: Float64Array, desc: boolean): Int32Array {
-  const n = frac.length;
-  const idx = new Int32Array(n);
+function remainderOrder(frac: Float64Array, n: number, desc: boolean): Int32Array {
+  const idx = scratchI32(0, n);
   for (let i = 0; i < n; i++) idx[i] = i;
   if (n <= 64) {
     for (let i = 1; i < n; i++) {
@@ -122,7 +142,7 @@ function remainderOrder(frac: Float64Array, desc: boolean): Int32Array {
     }
     return idx;
   }
-  const sorted = Array.from(idx);
+  const sorted = Array.from(idx.subarray(0, n));
   sorted.sort(desc ? (a, b) => frac[b] - frac[a] || a - b : (a, b) => frac[a] - frac[b] || a - b);
   idx.set(sorted);
   return idx;
@@ -151,12 +171,13 @@ export function buildAlias(units: Float64Array): AliasTable {
   while (2 ** bits < n) bits++;
   const K = 2 ** bits;
   const C = TABLE_UNITS / K;
-  const mass = new Float64Array(K);
+  const mass = scratchF64(1, K);
   mass.set(units);
+  mass.fill(0, n, K);
   const P = new Float64Array(K);
   const A = new Int32Array(K);
-  const small = new Int32Array(K);
-  const large = new Int32Array(K);
+  const small = scratchI32(1, K);
+  const large = scratchI32(2, K);
   let ns = 0;
   let nl = 0;
   for (let j = 0; j < K; j++) {
