@@ -4,7 +4,8 @@
 //   npm run build && node bench/discrete.mjs [--n 200000] [--rounds 5]
 // Cases: Poisson(λ), λ = 0.5, 30, 1e4, from its log-pmf (discreteSampler) vs
 // @stdlib/random-base-poisson; fixed λ (one sampler, fill) and fresh λ per
-// draw (a new target and sampler per draw vs the peer called with λ); alias
+// draw (a new target and sampler per draw, and reusableDiscreteSampler with a
+// new target per draw, vs the peer called with λ); alias
 // table (weightedIndexSampler) vs binary search on cumulative weights.
 // Each generator has its own loop written out (no shared call site); rounds
 // are interleaved; NaN guard. Reported: ns per draw, median of rounds.
@@ -53,6 +54,15 @@ for (const lambda of [0.5, 30, 1e4]) {
     }
     put(`Poisson(${lambda}) fresh: discreteSampler per draw`, Number(process.hrtime.bigint() - t) / fresh);
     guard(s, 'ours fresh');
+    const step = ed.reusableDiscreteSampler({ uniform: src(12) });
+    t = process.hrtime.bigint();
+    s = 0;
+    for (let i = 0; i < fresh; i++) {
+      const l = lambda * (0.9 + 0.2 * ((i % 97) / 97));
+      s += step.sample(ed.poissonTarget(l));
+    }
+    put(`Poisson(${lambda}) fresh: reusableDiscreteSampler.sample(target)`, Number(process.hrtime.bigint() - t) / fresh);
+    guard(s, 'ours reusable');
     const u2 = src(12);
     const peerAny = stdlibPoisson.factory({ prng: u2 });
     t = process.hrtime.bigint();
