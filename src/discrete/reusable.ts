@@ -4,11 +4,11 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
+import { Counters } from '../core/counters.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import { InvalidTargetError } from '../core/errors.js';
 import type { DiscreteTarget, SamplerOptions, SamplerStats } from '../core/types.js';
-import { checkInteger, checkOptionKeys } from '../core/validate.js';
+import { checkOptionKeys, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { chooseDiscrete } from './discrete-sampler.js';
 import { newUniversalHat, setUniversalHat, universalDraw } from './methods/universal.js';
@@ -60,7 +60,9 @@ const KNOWN = ['seed', 'stream', 'uniform', 'maxRejections'] as const;
  *
  * @param options - seed/stream/uniform and the rejection bound
  * @returns the reusable sampler
- * @throws {@link InvalidTargetError} for bad options (and, from `sample`, for a malformed target)
+ * @throws {@link InvalidOptionError} for unknown option keys or bad option values; from `sample`:
+ *   {@link InvalidTargetError} for a malformed target, {@link NonFiniteDensityError} for NaN or +Infinity
+ *   from logPmf, {@link EnvelopeViolationError} for a broken promise, {@link StalledSamplerError}
  * @example
  * ```ts
  * import { poissonTarget, reusableDiscreteSampler } from 'exactdraw';
@@ -76,8 +78,7 @@ const KNOWN = ['seed', 'stream', 'uniform', 'maxRejections'] as const;
 export function reusableDiscreteSampler(options?: ReusableDiscreteSamplerOptions): ReusableDiscreteSampler {
   const api = 'reusableDiscreteSampler';
   checkOptionKeys(api, options, KNOWN);
-  const maxRejections = options?.maxRejections ?? DEFAULT_MAX_REJECTIONS;
-  if (options?.maxRejections !== undefined) checkInteger(api, 'options.maxRejections', maxRejections, 1, Number.MAX_SAFE_INTEGER);
+  const maxRejections = resolveMaxRejections(api, options?.maxRejections);
   const u = resolveUniform(api, options);
   const counters = new Counters();
   const hat = newUniversalHat();

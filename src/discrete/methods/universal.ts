@@ -35,9 +35,10 @@ import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K } from '../_internals/setup.js';
+import { exp, expm1, log, pow } from '../../vendor/math.js';
 
 /** Smallest pmf value at the mode served by the universal hat (2^-40; the centre then has at most 2^41 points). @internal */
-export const UNIVERSAL_MIN_MODE_PMF = 2 ** -40;
+export const UNIVERSAL_MIN_MODE_PMF = /* @__PURE__ */ pow(2, -40);
 
 /** The universal hat of one target (plain numbers; no allocation per draw). @internal */
 export interface UniversalHat {
@@ -72,7 +73,7 @@ export function setUniversalHat(api: string, hat: UniversalHat, m: number, F: nu
   if (F > 1e-9) {
     throw new InvalidTargetError(`${api}: target.normalized is true but logPmf(${m}) = ${F} > 0; a pmf summing to at most 1 has no value above 1`);
   }
-  const q = Math.min(1, Math.exp(F));
+  const q = Math.min(1, exp(F));
   if (!(q >= UNIVERSAL_MIN_MODE_PMF)) return false;
   const D = Math.floor(1 / q);
   const cLo = Math.max(lo, m - D);
@@ -85,7 +86,7 @@ export function setUniversalHat(api: string, hat: UniversalHat, m: number, F: nu
   hat.cMass = (cHi - cLo + 1) * q;
   // tail at distance D + j: log q + 1 − q(D + j) = tailLog0 − q·j
   hat.tailLog0 = F + 1 - q * D + DISCRETE_LOG_MARGIN;
-  const tail = (q * Math.exp(1 - q * D - q)) / -Math.expm1(-q);
+  const tail = (q * exp(1 - q * D - q)) / -expm1(-q);
   hat.rEdge = m + D;
   hat.rMass = m + D < hi ? tail : 0;
   hat.lEdge = m - D;
@@ -125,7 +126,7 @@ export function universalDraw(
       k = Math.min(cHi, cLo + Math.floor(t / q)); // min: t / q may round up to the count
       g = G;
     } else {
-      const j = 1 + Math.floor(Math.log(1 - u()) / -q);
+      const j = 1 + Math.floor(log(1 - u()) / -q);
       k = t < cut ? rEdge + j : lEdge - j;
       g = tailLog0 - q * j;
     }
@@ -135,7 +136,7 @@ export function universalDraw(
     counters.densityEvaluations++;
     checkLogDensity(api, k, hk);
     if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
-    if (v <= Math.exp(hk - g)) return k;
+    if (v <= exp(hk - g)) return k;
   }
   throw new StalledSamplerError(api, maxRejections, counters.samples, counters.proposals);
 }
