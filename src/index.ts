@@ -77,6 +77,8 @@ export type { WeightedIndexOptions, WeightedIndexSampler } from './discrete/weig
 export { discreteChiSquareCheck, DISCRETE_CHI_SQUARE_MIN_EXPECTED, DISCRETE_CHI_SQUARE_MAX_POINTS } from './checks/discrete-chi-square.js';
 export type { DiscreteChiSquareResult, DiscreteChiSquareOptions } from './checks/discrete-chi-square.js';
 export { discreteSampler, DISCRETE_TABLE_MIN_POINTS } from './discrete/discrete-sampler.js';
+export { reusableDiscreteSampler } from './discrete/reusable.js';
+export type { ReusableDiscreteSampler, ReusableDiscreteSamplerOptions } from './discrete/reusable.js';
 export { MAX_DISCRETE_TABLE_POINTS } from './discrete/methods/table.js';
 export type { DiscreteFamilyTarget } from './targets/discrete/family.js';
 export { poissonTarget, POISSON_SERIES_MIN_MEAN } from './targets/discrete/poisson.js';

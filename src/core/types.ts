@@ -174,4 +174,19 @@ export interface DiscreteTarget {
   readonly mode?: number;
   /** Optional normalized cdf P(X ≤ k), used by checks only. */
   cdf?(k: number): number;
+  /**
+   * Optional promise that the pmf is log-concave on its support (discrete
+   * second differences of logPmf ≤ 0). With {@link DiscreteTarget.normalized}
+   * and `mode` it lets {@link reusableDiscreteSampler} (and
+   * `discreteSampler` with `method: 'log-concave-universal'`) draw with one
+   * setup evaluation; a broken promise shows as an
+   * {@link EnvelopeViolationError} where the sampler evaluates.
+   */
+  readonly logConcave?: boolean;
+  /**
+   * Optional promise that logPmf sums to at most 1 over the support (a
+   * normalized pmf; a truncation of one also qualifies, though a small
+   * remaining mass makes the universal hat slow).
+   */
+  readonly normalized?: boolean;
 }

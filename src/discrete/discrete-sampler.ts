@@ -5,22 +5,24 @@
  * @packageDocumentation
  */
 import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
-import { InvalidOptionError, ShapeViolationError } from '../core/errors.js';
-import type { DiscreteTarget, SamplerStats } from '../core/types.js';
+import { InvalidOptionError, InvalidTargetError, ShapeViolationError } from '../core/errors.js';
+import type { DiscreteTarget, SamplerStats, Uniform } from '../core/types.js';
 import { checkInteger, checkOptionKeys } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { SetupEvaluator, findMode } from './_internals/setup.js';
 import { buildLogConcaveHat, logConcaveSampler, type LogConcaveHat } from './methods/log-concave.js';
 import { buildRatioRectangle, ratioSampler } from './methods/ratio-of-uniforms.js';
-import { MAX_DISCRETE_TABLE_POINTS, buildDiscreteTable, tableSamplerOf } from './methods/table.js';
-import type { ChosenDiscreteSampler, DiscreteChoice, DiscreteMethod, DiscreteSampler, DiscreteSamplerOptions } from './types.js';
-import { checkDiscreteTarget } from './validate.js';
+import { MAX_DISCRETE_TABLE_POINTS, TABLE_PROBE_MIN_REACH, TABLE_PROBE_REACH, buildDiscreteTable, tableSamplerOf } from './methods/table.js';
+import type { ChosenDiscreteSampler, DiscreteChoice, DiscreteMethod, DiscreteRefusal, DiscreteSampler, DiscreteSamplerOptions } from './types.js';
+import { checkDiscreteTarget, type CheckedDiscreteTarget } from './validate.js';
+import { discreteDraws } from './_internals/draws.js';
+import { newUniversalHat, setUniversalHat, universalDraw } from './methods/universal.js';
 
 /** A table is always chosen when it needs at most this many points. */
 export const DISCRETE_TABLE_MIN_POINTS = 32;
 
 const KNOWN = ['seed', 'stream', 'uniform', 'method', 'expectedDraws', 'maxRejections'] as const;
-const METHODS: readonly string[] = ['auto', 'table', 'log-concave-rejection', 'ratio-of-uniforms'];
+const METHODS: readonly string[] = ['auto', 'table', 'log-concave-rejection', 'ratio-of-uniforms', 'log-concave-universal'];
 
 /**
  * Estimated table size for a log-concave pmf from its hat: the table grows
@@ -90,16 +92,34 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
   if (options?.maxRejections !== undefined) checkInteger(api, 'options.maxRejections', maxRejections, 1, Number.MAX_SAFE_INTEGER);
   const t = checkDiscreteTarget(api, target);
   const u = resolveUniform(api, options);
-  const counters = new Counters();
+  return chooseDiscrete(api, t, u, new Counters(), method as DiscreteMethod | 'auto', expected, maxRejections);
+}
+
+/**
+ * The method choice and setup of {@link discreteSampler}, after the options
+ * are resolved (shared with {@link reusableDiscreteSampler}, which resolves
+ * them once). @internal
+ */
+export function chooseDiscrete(
+  api: string,
+  t: CheckedDiscreteTarget,
+  u: Uniform,
+  counters: Counters,
+  method: DiscreteMethod | 'auto',
+  expected: number,
+  maxRejections: number,
+  minTablePoints: number = DISCRETE_TABLE_MIN_POINTS,
+): ChosenDiscreteSampler {
   const ev = new SetupEvaluator(api, t, counters);
   const lo = t.lower;
   const hi = t.upper;
   const size = hi - lo + 1;
-  const budget = Math.max(DISCRETE_TABLE_MIN_POINTS, Math.min(MAX_DISCRETE_TABLE_POINTS, expected));
+  const budget = Math.max(minTablePoints, Math.min(MAX_DISCRETE_TABLE_POINTS, expected));
   const refused: { method: DiscreteMethod; message: string }[] = [];
   const logPmf = t.logPmf;
-  const done = (inner: DiscreteSampler, m: DiscreteMethod, mode: number, reason: string): ChosenDiscreteSampler => {
-    const choice: DiscreteChoice = { method: m, reason, refused };
+  // the reason is written when it is read: a sampler built for one draw (a Gibbs step) never formats it
+  const done = (inner: DiscreteSampler, m: DiscreteMethod, mode: number, reason: () => string): ChosenDiscreteSampler => {
+    const choice: DiscreteChoice = new LazyChoice(m, reason, refused);
     return {
       choice,
       mode,
@@ -110,16 +130,31 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
       },
     };
   };
-  const table = (m: number | undefined, reason: string): ChosenDiscreteSampler => {
-    const tab = buildDiscreteTable(ev, m, MAX_DISCRETE_TABLE_POINTS);
+  // probe: check the tail hats beyond the edges (the table was not preceded by the log-concave measurement)
+  const table = (m: number | undefined, reason: () => string, probe: boolean): ChosenDiscreteSampler => {
+    const tab = buildDiscreteTable(ev, m, MAX_DISCRETE_TABLE_POINTS, probe);
     let mode = tab.first;
     for (let i = 1; i < tab.logp.length; i++) if (tab.logp[i] > tab.logp[mode - tab.first]) mode = tab.first + i;
     const s = tableSamplerOf(api, tab, logPmf, lo, hi, u, counters, maxRejections);
-    return done(s, 'table', mode, `${reason}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : ', tails beyond drawn by rejection from geometric hats'}`);
+    return done(s, 'table', mode, () => `${reason()}; the table has ${tab.logp.length} points [${tab.first}, ${tab.last}]${Number.isNaN(tab.slopeLeft) && Number.isNaN(tab.slopeRight) ? '' : `, tails beyond drawn by rejection from geometric hats${probe ? ` (each hat checked at 1, 2, 4, ... points beyond its edge up to max(${TABLE_PROBE_MIN_REACH}, ${TABLE_PROBE_REACH} x the edge's distance from the mode); the table grew past every probe above a hat)` : ' (the pmf was log-concave at the measured points)'}`}`);
   };
+  if (method === 'log-concave-universal') {
+    if (t.mode === undefined || !t.logConcave || !t.normalized) {
+      throw new InvalidTargetError(
+        `${api}: method 'log-concave-universal' needs target.mode, target.logConcave = true and target.normalized = true, got mode ${String(t.mode)}, logConcave ${String(t.logConcave)}, normalized ${String(t.normalized)}`,
+      );
+    }
+    const m = t.mode;
+    const hat = newUniversalHat();
+    if (!setUniversalHat(api, hat, m, ev.h(m), lo, hi)) {
+      throw new ShapeViolationError(`${api}: method 'log-concave-universal' needs pmf(mode) >= 2^-40; logPmf(${m}) = ${ev.h(m)}`);
+    }
+    const s = discreteDraws(api, () => universalDraw(api, hat, t, lo, hi, u, counters, maxRejections), counters);
+    return done(s, 'log-concave-universal', m, () => `forced; log-concave pmf summing to at most 1 with mode ${m} (promised by the target): universal hat from pmf(mode) = ${hat.q.toPrecision(4)} alone, hat mass ${(hat.cMass + hat.rMass + hat.lMass).toPrecision(4)}`);
+  }
   if (method === 'table' || (method === 'auto' && size <= budget)) {
     const m = size <= MAX_DISCRETE_TABLE_POINTS ? undefined : findMode(ev, t.mode ?? startOf(lo, hi));
-    return table(m, size <= budget ? `finite support of ${size} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method');
+    return table(m, () => size <= budget ? `finite support of ${size} points <= ${budget} (max(${minTablePoints}, expectedDraws = ${expected})): alias table, O(1) per draw` : 'table forced by options.method', true);
   }
   const m = findMode(ev, t.mode ?? startOf(lo, hi));
   const attempt = <T>(name: DiscreteMethod, f: () => T): T | undefined => {
@@ -136,7 +171,7 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
     if (hat !== undefined) {
       const est = tableEstimate(hat);
       if (method === 'auto' && est <= budget) {
-        const r = attempt('table', () => table(m, `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${DISCRETE_TABLE_MIN_POINTS}, expectedDraws = ${expected}))`));
+        const r = attempt('table', () => table(m, () => `log-concave pmf with mode ${m} whose table is estimated at ${est} points <= ${budget} (max(${minTablePoints}, expectedDraws = ${expected}))`, false));
         if (r !== undefined) return r;
       }
       const s = logConcaveSampler(api, hat, logPmf, lo, hi, u, counters, maxRejections);
@@ -145,7 +180,7 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
         s,
         'log-concave-rejection',
         m,
-        `log-concave at the measured points (mode ${m}, hat centre [${hat.left.edge}, ${hat.right.edge}], hat mass ${area.toPrecision(4)} x pmf(mode)); a table would need about ${est} points > ${budget}`,
+        () => `log-concave at the measured points (mode ${m}, hat centre [${hat.left.edge}, ${hat.right.edge}], hat mass ${area.toPrecision(4)} x pmf(mode)); a table would need about ${est} points > ${budget}`,
       );
     }
   }
@@ -153,13 +188,35 @@ export function discreteSampler(target: DiscreteTarget, options?: DiscreteSample
     const rect = attempt('ratio-of-uniforms', () => buildRatioRectangle(ev, m));
     if (rect !== undefined) {
       const s = ratioSampler(api, rect, logPmf, lo, hi, u, counters, maxRejections);
-      return done(s, 'ratio-of-uniforms', m, `not log-concave${refused.length > 0 ? ` (${refused[0].message})` : ''}; ratio-of-uniforms rectangle found around the mode ${m}`);
+      return done(s, 'ratio-of-uniforms', m, () => `not log-concave${refused.length > 0 ? ` (${refused[0].message})` : ''}; ratio-of-uniforms rectangle found around the mode ${m}`);
     }
   }
   if (method === 'auto' && size <= MAX_DISCRETE_TABLE_POINTS) {
-    return table(m, `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`);
+    return table(m, () => `neither log-concave nor T-concave; finite support of ${size} points <= ${MAX_DISCRETE_TABLE_POINTS}`, true);
   }
   throw new ShapeViolationError(`${api}: no method fits this target: ${refused.map((r) => `${r.method}: ${r.message}`).join('; ')}`);
+}
+
+/** A {@link DiscreteChoice} whose reason is formatted on first read (a prototype getter: cheap to create). */
+class LazyChoice implements DiscreteChoice {
+  readonly method: DiscreteMethod;
+  readonly refused: readonly DiscreteRefusal[];
+  private text: string | undefined;
+  private readonly write: () => string;
+
+  constructor(method: DiscreteMethod, write: () => string, refused: readonly DiscreteRefusal[]) {
+    this.method = method;
+    this.write = write;
+    this.refused = refused;
+  }
+
+  get reason(): string {
+    return (this.text ??= this.write());
+  }
+
+  toJSON(): { method: DiscreteMethod; reason: string; refused: readonly DiscreteRefusal[] } {
+    return { method: this.method, reason: this.reason, refused: this.refused };
+  }
 }
 
 function startOf(lo: number, hi: number): number {

@@ -28,7 +28,7 @@ export interface DiscreteSampler extends Sampler {
 }
 
 /** Names of the discrete methods. */
-export type DiscreteMethod = 'table' | 'log-concave-rejection' | 'ratio-of-uniforms';
+export type DiscreteMethod = 'table' | 'log-concave-rejection' | 'ratio-of-uniforms' | 'log-concave-universal';
 
 /** A method {@link discreteSampler} tried and refused. */
 export interface DiscreteRefusal {

@@ -15,6 +15,9 @@ export interface CheckedDiscreteTarget {
   /** Integer or Infinity. */
   readonly upper: number;
   readonly mode: number | undefined;
+  /** The target's promises (false when not given). */
+  readonly logConcave: boolean;
+  readonly normalized: boolean;
 }
 
 function show(v: unknown): string {
@@ -71,7 +74,11 @@ export function checkDiscreteTarget(api: string, target: DiscreteTarget): Checke
       throw new InvalidTargetError(`${api}: target.mode = ${mode} lies outside the support [${lower}, ${upper}]`);
     }
   }
-  return { logPmf: target.logPmf.bind(target), lower, upper, mode: mode as number | undefined };
+  const lc = target.logConcave as unknown;
+  if (lc !== undefined && typeof lc !== 'boolean') throw new InvalidTargetError(`${api}: target.logConcave must be a boolean when given, got ${show(lc)}`);
+  const nz = target.normalized as unknown;
+  if (nz !== undefined && typeof nz !== 'boolean') throw new InvalidTargetError(`${api}: target.normalized must be a boolean when given, got ${show(nz)}`);
+  return { logPmf: target.logPmf.bind(target), lower, upper, mode: mode as number | undefined, logConcave: lc === true, normalized: nz === true };
 }
 
 /** Evaluates logPmf(k) and throws NonFiniteDensityError (the one check, core/evaluate.ts) on NaN or +Infinity. @internal */

@@ -173,6 +173,14 @@ export function goldenRun(lib: typeof Lib): GoldenResult {
     draws('weightedIndex alias', w, 400);
     put('weightedIndex alias probabilities', w.probabilities());
     draws('weightedIndex inversion', lib.weightedIndexSampler([5, 1, 1, 7, 0.125], { method: 'inversion', seed: 46 }), 400);
+    // a fresh target per draw: universal hat (families) and the automatic choice (the invented rentals law)
+    const step = lib.reusableDiscreteSampler({ seed: 47 });
+    put(
+      'reusableDiscreteSampler fresh targets',
+      Array.from({ length: 300 }, (_, i) => step.sample(i % 3 === 2 ? rentals : i % 3 === 1 ? lib.binomialTarget(20 + i, 0.3) : lib.poissonTarget(0.25 + 40 * i))),
+    );
+    const rs = step.stats;
+    strings['reusableDiscreteSampler fresh targets / stats'] = JSON.stringify([rs.samples, rs.proposals, rs.densityEvaluations, rs.setupEvaluations, step.lastMethod]);
   });
   guard('partitioned', () => {
     const out = lib.partitionedFill((u, own) => lib.tableSampler(lib.normalTarget(0, 1), { ...own }), new Float64Array(1000), 4, 2026);

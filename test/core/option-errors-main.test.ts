@@ -15,6 +15,7 @@ import {
   gammaTarget,
   poissonTarget,
   ratioOfUniformsSampler,
+  reusableDiscreteSampler,
   weightedIndexSampler,
 } from '../../src/index.js';
 
@@ -38,6 +39,22 @@ describe('option errors of the discrete and pole APIs', () => {
     expect(m).toBeInstanceOf(InvalidOptionError);
     expect(m.message).toContain('options.maxRejections must be an integer in [1, 9007199254740991], got 0');
     expect(caught(() => discreteSampler({} as never))).toBeInstanceOf(InvalidTargetError);
+  });
+
+  it('reusableDiscreteSampler: unknown key, bad maxRejections, bad seed and null options are INVALID_OPTION; a bad target is INVALID_TARGET', () => {
+    const e = caught(() => reusableDiscreteSampler({ sed: 1 } as never));
+    expect(e).toBeInstanceOf(InvalidOptionError);
+    expect(e.code).toBe('INVALID_OPTION');
+    expect(e.message).toBe("reusableDiscreteSampler: unknown option 'sed' (known: 'seed', 'stream', 'uniform', 'maxRejections')");
+    const m = caught(() => reusableDiscreteSampler({ maxRejections: 1.5 }));
+    expect(m).toBeInstanceOf(InvalidOptionError);
+    expect(m.message).toContain('reusableDiscreteSampler: options.maxRejections must be an integer in [1, 9007199254740991], got 1.5');
+    expect(caught(() => reusableDiscreteSampler({ seed: '7' as never }))).toBeInstanceOf(InvalidOptionError);
+    expect(caught(() => reusableDiscreteSampler(null as never))).toBeInstanceOf(InvalidOptionError);
+    const step = reusableDiscreteSampler({ seed: 1 });
+    const t = caught(() => step.sample({} as never));
+    expect(t).toBeInstanceOf(InvalidTargetError);
+    expect(t.code).toBe('INVALID_TARGET');
   });
 
   it('weightedIndexSampler: unknown key and bad method are INVALID_OPTION; weights that are not an array are INVALID_TARGET', () => {

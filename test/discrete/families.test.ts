@@ -37,6 +37,11 @@ const bimodalLog = (w: number) => (k: number) =>
   // invented bimodal count law: 0.6 Poisson(3) + 0.4 Poisson(30), unnormalized log-pmf
   k < 0 ? -Infinity : Math.log(0.6 * Math.exp(poissonLogpmf(k, 3)) + w * Math.exp(poissonLogpmf(k, 30)));
 const farTail = (l: number, lo: number): DiscreteTarget => truncateDiscrete(poissonTarget(l), lo, Infinity);
+const deepLog = (w: number) => (k: number) =>
+  // invented count law with a deep valley: (1 − w) Poisson(4) + w Poisson(400); logPmf falls by more than 40 between
+  // the modes, so a table grown from the first mode stops at k = 33 and everything beyond (mass w) is its tail
+  k < 0 ? -Infinity : Math.log((1 - w) * Math.exp(poissonLogpmf(k, 4)) + w * Math.exp(poissonLogpmf(k, 400)));
+const universal: DiscreteSamplerOptions = { method: 'log-concave-universal' };
 
 const cases: Case[] = [
   { name: 'Poisson(0.5)', target: poissonTarget(0.5), twin: poissonTarget(0.52), pmf: pois(0.5), support: [0, Infinity], method: 'table', n: 100_000 },
@@ -84,6 +89,30 @@ const cases: Case[] = [
     support: [0, Infinity],
     method: 'table',
     options: { expectedDraws: 100_000 },
+    n: 100_000,
+  },
+  {
+    // before 0.x the table stopped at 33 and drew nothing beyond (30 % of the mass lost); the probes beyond the edge grow it
+    name: 'deep-valley mixture on [0, ∞), forced table (mass 0.3 beyond the first table edge)',
+    target: { logPmf: deepLog(0.3) },
+    twin: { logPmf: deepLog(0.28) },
+    pmf: normalizedPmf(deepLog(0.3), 0, 1000),
+    support: [0, Infinity],
+    method: 'table',
+    options: { method: 'table' },
+    n: 100_000,
+  },
+  { name: 'Poisson(0.5), universal', target: poissonTarget(0.5), twin: poissonTarget(0.52), pmf: pois(0.5), support: [0, Infinity], method: 'log-concave-universal', options: universal, n: 100_000 },
+  { name: 'Poisson(30), universal', target: poissonTarget(30), twin: poissonTarget(30.4), pmf: pois(30), support: [0, Infinity], method: 'log-concave-universal', options: universal, n: 100_000 },
+  { name: 'Poisson(1e4), universal', target: poissonTarget(1e4), twin: poissonTarget(1e4 + 12), pmf: pois(1e4), support: [0, Infinity], method: 'log-concave-universal', options: universal, n: 100_000 },
+  {
+    name: 'binomial(20, 0.3), universal',
+    target: binomialTarget(20, 0.3),
+    twin: binomialTarget(20, 0.303),
+    pmf: (k) => Math.exp(binomialLogpmf(k, 20, 0.3)),
+    support: [0, 20],
+    method: 'log-concave-universal',
+    options: universal,
     n: 100_000,
   },
   {

@@ -18,12 +18,24 @@ export const MAX_DISCRETE_K = Number.MAX_SAFE_INTEGER;
  */
 export const DISCRETE_LOG_MARGIN = 1e-6;
 
-/** Counted, memoized logPmf for setup; -Infinity outside the support without a call. @internal */
+/** Points kept in the evaluator's small linear cache before it falls back to a Map. @internal */
+const SMALL_CACHE = 24;
+
+/**
+ * Counted, memoized logPmf for setup; -Infinity outside the support without a call.
+ * The first {@link SMALL_CACHE} points live in two short plain arrays
+ * scanned linearly (a fresh sampler for one draw evaluates about ten points;
+ * a Map, or typed arrays with their off-heap buffers, per sampler were a
+ * large part of its setup cost, mostly garbage collection), later ones in a Map.
+ * @internal
+ */
 export class SetupEvaluator {
   readonly api: string;
   readonly t: CheckedDiscreteTarget;
   private readonly counters: Counters;
-  private readonly memo = new Map<number, number>();
+  private readonly keys: number[] = [];
+  private readonly vals: number[] = [];
+  private memo: Map<number, number> | undefined;
 
   constructor(api: string, t: CheckedDiscreteTarget, counters: Counters) {
     this.api = api;
@@ -34,12 +46,21 @@ export class SetupEvaluator {
   /** logPmf(k), checked. */
   h(k: number): number {
     if (k < this.t.lower || k > this.t.upper || Math.abs(k) > MAX_DISCRETE_K) return -Infinity;
-    const c = this.memo.get(k);
-    if (c !== undefined) return c;
+    const keys = this.keys;
+    const n = keys.length;
+    for (let i = 0; i < n; i++) if (keys[i] === k) return this.vals[i];
+    const memo = this.memo;
+    if (memo !== undefined) {
+      const c = memo.get(k);
+      if (c !== undefined) return c;
+    }
     const v = this.t.logPmf(k);
     this.counters.setupEvaluations++;
     checkLogDensity(this.api, k, v);
-    this.memo.set(k, v);
+    if (n < SMALL_CACHE) {
+      keys.push(k);
+      this.vals.push(v);
+    } else (this.memo ??= new Map<number, number>()).set(k, v);
     return v;
   }
 }

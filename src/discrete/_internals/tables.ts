@@ -27,6 +27,27 @@ export const TABLE_UNITS = 4503599627370496; // 2^52
 /** Largest number of entries of a finite table. @internal */
 export const MAX_TABLE_ENTRIES = 1 << 24;
 
+/** Tables up to this many entries build in shared scratch arrays (no user code runs while they are in use). */
+const SCRATCH_MAX = 4096;
+const f64Scratch = [new Float64Array(64), new Float64Array(64)];
+const i32Scratch = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];
+
+/**
+ * A work array of at least n entries (contents undefined): shared scratch
+ * for small tables (a fresh one-draw sampler used to spend much of its setup
+ * allocating and collecting them), a new array beyond {@link SCRATCH_MAX}.
+ */
+function scratchF64(slot: number, n: number): Float64Array {
+  if (n > SCRATCH_MAX) return new Float64Array(n);
+  if (f64Scratch[slot].length < n) f64Scratch[slot] = new Float64Array(SCRATCH_MAX);
+  return f64Scratch[slot];
+}
+function scratchI32(slot: number, n: number): Int32Array {
+  if (n > SCRATCH_MAX) return new Int32Array(n);
+  if (i32Scratch[slot].length < n) i32Scratch[slot] = new Int32Array(SCRATCH_MAX);
+  return i32Scratch[slot];
+}
+
 /**
  * Quantizes non-negative finite weights to integer units summing to
  * {@link TABLE_UNITS} (see the module remarks). `name(i)` names entry i in
@@ -60,7 +81,7 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
   s += c;
   const scale = TABLE_UNITS / s;
   const m = new Float64Array(n);
-  const frac = new Float64Array(n);
+  const frac = scratchF64(0, n);
   let total = 0;
   for (let i = 0; i < n; i++) {
     const t = (w[i] / max) * scale;
@@ -71,11 +92,8 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
   }
   let deficit = TABLE_UNITS - total; // exact: total < 2^53
   if (deficit !== 0) {
-    const order = new Int32Array(n);
-    for (let i = 0; i < n; i++) order[i] = i;
-    const idx = Array.from(order);
+    const idx = remainderOrder(frac, n, deficit > 0);
     if (deficit > 0) {
-      idx.sort((a, b) => frac[b] - frac[a] || a - b);
       for (let pass = 0; deficit > 0 && pass < 64; pass++) {
         for (let j = 0; j < n && deficit > 0; j++) {
           const i = idx[j];
@@ -86,7 +104,6 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
         }
       }
     } else {
-      idx.sort((a, b) => frac[a] - frac[b] || a - b);
       for (let pass = 0; deficit < 0 && pass < 64; pass++) {
         for (let j = 0; j < n && deficit < 0; j++) {
           const i = idx[j];
@@ -102,6 +119,34 @@ export function quantizeWeights(api: string, w: ArrayLike<number>, name: (i: num
     }
   }
   return m;
+}
+
+/**
+ * Indices ordered by remainder (descending when `desc`, else ascending), ties
+ * by index: insertion sort on an Int32Array for short tables (no array of
+ * boxed numbers, no comparator closure), the built-in sort beyond. Both give
+ * the same order (a total order: remainder, then index).
+ */
+function remainderOrder(frac: Float64Array, n: number, desc: boolean): Int32Array {
+  const idx = scratchI32(0, n);
+  for (let i = 0; i < n; i++) idx[i] = i;
+  if (n <= 64) {
+    for (let i = 1; i < n; i++) {
+      const x = idx[i];
+      const f = frac[x];
+      let j = i - 1;
+      while (j >= 0 && (desc ? frac[idx[j]] < f : frac[idx[j]] > f)) {
+        idx[j + 1] = idx[j];
+        j--;
+      }
+      idx[j + 1] = x;
+    }
+    return idx;
+  }
+  const sorted = Array.from(idx.subarray(0, n));
+  sorted.sort(desc ? (a, b) => frac[b] - frac[a] || a - b : (a, b) => frac[a] - frac[b] || a - b);
+  idx.set(sorted);
+  return idx;
 }
 
 /** An alias table over quantized units. @internal */
@@ -127,12 +172,13 @@ export function buildAlias(units: Float64Array): AliasTable {
   while (pow(2, bits) < n) bits++;
   const K = pow(2, bits);
   const C = TABLE_UNITS / K;
-  const mass = new Float64Array(K);
+  const mass = scratchF64(1, K);
   mass.set(units);
+  mass.fill(0, n, K);
   const P = new Float64Array(K);
   const A = new Int32Array(K);
-  const small = new Int32Array(K);
-  const large = new Int32Array(K);
+  const small = scratchI32(1, K);
+  const large = scratchI32(2, K);
   let ns = 0;
   let nl = 0;
   for (let j = 0; j < K; j++) {

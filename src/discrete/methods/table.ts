@@ -23,7 +23,7 @@ import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, ShapeViolationError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
-import { buildAlias, quantizeWeights } from '../_internals/tables.js';
+import { TABLE_UNITS, buildAlias, quantizeWeights } from '../_internals/tables.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
 import type { DiscreteSampler } from '../types.js';
 import { checkDiscreteFillArray, int32RangeError } from '../validate.js';
@@ -48,7 +48,7 @@ export interface DiscreteTable {
 }
 
 /** Builds the table (setup only). @internal */
-export function buildDiscreteTable(ev: SetupEvaluator, m: number | undefined, maxPoints: number): DiscreteTable {
+export function buildDiscreteTable(ev: SetupEvaluator, m: number | undefined, maxPoints: number, probe: boolean): DiscreteTable {
   const api = ev.api;
   const { lower: lo, upper: hi } = ev.t;
   if (hi - lo + 1 <= maxPoints) {
@@ -62,6 +62,7 @@ export function buildDiscreteTable(ev: SetupEvaluator, m: number | undefined, ma
   const grow = (dir: 1 | -1): { edge: number; slope: number } => {
     const end = dir > 0 ? hi : lo;
     let k = m;
+    let past = m; // an edge must lie beyond this point (moved out by a failed probe)
     for (let count = 0; ; count++) {
       if (k === end) return { edge: k, slope: NaN };
       if (count > maxPoints) {
@@ -71,8 +72,10 @@ export function buildDiscreteTable(ev: SetupEvaluator, m: number | undefined, ma
       if (hk > max) max = hk;
       const h1 = ev.h(k - dir);
       const h2 = ev.h(k - 2 * dir);
-      if (hk < max - TABLE_LOG_DROP && hk < h1 && hk - h1 <= h1 - h2 + DISCRETE_LOG_MARGIN && Math.abs(k - m) >= 2) {
-        return { edge: k, slope: hk - h1 };
+      if (hk < max - TABLE_LOG_DROP && hk < h1 && hk - h1 <= h1 - h2 + DISCRETE_LOG_MARGIN && Math.abs(k - m) >= 2 && dir * (k - past) > 0) {
+        const bad = probe ? probeTail(ev, m, k, hk, hk - h1, dir, end) : undefined;
+        if (bad === undefined) return { edge: k, slope: hk - h1 };
+        past = bad; // mass above the tail hat at `bad`: grow the table past it
       }
       k += dir;
     }
@@ -83,6 +86,47 @@ export function buildDiscreteTable(ev: SetupEvaluator, m: number | undefined, ma
   const logp = new Float64Array(n);
   for (let i = 0; i < n; i++) logp[i] = ev.h(left.edge + i);
   return { first: left.edge, last: right.edge, logp, slopeRight: right.slope, slopeLeft: left.slope };
+}
+
+/**
+ * Gives tail entry i at least one unit when its weight is positive and
+ * returns rho = min(1, exact share / assigned share) (1 for no tail).
+ */
+function tailShare(w: Float64Array, units: Float64Array, i: number): number {
+  if (!(w[i] > 0)) return 1;
+  if (units[i] === 0) {
+    let big = 0;
+    for (let j = 1; j < units.length; j++) if (units[j] > units[big]) big = j;
+    units[big] -= 1;
+    units[i] = 1;
+  }
+  let sum = 0;
+  for (let j = 0; j < w.length; j++) sum += w[j];
+  return Math.min(1, ((w[i] / sum) * TABLE_UNITS) / units[i]);
+}
+
+/** Probes beyond a table edge reach this many times the edge's distance from the mode (at least {@link TABLE_PROBE_MIN_REACH}). @internal */
+export const TABLE_PROBE_REACH = 64;
+/** Smallest reach of the probes beyond a table edge, in points. @internal */
+export const TABLE_PROBE_MIN_REACH = 1024;
+
+/**
+ * Checks the geometric tail hat beyond a candidate edge b at the points
+ * b ± 1, 2, 4, ... up to the reach (a black-box pmf can always hide mass
+ * between probes; the reach and spacing are the assumption, stated in the
+ * sampler's reason). Returns the first probe where logPmf is above the hat
+ * (the table must grow past it), or undefined.
+ * @internal
+ */
+function probeTail(ev: SetupEvaluator, m: number, b: number, hb: number, slope: number, dir: 1 | -1, end: number): number | undefined {
+  const reach = Math.max(TABLE_PROBE_MIN_REACH, TABLE_PROBE_REACH * Math.abs(b - m));
+  for (let d = 1; d <= reach; d *= 2) {
+    const k = b + dir * d;
+    if (dir > 0 ? k > end : k < end) return undefined;
+    if (Math.abs(k) > MAX_DISCRETE_K) return undefined;
+    if (ev.h(k) > hb + d * slope + DISCRETE_LOG_MARGIN) return k;
+  }
+  return undefined;
 }
 
 /** The sampler over a {@link DiscreteTable}. @internal */
@@ -108,6 +152,11 @@ export function tableSamplerOf(
   if (!Number.isNaN(sR)) w[n] = exp(hR - max + sR) / -expm1(sR);
   if (!Number.isNaN(sL)) w[n + 1] = exp(hL - max + sL) / -expm1(sL);
   const units = quantizeWeights(api, w, (i) => (i < n ? `the weight of ${first + i}` : 'a tail weight'));
+  // A tail is never dropped: a tail weight rounded to 0 units gets 1 (taken from the largest entry), and a
+  // tail drawn more often than its weight's exact share is accepted with the ratio rho <= 1 on top of the hat
+  // test, so that tail points keep their probability relative to the table points (up to rounding).
+  const rhoR = tailShare(w, units, n);
+  const rhoL = tailShare(w, units, n + 1);
   const t = buildAlias(units);
   const K = t.cells;
   const C = t.cellUnits;
@@ -126,7 +175,7 @@ export function tableSamplerOf(
     counters.densityEvaluations++;
     checkLogDensity(api, k, hk);
     if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
-    return v <= exp(hk - g) ? k : NaN;
+    return v <= (right ? rhoR : rhoL) * exp(hk - g) ? k : NaN;
   };
   const draw = (): number => {
     for (let rej = 0; rej < maxRejections; rej++) {

@@ -37,6 +37,8 @@ export function binomialTarget(n: number, p: number): DiscreteFamilyTarget {
     logPmf: (k: number): number => binomialLogpmf(k, n, p),
     support: [0, n],
     mode: Math.min(n, Math.floor((n + 1) * p)),
+    logConcave: true,
+    normalized: true,
     cdf: (k: number): number => binomialCdf(k, n, p),
   };
 }

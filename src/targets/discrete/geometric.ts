@@ -31,6 +31,8 @@ export function geometricTarget(p: number): DiscreteFamilyTarget {
     logPmf: (k: number): number => geometricLogpmf(k, p),
     support: [0, Infinity],
     mode: 0,
+    logConcave: true,
+    normalized: true,
     cdf: (k: number): number => geometricCdf(k, p),
   };
 }

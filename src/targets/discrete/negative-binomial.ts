@@ -41,6 +41,8 @@ export function negativeBinomialTarget(r: number, p: number): DiscreteFamilyTarg
     logPmf: (k: number): number => negativeBinomialLogpmf(k, r, p),
     support: [0, Infinity],
     mode: r > 1 ? Math.floor(((r - 1) * (1 - p)) / p) : 0,
+    logConcave: r >= 1,
+    normalized: true,
     cdf: (k: number): number => negativeBinomialCdf(k, r, p),
   };
 }

@@ -41,6 +41,8 @@ export function poissonTarget(mean: number): DiscreteFamilyTarget {
     logPmf: (k: number): number => poissonLogpmf(k, mean),
     support: [0, Infinity],
     mode: Math.floor(mean),
+    logConcave: true,
+    normalized: true,
     cdf: mean < POISSON_SERIES_MIN_MEAN ? (k: number): number => poissonCdf(k, mean) : (k: number): number => (k < 0 ? 0 : upperRegularizedGamma(Math.floor(k) + 1, mean)),
   };
 }

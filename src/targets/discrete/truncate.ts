@@ -20,7 +20,8 @@ export interface TruncatedDiscreteTarget extends DiscreteTarget {
  *
  * @remarks
  * The logPmf is the target's inside the new support and `-Infinity`
- * outside; it is not renormalized. The mode hint is the target's clamped
+ * outside; it is not renormalized (so `normalized` is not passed on, while
+ * `logConcave` is). The mode hint is the target's clamped
  * into the new support (the mode of the truncation for a unimodal pmf).
  * The cdf, when the target has one, is (F(k) − F(lo − 1)) / (F(hi) −
  * F(lo − 1)), given only when that mass is at least 1e-6 (below, the
@@ -59,6 +60,8 @@ export function truncateDiscrete(target: DiscreteTarget, lower: number, upper: n
     support: [lo, hi],
     mode: Math.min(hi, Math.max(lo, m0)),
   };
+  // a log-concave pmf stays log-concave on an interval; `normalized` is not passed on (the remaining mass may be tiny)
+  if (base.logConcave) out.logConcave = true;
   const F0 = target.cdf;
   if (typeof F0 === 'function') {
     const F = F0.bind(target);
