@@ -89,7 +89,7 @@ export function evalLogPmf(api: string, logPmf: (k: number) => number, k: number
 /** Throws unless `out` is a Float64Array or an Int32Array. @internal */
 export function checkDiscreteFillArray(api: string, out: unknown): void {
   if (!(out instanceof Float64Array) && !(out instanceof Int32Array)) {
-    throw new InvalidOptionError(`${api}.fill: out must be a Float64Array or an Int32Array, got ${Object.prototype.toString.call(out)}`);
+    throw new InvalidTargetError(`${api}.fill: out must be a Float64Array or an Int32Array, got ${Object.prototype.toString.call(out)}`);
   }
 }
 

@@ -214,7 +214,7 @@ describe('discreteSampler', () => {
     expect(() => discreteSampler(poissonTarget(3), { method: 'alias' as never })).toThrow(InvalidOptionError);
     expect(() => discreteSampler(poissonTarget(3), { expectedDraws: -1 })).toThrow(InvalidOptionError);
     expect(() => discreteSampler(poissonTarget(3), { sed: 1 } as never)).toThrow(/unknown option 'sed'/);
-    expect(() => discreteSampler(poissonTarget(3)).fill([] as never)).toThrow(InvalidOptionError);
+    expect(() => discreteSampler(poissonTarget(3)).fill([] as never)).toThrow(InvalidTargetError) // an argument, not an option: INVALID_TARGET like tableSampler.fill;
     const big = { logPmf: (k: number) => -Math.abs(k - 3e9) / 10, support: [0, Infinity] as const, mode: 3e9 };
     expect(() => discreteSampler(big, { seed: 1 }).fill(new Int32Array(2))).toThrow(/does not fit an Int32Array/);
   });

@@ -165,7 +165,7 @@ describe('weightedIndexSampler', () => {
     expect(() => weightedIndexSampler(['1' as unknown as number])).toThrow(/got '1'/);
     expect(() => weightedIndexSampler([1], { method: 'walker' as never })).toThrow(InvalidOptionError);
     expect(() => weightedIndexSampler([1], { sed: 1 } as never)).toThrow(/unknown option 'sed'/);
-    expect(() => weightedIndexSampler([1, 2]).fill([] as never)).toThrow(InvalidOptionError);
+    expect(() => weightedIndexSampler([1, 2]).fill([] as never)).toThrow(InvalidTargetError) // an argument, not an option: INVALID_TARGET like tableSampler.fill;
     fc.assert(
       fc.property(fc.array(fc.oneof(fc.double(), fc.constant(-0.5)), { minLength: 1, maxLength: 20 }), (w) => {
         const bad = w.some((x) => !(x >= 0) || x === Infinity) || w.every((x) => x === 0);
