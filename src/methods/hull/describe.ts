@@ -15,7 +15,7 @@ export function describeHull(h: Hull): EnvelopeDescription {
   const pieces: EnvelopePiece[] = [];
   const areas: number[] = [];
   for (let j = 0; j < n; j++) {
-    const la = h.logArea[j] + h.ref;
+    const la = h.pieceLogArea(j) + h.ref;
     pieces.push({
       lower: h.lo[j],
       upper: h.hi[j],

@@ -10,7 +10,7 @@ import { belowChord, shapeError, shapeName, transformedTolerance } from '../enve
 import { GuideTable } from '../envelope/guide-table.js';
 import type { HullView } from '../envelope/hull-view.js';
 import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
-import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
+import { FLAT_LIMIT, T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -59,10 +59,10 @@ export class Hull implements HullView {
   readonly api: string;
   /** {@link T_LOG} or {@link T_INV_SQRT}. */
   readonly kind: number;
-  /** Tangent construction (true) or secant construction (false). */
-  readonly tangent: boolean;
-  /** Target functions. */
-  readonly target: HullTarget;
+  /** Tangent construction (true) or secant construction (false); changed only by {@link Hull.reset}. */
+  tangent: boolean;
+  /** Target functions; changed only by {@link Hull.reset}. */
+  target: HullTarget;
   /** Reference log height. */
   ref: number;
   /** Effective lower end of the support. */
@@ -103,8 +103,9 @@ export class Hull implements HullView {
   rate!: Float64Array; // |slope|
   inversion!: Float64Array; // inversion constant
   highValue!: Float64Array; // line value at the high end
-  logArea!: Float64Array; // relative log area
-  area!: Float64Array; // relative area
+  area!: Float64Array; // relative area (the log area is computed from highValue, rate and width where needed: describeHull)
+  /** The 15 piece arrays, in the order above (shifted together by {@link Hull.insert}). */
+  private pieceArrays: Float64Array[] = [];
 
   /**
    * @param api - API name for messages
@@ -138,8 +139,8 @@ export class Hull implements HullView {
    */
   private allocate(cap: number): void {
     const old = this.cap;
-    // 5 touch-point arrays, 17 piece arrays and the guide table's cumulative areas (doubles), then its guide (int32)
-    const doubles = 5 * cap + 18 * 2 * cap;
+    // 5 touch-point arrays, 15 piece arrays and the guide table's cumulative areas (doubles), then its guide (int32)
+    const doubles = 5 * cap + 16 * 2 * cap;
     const buffer = new ArrayBuffer(8 * doubles + 4 * 2 * cap);
     const store = new Float64Array(buffer, 0, doubles);
     let off = 0;
@@ -171,12 +172,37 @@ export class Hull implements HullView {
     this.rate = copy(this.rate, p, n);
     this.inversion = copy(this.inversion, p, n);
     this.highValue = copy(this.highValue, p, n);
-    this.logArea = copy(this.logArea, p, n);
     this.area = copy(this.area, p, n);
+    this.pieceArrays = [this.lo, this.hi, this.lineAnchor, this.lineValue, this.lineSlope, this.squeezeAnchor, this.squeezeValue, this.squeezeSlope, this.highEnd, this.direction, this.width, this.rate, this.inversion, this.highValue, this.area];
     // the guide table is rebuilt from `area` before the next draw (dirty), so its old contents need not be kept
     this.guideTable.useStorage(store.subarray(off, off + p), new Int32Array(buffer, 8 * doubles, p));
     this.dirty = true;
     this.cap = cap;
+  }
+
+  /**
+   * Empties the hull for a new target, keeping its storage (at least `cap`
+   * touch points): the reuse path of `conditionalSampler`. Setup then
+   * inserts the new touch points as for a fresh hull.
+   * @param target - target functions
+   * @param tangent - tangent (true) or secant (false) construction
+   * @param lower - effective lower end
+   * @param upper - effective upper end
+   * @param ref - reference log height
+   * @param cap - touch points the setup needs room for
+   */
+  reset(target: HullTarget, tangent: boolean, lower: number, upper: number, ref: number, cap: number): this {
+    this.target = target;
+    this.tangent = tangent;
+    this.lower = lower;
+    this.upper = upper;
+    this.ref = ref;
+    this.k = 0;
+    this.maxK = cap;
+    this.derivativeEvaluations = 0;
+    this.dirty = true;
+    if (cap > this.cap) this.allocate(cap);
+    return this;
   }
 
   /** Name of the shape assumption, for messages. */
@@ -302,7 +328,24 @@ export class Hull implements HullView {
     // a line rising towards an infinite end (or flat on an infinite piece) is not integrable
     let th = hx === Infinity || hx === -Infinity || !(sl === sl) ? Infinity : at + sl * (hx - ax);
     if (!(th === th)) th = Infinity;
-    const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
+    let q: number;
+    let area: number;
+    if (th === Infinity) {
+      q = NaN;
+      area = Infinity;
+    } else if (this.kind === T_LOG && w > 0 && th > -Infinity && th < 700 && s * w >= FLAT_LIMIT) {
+      // the common case, with pieceLogArea's arithmetic (the same bits) and expm1 computed once for both
+      if (w === Infinity) {
+        q = 1;
+        area = Math.exp(th - Math.log(s));
+      } else {
+        q = -Math.expm1(-s * w);
+        area = Math.exp(th + Math.log(q) - Math.log(s));
+      }
+    } else {
+      q = pieceConstant(this.kind, th, s, w);
+      area = Math.exp(pieceLogArea(this.kind, th, s, w));
+    }
     this.lo[j] = lo;
     this.hi[j] = hi;
     this.lineAnchor[j] = ax;
@@ -316,9 +359,14 @@ export class Hull implements HullView {
     this.width[j] = w;
     this.rate[j] = s;
     this.highValue[j] = th;
-    this.inversion[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
-    this.logArea[j] = la;
-    this.area[j] = Math.exp(la);
+    this.inversion[j] = q;
+    this.area[j] = area;
+  }
+
+  /** Relative log area of piece j (as {@link pieceLogArea}; `+Infinity` for a piece that is not integrable). */
+  pieceLogArea(j: number): number {
+    const th = this.highValue[j];
+    return th === Infinity ? Infinity : pieceLogArea(this.kind, th, this.rate[j], this.width[j]);
   }
 
   private setInvalid(j: number, lo: number, hi: number): void {
@@ -561,13 +609,15 @@ export class Hull implements HullView {
    * (ignored by the secant construction) — checks the shape against its
    * neighbours and rebuilds only the pieces that depend on it.
    * @param grow - allow the arrays to grow (setup); otherwise the point is skipped at `maxK`
+   * @param build - rebuild the pieces that depend on the point (default); false for a batch of
+   * setup points of finite log-density, after which the caller calls {@link Hull.rebuildAll}
    * @returns true when the point was used (a new touch point, or a point of
    * density 0 outside the touch points, to which the effective support was
    * shrunk); false when it was skipped (duplicate, capacity reached, or too
    * low under inverse-sqrt)
    * @throws {@link ShapeViolationError} when the new point contradicts the shape assumption
    */
-  insert(x: number, l: number, g: number, grow: boolean): boolean {
+  insert(x: number, l: number, g: number, grow: boolean, build = true): boolean {
     const k = this.k;
     const tx = this.touchX;
     if (l === -Infinity) {
@@ -623,20 +673,32 @@ export class Hull implements HullView {
     } else if (!grow && k >= this.maxK) {
       return false;
     }
-    // shift touch points
-    const n = 2 * k;
+    // shift touch points and pieces (loops: for the few points of a Gibbs step a typed-array copyWithin call costs more than the moves)
     if (p < k) {
-      this.touchX.copyWithin(p + 1, p, k);
-      this.touchLogDensity.copyWithin(p + 1, p, k);
-      this.touchDerivative.copyWithin(p + 1, p, k);
-      this.touchValue.copyWithin(p + 1, p, k);
-      this.touchSlope.copyWithin(p + 1, p, k);
+      const a0 = this.touchX;
+      const a1 = this.touchLogDensity;
+      const a2 = this.touchDerivative;
+      const a3 = this.touchValue;
+      const a4 = this.touchSlope;
+      for (let q = k; q > p; q--) {
+        a0[q] = a0[q - 1];
+        a1[q] = a1[q - 1];
+        a2[q] = a2[q - 1];
+        a3[q] = a3[q - 1];
+        a4[q] = a4[q - 1];
+      }
     }
-    // shift pieces: old pieces [1 + 2p, 2k) move right by 2
-    const from = 1 + 2 * p;
-    if (k > 0 && from < n) {
-      const arrays = [this.lo, this.hi, this.lineAnchor, this.lineValue, this.lineSlope, this.squeezeAnchor, this.squeezeValue, this.squeezeSlope, this.highEnd, this.direction, this.width, this.rate, this.inversion, this.highValue, this.logArea, this.area];
-      for (let q = 0; q < arrays.length; q++) arrays[q].copyWithin(from + 2, from, n);
+    if (build) {
+      // old pieces [1 + 2p, 2k) move right by 2
+      const n = 2 * k;
+      const from = 1 + 2 * p;
+      if (k > 0 && from < n) {
+        const arrays = this.pieceArrays;
+        for (let q = 0; q < arrays.length; q++) {
+          const arr = arrays[q];
+          for (let r = n - 1; r >= from; r--) arr[r + 2] = arr[r];
+        }
+      }
     }
     this.touchX[p] = x;
     this.touchLogDensity[p] = l;
@@ -645,6 +707,7 @@ export class Hull implements HullView {
     this.touchSlope[p] = sNew;
     this.k = k + 1;
     const kk = this.k;
+    if (!build) return true;
     // rebuild the intervals that depend on the new point, and the tails
     const i0 = Math.max(0, p - (this.tangent ? 1 : 2));
     const i1 = Math.min(kk - 2, p + (this.tangent ? 0 : 1));
