@@ -10,6 +10,7 @@ import type { Hull } from './hull.js';
 
 /** Builds the description of a hull. @internal */
 export function describeHull(h: Hull): EnvelopeDescription {
+  h.flush();
   const k = h.k;
   const n = 2 * k;
   const pieces: EnvelopePiece[] = [];

@@ -79,6 +79,14 @@ export class Hull implements HullView {
   derivativeEvaluations = 0;
   /** Guide table over the pieces. */
   readonly guideTable: GuideTable;
+  /**
+   * Piece areas as e^tH·q/sig (differs from e^(pieceLogArea) in the last bits only): set by
+   * {@link Hull.reset} for a warm-started hull; false for a fresh hull, whose areas (and so the
+   * tables built from it) keep their bits.
+   */
+  quickAreas = false;
+  /** Touch point whose pieces a deferred insertion has not built yet, or −1 ({@link Hull.insertDeferred}). */
+  pending = -1;
   /** True when the guide table must be rebuilt before the next draw. */
   dirty = true;
 
@@ -190,14 +198,17 @@ export class Hull implements HullView {
    * @param upper - effective upper end
    * @param ref - reference log height
    * @param cap - touch points the setup needs room for
+   * @param quickAreas - see {@link Hull.quickAreas}
    */
-  reset(target: HullTarget, tangent: boolean, lower: number, upper: number, ref: number, cap: number): this {
+  reset(target: HullTarget, tangent: boolean, lower: number, upper: number, ref: number, cap: number, quickAreas: boolean): this {
+    this.quickAreas = quickAreas;
     this.target = target;
     this.tangent = tangent;
     this.lower = lower;
     this.upper = upper;
     this.ref = ref;
     this.k = 0;
+    this.pending = -1;
     this.maxK = cap;
     this.derivativeEvaluations = 0;
     this.dirty = true;
@@ -334,13 +345,14 @@ export class Hull implements HullView {
       q = NaN;
       area = Infinity;
     } else if (this.kind === T_LOG && w > 0 && th > -Infinity && th < 700 && s * w >= FLAT_LIMIT) {
-      // the common case, with pieceLogArea's arithmetic (the same bits) and expm1 computed once for both
+      // the common case: expm1 computed once for both; with `quickAreas` e^tH·q/sig (two transcendental
+      // calls instead of four), else pieceLogArea's arithmetic (the same bits as the description's log area)
       if (w === Infinity) {
         q = 1;
-        area = Math.exp(th - Math.log(s));
+        area = this.quickAreas ? Math.exp(th) / s : Math.exp(th - Math.log(s));
       } else {
         q = -Math.expm1(-s * w);
-        area = Math.exp(th + Math.log(q) - Math.log(s));
+        area = this.quickAreas ? (Math.exp(th) * q) / s : Math.exp(th + Math.log(q) - Math.log(s));
       }
     } else {
       q = pieceConstant(this.kind, th, s, w);
@@ -611,13 +623,15 @@ export class Hull implements HullView {
    * @param grow - allow the arrays to grow (setup); otherwise the point is skipped at `maxK`
    * @param build - rebuild the pieces that depend on the point (default); false for a batch of
    * setup points of finite log-density, after which the caller calls {@link Hull.rebuildAll}
+   * @param deferred - with build false: build the pieces at the next {@link Hull.flush} instead
    * @returns true when the point was used (a new touch point, or a point of
    * density 0 outside the touch points, to which the effective support was
    * shrunk); false when it was skipped (duplicate, capacity reached, or too
    * low under inverse-sqrt)
    * @throws {@link ShapeViolationError} when the new point contradicts the shape assumption
    */
-  insert(x: number, l: number, g: number, grow: boolean, build = true): boolean {
+  insert(x: number, l: number, g: number, grow: boolean, build = true, deferred = false): boolean {
+    if (this.pending >= 0) this.flush();
     const k = this.k;
     const tx = this.touchX;
     if (l === -Infinity) {
@@ -673,7 +687,7 @@ export class Hull implements HullView {
     } else if (!grow && k >= this.maxK) {
       return false;
     }
-    // shift touch points and pieces (loops: for the few points of a Gibbs step a typed-array copyWithin call costs more than the moves)
+    // shift touch points (loops, as in placePieces)
     if (p < k) {
       const a0 = this.touchX;
       const a1 = this.touchLogDensity;
@@ -688,32 +702,59 @@ export class Hull implements HullView {
         a4[q] = a4[q - 1];
       }
     }
-    if (build) {
-      // old pieces [1 + 2p, 2k) move right by 2
-      const n = 2 * k;
-      const from = 1 + 2 * p;
-      if (k > 0 && from < n) {
-        const arrays = this.pieceArrays;
-        for (let q = 0; q < arrays.length; q++) {
-          const arr = arrays[q];
-          for (let r = n - 1; r >= from; r--) arr[r + 2] = arr[r];
-        }
-      }
-    }
     this.touchX[p] = x;
     this.touchLogDensity[p] = l;
     this.touchDerivative[p] = g;
     this.touchValue[p] = y;
     this.touchSlope[p] = sNew;
     this.k = k + 1;
+    this.dirty = true;
+    if (build) this.placePieces(p);
+    else if (deferred) this.pending = p;
+    return true;
+  }
+
+  /**
+   * Inserts an evaluated candidate as {@link Hull.insert} does (checks
+   * included, at once) but builds its pieces only when they are next needed
+   * ({@link Hull.flush}, called by the kernel before a proposal and by the
+   * description): after the last draw wanted from a target the rebuild is
+   * never paid for. The pieces are the same as with an immediate insertion.
+   */
+  insertDeferred(x: number, l: number, g: number): boolean {
+    return this.insert(x, l, g, false, false, true);
+  }
+
+  /** Builds the pieces of a deferred insertion, if any. */
+  flush(): void {
+    const p = this.pending;
+    if (p < 0) return;
+    this.pending = -1;
+    this.placePieces(p);
+  }
+
+  /** Shifts the pieces after touch point p (just inserted) and rebuilds the ones that depend on it. */
+  private placePieces(p: number): void {
     const kk = this.k;
-    if (!build) return true;
+    const k = kk - 1;
+    // old pieces [1 + 2p, 2k) move right by 2 (loops: for the few points of a Gibbs step a copyWithin call costs more than the moves)
+    const n = 2 * k;
+    const from = 1 + 2 * p;
+    if (k > 0 && from < n) {
+      const arrays = this.pieceArrays;
+      for (let q = 0; q < arrays.length; q++) {
+        const arr = arrays[q];
+        for (let r = n - 1; r >= from; r--) arr[r + 2] = arr[r];
+      }
+    }
     // rebuild the intervals that depend on the new point, and the tails
     const i0 = Math.max(0, p - (this.tangent ? 1 : 2));
     const i1 = Math.min(kk - 2, p + (this.tangent ? 0 : 1));
     for (let i = i0; i <= i1; i++) this.buildInterval(i);
-    this.buildTails();
-    return true;
+    // a tail depends on its end point (tangents) or on the chord of the two end points (secants): rebuilt only
+    // when the new point is one of those; otherwise the shift above has moved it unchanged
+    const reach = this.tangent ? 0 : 1;
+    if (p <= reach || p >= kk - 1 - reach) this.buildTails();
   }
 
   /** Largest relative log height of the hull over pieces of positive width. */

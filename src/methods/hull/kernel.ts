@@ -69,7 +69,10 @@ export function hullFill(
     for (; i < n; i++) {
       let rejections = 0;
       for (;;) {
-        if (h.dirty) h.buildGuide();
+        if (h.dirty) {
+          h.flush();
+          h.buildGuide();
+        }
         proposals++;
         const u1 = next(blk);
         let j = guide[(u1 * gt.size) | 0];
@@ -158,5 +161,5 @@ function adapt(h: Hull, x: number, lf: number): void {
     if (g !== g || typeof g !== 'number') nonFiniteDerivative(h.api, x, g);
     if (g === Infinity || g === -Infinity) return;
   }
-  h.insert(x, lf, g, false);
+  h.insertDeferred(x, lf, g);
 }

@@ -186,7 +186,7 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
   }
   const cap = Math.max(Math.floor(maxPieces / 2), nUsable) + 4;
   const fns = { logDensity: logf, dLogDensity: dlogf };
-  const hull = reuse === undefined ? new Hull(api, kind, tangent, fns, t.lower, t.upper, ref, cap) : reuse.hull.reset(fns, tangent, t.lower, t.upper, ref, cap);
+  const hull = reuse === undefined ? new Hull(api, kind, tangent, fns, t.lower, t.upper, ref, cap) : reuse.hull.reset(fns, tangent, t.lower, t.upper, ref, cap, reuse.start !== undefined);
   const next = new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1);
   // the start points first without pieces, then every piece once (the same hull as inserting them one by one)
   for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true, false);
