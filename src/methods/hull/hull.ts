@@ -11,6 +11,7 @@ import { GuideTable } from '../envelope/guide-table.js';
 import type { HullView } from '../envelope/hull-view.js';
 import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
 import { FLAT_LIMIT, T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
+import { exp, expm1, log } from '../../vendor/math.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -349,14 +350,14 @@ export class Hull implements HullView {
       // calls instead of four), else pieceLogArea's arithmetic (the same bits as the description's log area)
       if (w === Infinity) {
         q = 1;
-        area = this.quickAreas ? Math.exp(th) / s : Math.exp(th - Math.log(s));
+        area = this.quickAreas ? exp(th) / s : exp(th - log(s));
       } else {
-        q = -Math.expm1(-s * w);
-        area = this.quickAreas ? (Math.exp(th) * q) / s : Math.exp(th + Math.log(q) - Math.log(s));
+        q = -expm1(-s * w);
+        area = this.quickAreas ? (exp(th) * q) / s : exp(th + log(q) - log(s));
       }
     } else {
       q = pieceConstant(this.kind, th, s, w);
-      area = Math.exp(pieceLogArea(this.kind, th, s, w));
+      area = exp(pieceLogArea(this.kind, th, s, w));
     }
     this.lo[j] = lo;
     this.hi[j] = hi;

@@ -7,6 +7,7 @@ import { maximizeLog } from '../../bounds/maximize.js';
 import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { CheckedTarget } from '../../core/validate.js';
+import { exp, log, pow } from '../../vendor/math.js';
 
 /**
  * Absolute part of the safety margin of every bound, in log space. Each
@@ -165,13 +166,13 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const hp = (x: number): number => {
       if (!(x > s)) return -Infinity;
       const v = lf(x);
-      return v === -Infinity ? -Infinity : Math.log(x - s) + k * (v - LM);
+      return v === -Infinity ? -Infinity : log(x - s) + k * (v - LM);
     };
     const r = sideSup(api, hp, a, upper, s + scale, scale);
     if (r !== undefined) {
       if (r.rising && upper === Infinity) throw tailError(api, lf, power, s, scale, 1);
       logVMax = r.value + margin(r.value);
-      if (Number.isFinite(upper)) logVMax = Math.min(logVMax, Math.log(upper - s));
+      if (Number.isFinite(upper)) logVMax = Math.min(logVMax, log(upper - s));
     }
   }
   let logVMinAbs = -Infinity;
@@ -180,13 +181,13 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const hm = (x: number): number => {
       if (!(x < s)) return -Infinity;
       const v = lf(x);
-      return v === -Infinity ? -Infinity : Math.log(s - x) + k * (v - LM);
+      return v === -Infinity ? -Infinity : log(s - x) + k * (v - LM);
     };
     const r = sideSup(api, hm, lower, b, s - scale, scale);
     if (r !== undefined) {
       if (r.rising && lower === -Infinity) throw tailError(api, lf, power, s, scale, -1);
       logVMinAbs = r.value + margin(r.value);
-      if (Number.isFinite(lower)) logVMinAbs = Math.min(logVMinAbs, Math.log(s - lower));
+      if (Number.isFinite(lower)) logVMinAbs = Math.min(logVMinAbs, log(s - lower));
     }
   }
   if (logVMax === -Infinity && logVMinAbs === -Infinity) {
@@ -197,8 +198,8 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     logDensityMax: L,
     logDensityBound: LM,
     argmax,
-    vMax: Math.exp(logVMax),
-    vMin: logVMinAbs === -Infinity ? 0 : -Math.exp(logVMinAbs),
+    vMax: exp(logVMax),
+    vMin: logVMinAbs === -Infinity ? 0 : -exp(logVMinAbs),
     logVMax,
     logVMinAbs,
     evaluations,
@@ -256,7 +257,7 @@ function probeEnd(
   let last = -Infinity;
   let lastRise = NaN;
   let prevRise = NaN;
-  let d = Math.min(width / 4, Math.max(1, Math.abs(e) * 2 ** -20));
+  let d = Math.min(width / 4, Math.max(1, Math.abs(e) * pow(2, -20)));
   for (let j = 0; j < 200 && d >= 1e-300; j++, d /= 256) {
     const x = e + dir * d;
     if (x === e) break;
@@ -326,9 +327,9 @@ function halfWidth(lf: (x: number) => number, x0: number, L: number, lower: numb
  * exponent α (f ~ |x|^(−α)) to say which power would bound it.
  */
 function tailError(api: string, lf: (x: number) => number, power: number, s: number, scale: number, dir: 1 | -1): Error {
-  const x1 = s + dir * scale * 2 ** 30;
-  const x2 = s + dir * scale * 2 ** 40;
-  const alpha = -(lf(x2) - lf(x1)) / (Math.log(Math.abs(x2 - s)) - Math.log(Math.abs(x1 - s)));
+  const x1 = s + dir * scale * pow(2, 30);
+  const x2 = s + dir * scale * pow(2, 40);
+  const alpha = -(lf(x2) - lf(x1)) / (log(Math.abs(x2 - s)) - log(Math.abs(x1 - s)));
   const side = dir > 0 ? 'x > shift' : 'x < shift';
   const fn = dir > 0 ? '(x − shift)' : '(shift − x)';
   const lim = dir > 0 ? '+Infinity' : '-Infinity';
