@@ -8,7 +8,7 @@ import { Counters } from '../core/counters.js';
 import { leavesSamplerUsable } from '../core/draws.js';
 import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkFillArray, checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections } from '../core/validate.js';
+import { checkFillArray, checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections, showValue } from '../core/validate.js';
 import type { EnvelopeDescription } from './envelope/description.js';
 import { T_INV_SQRT, T_LOG } from './envelope/transforms.js';
 import type { TransformName } from './envelope/transforms.js';
@@ -148,7 +148,7 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
   const warm = resolveBoolean(API, 'options.warmStart', opts.warmStart, true);
   const transform = opts.transform ?? 'log';
   if (transform !== 'log' && transform !== 'inverse-sqrt') {
-    throw new InvalidOptionError(`${API}: options.transform must be 'log' or 'inverse-sqrt', got ${String(transform)}`);
+    throw new InvalidOptionError(`${API}: options.transform must be 'log' or 'inverse-sqrt', got ${showValue(transform)}`);
   }
   const derivativeFree = resolveBoolean(API, 'options.derivativeFree', opts.derivativeFree, false);
   const maxPieces = opts.maxPieces === undefined ? DEFAULT_MAX_PIECES : checkInteger(API, 'options.maxPieces', opts.maxPieces, 2, 1_000_000);
