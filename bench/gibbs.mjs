@@ -38,8 +38,11 @@ const RAW_SIZE = 1_000_000;
 const RAW = 'mt19937 uniform (raw)';
 const TAN = 'fresh hull per step, tangents (dLogDensity)';
 const SEC = 'fresh hull per step, secants (no derivative)';
+const RTAN = 'conditionalSampler per step, tangents';
+const RSEC = 'conditionalSampler per step, secants';
 const PEER = '@stdlib gamma(a, b) per call (peer)';
 const PUMP = 'pump-failure sweep (12 fresh hulls)';
+const RPUMP = 'pump-failure sweep (12 conditionalSamplers)';
 
 // pump-failure data (Gaver & O'Muircheartaigh 1987; from memory, as reprinted widely)
 const X = [5, 1, 5, 14, 3, 19, 1, 1, 4, 22];
@@ -101,6 +104,48 @@ const CASES = {
       stats: () => ({ evaluationsPerStep: evals / steps }),
     };
   },
+  [RTAN]: () => {
+    const u = ed.substream(2026, 0);
+    let a = 2.5;
+    let b = 1.3;
+    const conditional = { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - b * t, dLogDensity: (t) => (a - 1) / t - b };
+    const s = ed.conditionalSampler({ uniform: u });
+    return {
+      size: STEPS,
+      fill(out) {
+        for (let i = 0; i < out.length; i++) {
+          a = 1.5 + (i % 11) * 0.4;
+          b = 0.5 + (i % 7) * 0.25;
+          out[i] = s.draw(conditional);
+        }
+      },
+      stats: () => {
+        const st = s.stats;
+        return { evaluationsPerStep: (st.setupEvaluations + st.densityEvaluations) / st.targets };
+      },
+    };
+  },
+  [RSEC]: () => {
+    const u = ed.substream(2026, 1);
+    let a = 2.5;
+    let b = 1.3;
+    const conditional = { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - b * t };
+    const s = ed.conditionalSampler({ uniform: u });
+    return {
+      size: STEPS,
+      fill(out) {
+        for (let i = 0; i < out.length; i++) {
+          a = 1.5 + (i % 11) * 0.4;
+          b = 0.5 + (i % 7) * 0.25;
+          out[i] = s.draw(conditional);
+        }
+      },
+      stats: () => {
+        const st = s.stats;
+        return { evaluationsPerStep: (st.setupEvaluations + st.densityEvaluations) / st.targets };
+      },
+    };
+  },
   [PEER]: () => {
     const gam = stdlibGamma.factory({ prng: ed.mersenneTwister(2026) });
     return {
@@ -146,6 +191,40 @@ const CASES = {
       stats: () => ({ evaluationsPerSweep: evals / sweeps }),
     };
   },
+  [RPUMP]: () => {
+    const u = ed.substream(2026, 2);
+    const n = X.length;
+    let alpha = 1;
+    let beta = 1;
+    let logSumLambda = 0;
+    const alphaConditional = { support: [0, Infinity], logDensity: (al) => al * (n * Math.log(beta) + logSumLambda - 1) - n * gammaln(al) };
+    // one sampler per conditional (each λ_i's conditional moves little from sweep to sweep)
+    const lam = X.map(() => ed.conditionalSampler({ uniform: u }));
+    const sb = ed.conditionalSampler({ uniform: u });
+    const sa = ed.conditionalSampler({ uniform: u });
+    return {
+      size: SWEEPS,
+      fill(out) {
+        for (let s = 0; s < out.length; s++) {
+          let sum = 0;
+          logSumLambda = 0;
+          for (let i = 0; i < n; i++) {
+            const l = lam[i].draw(ed.gammaTarget(alpha + X[i], beta + T[i]));
+            sum += l;
+            logSumLambda += Math.log(l);
+          }
+          beta = sb.draw(ed.gammaTarget(1 + n * alpha, 1 + sum));
+          alpha = sa.draw(alphaConditional);
+          out[s] = alpha;
+        }
+      },
+      stats: () => {
+        let evals = 0;
+        for (const c of [...lam, sb, sa]) evals += c.stats.setupEvaluations + c.stats.densityEvaluations;
+        return { evaluationsPerSweep: evals / sa.stats.targets };
+      },
+    };
+  },
 };
 
 if (runChildIfAsked(args, CASES)) process.exit(0);
@@ -154,13 +233,13 @@ const command = `node bench/gibbs.mjs --steps ${STEPS} --sweeps ${SWEEPS} --roun
 console.log(`# Gibbs steps: a fresh conditional each draw; command: ${command} (after npm run build)`);
 console.log(machineLine());
 console.log(loadLine('at start'));
-const names = [RAW, TAN, SEC, PEER, PUMP];
+const names = [RAW, TAN, SEC, RTAN, RSEC, PEER, PUMP, RPUMP];
 const fresh = timeInFreshProcesses(HERE, names, { size: RAW_SIZE, rounds: ROUNDS, childRounds: 3, extra: ['--steps', String(STEPS), '--sweeps', String(SWEEPS)] });
 const check = selfCheck(fresh.cases[RAW].runs, fresh.reference);
 const rows = names.map((name) => ({ name, usPerStep: fresh.cases[name].ns / 1000, nsPerStep: fresh.cases[name].ns, runsNs: fresh.cases[name].runs, ...(fresh.cases[name].stats ?? {}) }));
 for (const r of rows) {
   if (r.name === RAW) console.log(`${r.name.padEnd(46)} ${r.nsPerStep.toFixed(2).padStart(9)} ns per uniform`);
-  else if (r.name === PUMP) console.log(`${r.name.padEnd(46)} ${r.usPerStep.toFixed(2).padStart(9)} us/sweep  ${r.evaluationsPerSweep.toFixed(2)} evaluations/sweep`);
+  else if (r.name === PUMP || r.name === RPUMP) console.log(`${r.name.padEnd(46)} ${r.usPerStep.toFixed(2).padStart(9)} us/sweep  ${r.evaluationsPerSweep.toFixed(2)} evaluations/sweep`);
   else console.log(`${r.name.padEnd(46)} ${r.usPerStep.toFixed(3).padStart(9)} us/step   ${r.evaluationsPerStep.toFixed(2)} evaluations/step`);
 }
 console.log(`# medians of ${ROUNDS} interleaved rounds, each case alone in a fresh process (3 timed fills there)`);

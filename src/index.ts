@@ -44,6 +44,8 @@ export type { RatioOfUniformsOptions, RatioOfUniformsRegion, RatioOfUniformsSamp
 export { partitionedFill, partRange } from './random/partition.js';
 export { adaptiveRejectionSampler, DEFAULT_MAX_PIECES } from './methods/adaptive-rejection.js';
 export type { AdaptiveRejectionOptions, AdaptiveRejectionSampler } from './methods/adaptive-rejection.js';
+export { conditionalSampler } from './methods/conditional.js';
+export type { ConditionalSampler, ConditionalSamplerOptions, ConditionalSamplerStats } from './methods/conditional.js';
 export { evaluateEnvelope } from './methods/envelope/description.js';
 export type { EnvelopeDescription, EnvelopePiece, EnvelopeValue } from './methods/envelope/description.js';
 export type { TransformName } from './methods/envelope/transforms.js';

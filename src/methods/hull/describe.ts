@@ -10,12 +10,13 @@ import type { Hull } from './hull.js';
 
 /** Builds the description of a hull. @internal */
 export function describeHull(h: Hull): EnvelopeDescription {
+  h.flush();
   const k = h.k;
   const n = 2 * k;
   const pieces: EnvelopePiece[] = [];
   const areas: number[] = [];
   for (let j = 0; j < n; j++) {
-    const la = h.logArea[j] + h.ref;
+    const la = h.pieceLogArea(j) + h.ref;
     pieces.push({
       lower: h.lo[j],
       upper: h.hi[j],

@@ -10,8 +10,8 @@ import { belowChord, shapeError, shapeName, transformedTolerance } from '../enve
 import { GuideTable } from '../envelope/guide-table.js';
 import type { HullView } from '../envelope/hull-view.js';
 import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
-import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
-import { exp } from '../../vendor/math.js';
+import { FLAT_LIMIT, T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
+import { exp, expm1, log } from '../../vendor/math.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -60,10 +60,10 @@ export class Hull implements HullView {
   readonly api: string;
   /** {@link T_LOG} or {@link T_INV_SQRT}. */
   readonly kind: number;
-  /** Tangent construction (true) or secant construction (false). */
-  readonly tangent: boolean;
-  /** Target functions. */
-  readonly target: HullTarget;
+  /** Tangent construction (true) or secant construction (false); changed only by {@link Hull.reset}. */
+  tangent: boolean;
+  /** Target functions; changed only by {@link Hull.reset}. */
+  target: HullTarget;
   /** Reference log height. */
   ref: number;
   /** Effective lower end of the support. */
@@ -80,6 +80,14 @@ export class Hull implements HullView {
   derivativeEvaluations = 0;
   /** Guide table over the pieces. */
   readonly guideTable: GuideTable;
+  /**
+   * Piece areas as e^tH·q/sig (differs from e^(pieceLogArea) in the last bits only): set by
+   * {@link Hull.reset} for a warm-started hull; false for a fresh hull, whose areas (and so the
+   * tables built from it) keep their bits.
+   */
+  quickAreas = false;
+  /** Touch point whose pieces a deferred insertion has not built yet, or −1 ({@link Hull.insertDeferred}). */
+  pending = -1;
   /** True when the guide table must be rebuilt before the next draw. */
   dirty = true;
 
@@ -104,8 +112,9 @@ export class Hull implements HullView {
   rate!: Float64Array; // |slope|
   inversion!: Float64Array; // inversion constant
   highValue!: Float64Array; // line value at the high end
-  logArea!: Float64Array; // relative log area
-  area!: Float64Array; // relative area
+  area!: Float64Array; // relative area (the log area is computed from highValue, rate and width where needed: describeHull)
+  /** The 15 piece arrays, in the order above (shifted together by {@link Hull.insert}). */
+  private pieceArrays: Float64Array[] = [];
 
   /**
    * @param api - API name for messages
@@ -139,8 +148,8 @@ export class Hull implements HullView {
    */
   private allocate(cap: number): void {
     const old = this.cap;
-    // 5 touch-point arrays, 17 piece arrays and the guide table's cumulative areas (doubles), then its guide (int32)
-    const doubles = 5 * cap + 18 * 2 * cap;
+    // 5 touch-point arrays, 15 piece arrays and the guide table's cumulative areas (doubles), then its guide (int32)
+    const doubles = 5 * cap + 16 * 2 * cap;
     const buffer = new ArrayBuffer(8 * doubles + 4 * 2 * cap);
     const store = new Float64Array(buffer, 0, doubles);
     let off = 0;
@@ -172,12 +181,40 @@ export class Hull implements HullView {
     this.rate = copy(this.rate, p, n);
     this.inversion = copy(this.inversion, p, n);
     this.highValue = copy(this.highValue, p, n);
-    this.logArea = copy(this.logArea, p, n);
     this.area = copy(this.area, p, n);
+    this.pieceArrays = [this.lo, this.hi, this.lineAnchor, this.lineValue, this.lineSlope, this.squeezeAnchor, this.squeezeValue, this.squeezeSlope, this.highEnd, this.direction, this.width, this.rate, this.inversion, this.highValue, this.area];
     // the guide table is rebuilt from `area` before the next draw (dirty), so its old contents need not be kept
     this.guideTable.useStorage(store.subarray(off, off + p), new Int32Array(buffer, 8 * doubles, p));
     this.dirty = true;
     this.cap = cap;
+  }
+
+  /**
+   * Empties the hull for a new target, keeping its storage (at least `cap`
+   * touch points): the reuse path of `conditionalSampler`. Setup then
+   * inserts the new touch points as for a fresh hull.
+   * @param target - target functions
+   * @param tangent - tangent (true) or secant (false) construction
+   * @param lower - effective lower end
+   * @param upper - effective upper end
+   * @param ref - reference log height
+   * @param cap - touch points the setup needs room for
+   * @param quickAreas - see {@link Hull.quickAreas}
+   */
+  reset(target: HullTarget, tangent: boolean, lower: number, upper: number, ref: number, cap: number, quickAreas: boolean): this {
+    this.quickAreas = quickAreas;
+    this.target = target;
+    this.tangent = tangent;
+    this.lower = lower;
+    this.upper = upper;
+    this.ref = ref;
+    this.k = 0;
+    this.pending = -1;
+    this.maxK = cap;
+    this.derivativeEvaluations = 0;
+    this.dirty = true;
+    if (cap > this.cap) this.allocate(cap);
+    return this;
   }
 
   /** Name of the shape assumption, for messages. */
@@ -303,7 +340,25 @@ export class Hull implements HullView {
     // a line rising towards an infinite end (or flat on an infinite piece) is not integrable
     let th = hx === Infinity || hx === -Infinity || !(sl === sl) ? Infinity : at + sl * (hx - ax);
     if (!(th === th)) th = Infinity;
-    const la = th === Infinity ? Infinity : pieceLogArea(this.kind, th, s, w);
+    let q: number;
+    let area: number;
+    if (th === Infinity) {
+      q = NaN;
+      area = Infinity;
+    } else if (this.kind === T_LOG && w > 0 && th > -Infinity && th < 700 && s * w >= FLAT_LIMIT) {
+      // the common case: expm1 computed once for both; with `quickAreas` e^tH·q/sig (two transcendental
+      // calls instead of four), else pieceLogArea's arithmetic (the same bits as the description's log area)
+      if (w === Infinity) {
+        q = 1;
+        area = this.quickAreas ? exp(th) / s : exp(th - log(s));
+      } else {
+        q = -expm1(-s * w);
+        area = this.quickAreas ? (exp(th) * q) / s : exp(th + log(q) - log(s));
+      }
+    } else {
+      q = pieceConstant(this.kind, th, s, w);
+      area = exp(pieceLogArea(this.kind, th, s, w));
+    }
     this.lo[j] = lo;
     this.hi[j] = hi;
     this.lineAnchor[j] = ax;
@@ -317,9 +372,14 @@ export class Hull implements HullView {
     this.width[j] = w;
     this.rate[j] = s;
     this.highValue[j] = th;
-    this.inversion[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
-    this.logArea[j] = la;
-    this.area[j] = exp(la);
+    this.inversion[j] = q;
+    this.area[j] = area;
+  }
+
+  /** Relative log area of piece j (as {@link pieceLogArea}; `+Infinity` for a piece that is not integrable). */
+  pieceLogArea(j: number): number {
+    const th = this.highValue[j];
+    return th === Infinity ? Infinity : pieceLogArea(this.kind, th, this.rate[j], this.width[j]);
   }
 
   private setInvalid(j: number, lo: number, hi: number): void {
@@ -562,13 +622,17 @@ export class Hull implements HullView {
    * (ignored by the secant construction) — checks the shape against its
    * neighbours and rebuilds only the pieces that depend on it.
    * @param grow - allow the arrays to grow (setup); otherwise the point is skipped at `maxK`
+   * @param build - rebuild the pieces that depend on the point (default); false for a batch of
+   * setup points of finite log-density, after which the caller calls {@link Hull.rebuildAll}
+   * @param deferred - with build false: build the pieces at the next {@link Hull.flush} instead
    * @returns true when the point was used (a new touch point, or a point of
    * density 0 outside the touch points, to which the effective support was
    * shrunk); false when it was skipped (duplicate, capacity reached, or too
    * low under inverse-sqrt)
    * @throws {@link ShapeViolationError} when the new point contradicts the shape assumption
    */
-  insert(x: number, l: number, g: number, grow: boolean): boolean {
+  insert(x: number, l: number, g: number, grow: boolean, build = true, deferred = false): boolean {
+    if (this.pending >= 0) this.flush();
     const k = this.k;
     const tx = this.touchX;
     if (l === -Infinity) {
@@ -624,20 +688,20 @@ export class Hull implements HullView {
     } else if (!grow && k >= this.maxK) {
       return false;
     }
-    // shift touch points
-    const n = 2 * k;
+    // shift touch points (loops, as in placePieces)
     if (p < k) {
-      this.touchX.copyWithin(p + 1, p, k);
-      this.touchLogDensity.copyWithin(p + 1, p, k);
-      this.touchDerivative.copyWithin(p + 1, p, k);
-      this.touchValue.copyWithin(p + 1, p, k);
-      this.touchSlope.copyWithin(p + 1, p, k);
-    }
-    // shift pieces: old pieces [1 + 2p, 2k) move right by 2
-    const from = 1 + 2 * p;
-    if (k > 0 && from < n) {
-      const arrays = [this.lo, this.hi, this.lineAnchor, this.lineValue, this.lineSlope, this.squeezeAnchor, this.squeezeValue, this.squeezeSlope, this.highEnd, this.direction, this.width, this.rate, this.inversion, this.highValue, this.logArea, this.area];
-      for (let q = 0; q < arrays.length; q++) arrays[q].copyWithin(from + 2, from, n);
+      const a0 = this.touchX;
+      const a1 = this.touchLogDensity;
+      const a2 = this.touchDerivative;
+      const a3 = this.touchValue;
+      const a4 = this.touchSlope;
+      for (let q = k; q > p; q--) {
+        a0[q] = a0[q - 1];
+        a1[q] = a1[q - 1];
+        a2[q] = a2[q - 1];
+        a3[q] = a3[q - 1];
+        a4[q] = a4[q - 1];
+      }
     }
     this.touchX[p] = x;
     this.touchLogDensity[p] = l;
@@ -645,13 +709,53 @@ export class Hull implements HullView {
     this.touchValue[p] = y;
     this.touchSlope[p] = sNew;
     this.k = k + 1;
+    this.dirty = true;
+    if (build) this.placePieces(p);
+    else if (deferred) this.pending = p;
+    return true;
+  }
+
+  /**
+   * Inserts an evaluated candidate as {@link Hull.insert} does (checks
+   * included, at once) but builds its pieces only when they are next needed
+   * ({@link Hull.flush}, called by the kernel before a proposal and by the
+   * description): after the last draw wanted from a target the rebuild is
+   * never paid for. The pieces are the same as with an immediate insertion.
+   */
+  insertDeferred(x: number, l: number, g: number): boolean {
+    return this.insert(x, l, g, false, false, true);
+  }
+
+  /** Builds the pieces of a deferred insertion, if any. */
+  flush(): void {
+    const p = this.pending;
+    if (p < 0) return;
+    this.pending = -1;
+    this.placePieces(p);
+  }
+
+  /** Shifts the pieces after touch point p (just inserted) and rebuilds the ones that depend on it. */
+  private placePieces(p: number): void {
     const kk = this.k;
+    const k = kk - 1;
+    // old pieces [1 + 2p, 2k) move right by 2 (loops: for the few points of a Gibbs step a copyWithin call costs more than the moves)
+    const n = 2 * k;
+    const from = 1 + 2 * p;
+    if (k > 0 && from < n) {
+      const arrays = this.pieceArrays;
+      for (let q = 0; q < arrays.length; q++) {
+        const arr = arrays[q];
+        for (let r = n - 1; r >= from; r--) arr[r + 2] = arr[r];
+      }
+    }
     // rebuild the intervals that depend on the new point, and the tails
     const i0 = Math.max(0, p - (this.tangent ? 1 : 2));
     const i1 = Math.min(kk - 2, p + (this.tangent ? 0 : 1));
     for (let i = i0; i <= i1; i++) this.buildInterval(i);
-    this.buildTails();
-    return true;
+    // a tail depends on its end point (tangents) or on the chord of the two end points (secants): rebuilt only
+    // when the new point is one of those; otherwise the shift above has moved it unchanged
+    const reach = this.tangent ? 0 : 1;
+    if (p <= reach || p >= kk - 1 - reach) this.buildTails();
   }
 
   /** Largest relative log height of the hull over pieces of positive width. */

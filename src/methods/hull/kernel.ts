@@ -6,7 +6,7 @@
 import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
-import type { Uniform } from '../../core/types.js';
+import type { UniformBlock } from '../../random/uniform-block.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece } from '../envelope/transforms.js';
 import { nonFiniteDerivative } from './hull.js';
@@ -17,7 +17,9 @@ import { exp, log } from '../../vendor/math.js';
  * Fills `out[0..n)` with draws from the target under the hull `h`.
  *
  * @remarks
- * Per proposal the kernel consumes exactly three uniforms: u1 selects a
+ * Per proposal the kernel consumes exactly three uniforms, read through
+ * `blk` (blocks of an owned MT19937, or one value at a time from an injected
+ * source: the same values in the same order either way): u1 selects a
  * piece through the guide table, u2 inverts the piece's envelope cdf, u3 is
  * the acceptance variable. The candidate is accepted without evaluating the
  * target when u3 < squeeze/envelope (strict, so that u3 = 0 under a zero
@@ -29,6 +31,8 @@ import { exp, log } from '../../vendor/math.js';
  * 1992; see {@link Hull.insert}); one where the density is 0 outside the
  * touch points shrinks the effective support instead. No
  * allocation happens here; the guide table is rebuilt lazily after insertions.
+ * The counts of samples and proposals are kept in locals and added on exit
+ * (also when an error is thrown).
  * @internal
  */
 export function hullFill(
@@ -36,7 +40,7 @@ export function hullFill(
   out: Float64Array,
   n: number,
   counters: Counters,
-  uniform: Uniform,
+  blk: UniformBlock,
   maxRejections: number,
 ): void {
   const api = h.api;
@@ -60,67 +64,87 @@ export function hullFill(
   const isLog = kind === T_LOG;
   const logf = h.target.logDensity;
   const ref = h.ref;
-  for (let i = 0; i < n; i++) {
-    let rejections = 0;
-    for (;;) {
-      if (h.dirty) h.buildGuide();
-      counters.proposals++;
-      const u1 = uniform();
-      let j = guide[(u1 * gt.size) | 0];
-      const v = u1 * gt.total;
-      while (cum[j] <= v) j++;
-      const u2 = uniform();
-      const d = invertPiece(kind, pq[j], sig[j], wd[j], u2);
-      let x = hx[j] + dir[j] * d;
-      if (x < lo[j]) x = lo[j];
-      else if (x > hi[j]) x = hi[j];
-      const t = at[j] + sl[j] * (x - ax[j]);
-      const sv = sqt[j];
-      const c = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqx[j]);
-      const u3 = uniform();
-      let lenv: number;
-      let lsq: number;
-      if (isLog) {
-        if (u3 < exp(c - t)) {
+  let proposals = 0;
+  let i = 0;
+  try {
+    for (; i < n; i++) {
+      let rejections = 0;
+      for (;;) {
+        if (h.dirty) {
+          h.flush();
+          h.buildGuide();
+        }
+        proposals++;
+        const u1 = next(blk);
+        let j = guide[(u1 * gt.size) | 0];
+        const v = u1 * gt.total;
+        while (cum[j] <= v) j++;
+        const u2 = next(blk);
+        const d = invertPiece(kind, pq[j], sig[j], wd[j], u2);
+        let x = hx[j] + dir[j] * d;
+        if (x < lo[j]) x = lo[j];
+        else if (x > hi[j]) x = hi[j];
+        const t = at[j] + sl[j] * (x - ax[j]);
+        const sv = sqt[j];
+        const c = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqx[j]);
+        const u3 = next(blk);
+        let lenv: number;
+        let lsq: number;
+        if (isLog) {
+          if (u3 < exp(c - t)) {
+            out[i] = x;
+            break;
+          }
+          lenv = t;
+          lsq = c;
+        } else {
+          const r = t / c;
+          if (u3 < r * r) {
+            out[i] = x;
+            break;
+          }
+          lenv = -2 * log(-t);
+          lsq = c === -Infinity ? -Infinity : -2 * log(-c);
+        }
+        const raw = logf(x);
+        counters.densityEvaluations++;
+        const lf = checkLogDensity(api, x, raw);
+        const lr = lf - ref;
+        const tol = logTolerance(ref, lr);
+        if (lr > lenv + tol) {
+          h.explainViolation(x, lf, `target is above the envelope at x = ${x} (log target ${lf}, log envelope ${lenv + ref})`);
+          throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');
+        }
+        if (lr < lsq - tol) {
+          h.explainViolation(x, lf, `target is below the squeeze at x = ${x} (log target ${lf}, log squeeze ${lsq + ref})`);
+          throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
+        }
+        // updating step (Gilks & Wild 1992): every evaluated candidate becomes a touch point
+        adapt(h, x, lf);
+        if (u3 < exp(lr - lenv)) {
           out[i] = x;
           break;
         }
-        lenv = t;
-        lsq = c;
-      } else {
-        const r = t / c;
-        if (u3 < r * r) {
-          out[i] = x;
-          break;
+        if (++rejections >= maxRejections) {
+          throw new StalledSamplerError(api, rejections, counters.samples + i, counters.proposals + proposals);
         }
-        lenv = -2 * log(-t);
-        lsq = c === -Infinity ? -Infinity : -2 * log(-c);
-      }
-      const raw = logf(x);
-      counters.densityEvaluations++;
-      const lf = checkLogDensity(api, x, raw);
-      const lr = lf - ref;
-      const tol = logTolerance(ref, lr);
-      if (lr > lenv + tol) {
-        h.explainViolation(x, lf, `target is above the envelope at x = ${x} (log target ${lf}, log envelope ${lenv + ref})`);
-        throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');
-      }
-      if (lr < lsq - tol) {
-        h.explainViolation(x, lf, `target is below the squeeze at x = ${x} (log target ${lf}, log squeeze ${lsq + ref})`);
-        throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
-      }
-      // updating step (Gilks & Wild 1992): every evaluated candidate becomes a touch point
-      adapt(h, x, lf);
-      if (u3 < exp(lr - lenv)) {
-        out[i] = x;
-        break;
-      }
-      if (++rejections >= maxRejections) {
-        throw new StalledSamplerError(api, rejections, counters.samples, counters.proposals);
       }
     }
-    counters.samples++;
+  } finally {
+    counters.samples += i;
+    counters.proposals += proposals;
   }
+}
+
+/** The next uniform of the block (inlined by the engine: a bounds test and a load). */
+function next(blk: UniformBlock): number {
+  let p = blk.pos;
+  if (p >= blk.len) {
+    blk.refill();
+    p = 0;
+  }
+  blk.pos = p + 1;
+  return blk.buf[p];
 }
 
 /** Inserts an evaluated candidate as a touch point (evaluating the derivative when the hull uses tangents). */
@@ -138,5 +162,5 @@ function adapt(h: Hull, x: number, lf: number): void {
     if (g !== g || typeof g !== 'number') nonFiniteDerivative(h.api, x, g);
     if (g === Infinity || g === -Infinity) return;
   }
-  h.insert(x, lf, g, false);
+  h.insertDeferred(x, lf, g);
 }

@@ -16,7 +16,7 @@ import { resolveUniform } from '../../random/resolve.js';
 import { Hull, nonFiniteDerivative } from './hull.js';
 import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
-import type { Probe } from './start.js';
+import type { Probe, StartResult, StartSearch } from './start.js';
 import { T_INV_SQRT, T_LOG } from '../envelope/transforms.js';
 
 /**
@@ -122,11 +122,27 @@ export function setupHull(api: string, target: Target, options: HullOptionsInput
   return buildHull(api, resolveHullOptions(api, target, options, known));
 }
 
-/** Builds a valid, integrable hull from resolved options. @internal */
-export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
+/**
+ * What a sampler that reuses one hull for a sequence of targets brings to
+ * {@link buildHull}: the hull to reset (its storage is kept), the counters
+ * to add to, and optionally a start other than the automatic one. @internal
+ */
+export interface HullReuse {
+  readonly hull: Hull;
+  readonly counters: Counters;
+  /** Start points from what is known of earlier targets; undefined: the automatic start (as a fresh hull). */
+  readonly start: ((s: StartSearch, lower: number, upper: number, mode: number | undefined) => StartResult) | undefined;
+}
+
+/**
+ * Builds a valid, integrable hull from resolved options; with `reuse`, in
+ * the given hull's storage (the same steps, so with the automatic start the
+ * same hull as a fresh one). @internal
+ */
+export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse): HullSetup {
   const { target: t, kind, tangent, maxPieces, maxRejections, uniform } = o;
   const start = o.startPoints;
-  const counters = new Counters();
+  const counters = reuse === undefined ? new Counters() : reuse.counters;
   const logf = t.logDensity;
   const dlogf = t.dLogDensity;
   let derivativeCalls = 0;
@@ -149,7 +165,8 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
   let probes: Probe[];
   let scale: number;
   if (start === undefined) {
-    const r = automaticStartPoints({ api, useDerivative: tangent, evaluate, derivative }, t.lower, t.upper, t.mode);
+    const search: StartSearch = { api, useDerivative: tangent, evaluate, derivative };
+    const r = reuse?.start !== undefined ? reuse.start(search, t.lower, t.upper, t.mode) : automaticStartPoints(search, t.lower, t.upper, t.mode);
     probes = r.probes;
     scale = r.scale;
   } else {
@@ -168,9 +185,13 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
       `${api}: no start point has a finite log-density${tangent ? ' and a finite derivative' : ''} (points tried: ${probes.map((p) => p.x).join(', ')}); give startPoints inside the support where the density is positive`,
     );
   }
-  const hull = new Hull(api, kind, tangent, { logDensity: logf, dLogDensity: dlogf }, t.lower, t.upper, ref, Math.max(Math.floor(maxPieces / 2), nUsable) + 4);
+  const cap = Math.max(Math.floor(maxPieces / 2), nUsable) + 4;
+  const fns = { logDensity: logf, dLogDensity: dlogf };
+  const hull = reuse === undefined ? new Hull(api, kind, tangent, fns, t.lower, t.upper, ref, cap) : reuse.hull.reset(fns, tangent, t.lower, t.upper, ref, cap, reuse.start !== undefined);
   const next = new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1);
-  for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true);
+  // the start points first without pieces, then every piece once (the same hull as inserting them one by one)
+  for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true, false);
+  hull.rebuildAll();
   for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
   let stuck = 0;
   let refinements = 0;
@@ -190,7 +211,10 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
     if (!hull.insert(p.x, p.l, p.g, true) && ++stuck > 20) break;
   }
   const top = hull.maxRelativeHeight();
-  if (top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);
+  // a warm start skips the second build where the log hull's top is near its reference (the kernel works
+  // with relative values; the reference only keeps the areas in range)
+  const keepRef = reuse?.start !== undefined && kind === T_LOG && Math.abs(top) <= 32;
+  if (!keepRef && top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);
   hull.maxK = Math.max(Math.floor(maxPieces / 2), hull.k);
   hull.derivativeEvaluations = derivativeCalls;
   hull.buildGuide();
