@@ -5,7 +5,7 @@
  */
 import { wrapDraws } from '../core/draws.js';
 import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
-import { resolveBoolean } from '../core/validate.js';
+import { checkTarget, resolveBoolean } from '../core/validate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './envelope/description.js';
@@ -14,6 +14,7 @@ import { setupHull } from './hull/setup.js';
 import type { TransformName } from './envelope/transforms.js';
 import { createTableSampler } from './table-sampler.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import { isStandardised, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
@@ -172,6 +173,11 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   if (pole !== undefined) {
     if (options?.startPoints !== undefined) throw new InvalidOptionError(`${api}: options.startPoints (points in x) cannot be combined with options.poleAt = '${pole}' (the hull is built in the transformed variable)`);
     return samplerAcrossPole(api, target, pole, options ?? {}, adaptiveRejectionSampler, ['envelope']);
+  }
+  if (options?.startPoints === undefined && !isStandardised(target)) {
+    // The hull is built in the standardised coordinate (src/methods/transform/standardise.ts).
+    const t = checkTarget(api, target);
+    return samplerStandardised(api, target, t, (z) => adaptiveRejectionSampler(z, options), fast ? ['envelope', 'table'] : ['envelope']);
   }
   let setup: ReturnType<typeof setupHull>;
   try {

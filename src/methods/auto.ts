@@ -22,6 +22,8 @@ import { exactWithBounds } from './auto/with-bounds.js';
 import type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 import { exactAcrossPoles } from './transform/exact.js';
+import { findStandardisation, isStandardised, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
+import type { Standardisation } from './transform/standardise.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
 const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;
@@ -169,6 +171,15 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   const acrossPole = (e: unknown, spent: number): ExactSampler | undefined => exactAcrossPoles(api, target, { ...t, logDensity: wrapped.logDensity }, e, (y) => exactSampler(y, options), spent);
   const declaredPole = acrossPole(undefined, 0);
   if (declaredPole !== undefined) return declaredPole;
+  // Scan and methods work in the standardised coordinate z = (x − loc)/2^k (transform/standardise.ts);
+  // ordinary targets get the identity and are sampled as before.
+  let standardising = 0;
+  if (!isStandardised(target)) {
+    const st = findStandardisation(api, t);
+    if (!st.identity) return exactStandardised(st, standardisedTarget(st, t, target), options);
+    standardising = st.evaluations;
+  }
+  markStandardised(wrapped);
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
   let scanResult: ReturnType<typeof scanTarget>;
   try {
@@ -253,7 +264,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
     const before = counted;
     const s = tryBuild(p.transform === undefined ? p.method : `${p.method} (${p.transform})`, p.build);
     if (s === undefined) continue;
-    const setupOther = scan.evaluations + before; // scan + refused attempts; the chosen method counts its own setup
+    const setupOther = standardising + scan.evaluations + before; // finding the scale + scan + refused attempts; the chosen method counts its own setup
     const reason = rejected.length === 0 ? p.reason : `${p.reason}; tried first: ${rejected.map((r) => r.method).join(', ')}`;
     const choice: ExactChoice = Object.freeze({
       method: p.method,
@@ -283,6 +294,36 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   throw new ShapeViolationError(
     `${api}: no method can serve this target: ${rejected.map((r) => `${r.method}: ${r.error}`).join(' | ')}`,
   );
+}
+
+/** Members of the chosen samplers forwarded by the sampler of x built over a sampler of Z. */
+const FORWARDED = ['envelope', 'table', 'region', 'logEnvelope', 'logSqueeze', 'transform', 'inner'] as const;
+
+/** exactSampler of the standardised target, its draws mapped back to x and its choice saying so. */
+function exactStandardised(st: Standardisation, z: Target, options: ExactSamplerOptions | undefined): ExactSampler {
+  let inner: ExactSampler;
+  try {
+    inner = exactSampler(z, options);
+  } catch (e) {
+    throw noteCoordinate(e, st);
+  }
+  const outer = mapStandardised(inner, st, st.evaluations, []);
+  const present = FORWARDED.filter((k) => k in inner.sampler);
+  const sampler = mapStandardised(inner.sampler, st, 0, present);
+  const c = inner.choice;
+  const choice: ExactChoice = Object.freeze({
+    ...c,
+    reason: `sampled in the standardised coordinate ${st.description} (scale = the power of two over which logDensity changes by 1/2 next to loc; draws mapped back by x = ${st.loc === 0 ? '' : `${st.loc} + `}2^${st.log2Scale}·z, the scan and descriptions are in z); for z: ${c.reason}`,
+  });
+  return {
+    choice,
+    sampler,
+    sample: outer.sample,
+    fill: outer.fill,
+    get stats(): SamplerStats {
+      return outer.stats;
+    },
+  };
 }
 
 function fmt(x: number): string {

@@ -30,6 +30,7 @@ import { tableDraws } from './table/draws.js';
 import { MAX_TABLE_STRIPS, resolveTableOptions } from './table/options.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
+import { isStandardised, samplerStandardised } from './transform/standardise.js';
 
 /**
  * Default of {@link PiecewiseOptions.targetAreaRatio}: refinement stops once
@@ -353,6 +354,10 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   }
   const { strips, tailMass } = resolveTableOptions(api, opts);
   const uniform = resolveUniform(api, opts);
+  if (opts.breakpoints === undefined && !isStandardised(target)) {
+    // Scan and cells in the standardised coordinate (src/methods/transform/standardise.ts).
+    return samplerStandardised(api, target, t, (z) => piecewiseSampler(z, opts), fast ? ['envelope', 'logEnvelope', 'logSqueeze', 'table'] : ['envelope', 'logEnvelope', 'logSqueeze']);
+  }
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
 
   const ev = new Evaluator(api, t.logDensity, tangent ? t.dLogDensity : undefined, PIECEWISE_SETUP_BUDGET + scanPoints);

@@ -13,6 +13,7 @@ import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRej
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import { isStandardised, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
 /** Options of {@link ratioOfUniformsSampler}. */
@@ -218,6 +219,10 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const t = checkTarget(api, target);
+  if (shift === undefined && squeeze === undefined && !isStandardised(target)) {
+    // Build the rectangle in the standardised coordinate (src/methods/transform/standardise.ts).
+    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), ['region', 'logEnvelope']);
+  }
   let rect: ReturnType<typeof computeRectangle>;
   try {
     rect = computeRectangle(api, t, power, shift);

@@ -15,6 +15,8 @@ import { describeTable, describeTableEnvelope } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
 import { tableDraws } from './table/draws.js';
 import { resolveTableOptions } from './table/options.js';
+import { checkTarget } from '../core/validate.js';
+import { isStandardised, samplerStandardised } from './transform/standardise.js';
 
 export { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './table/options.js';
 
@@ -152,6 +154,10 @@ const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 's
  */
 export function tableSampler(target: Target, options?: TableSamplerOptions): TableSampler {
   const api = 'tableSampler';
+  if (options?.startPoints === undefined && !isStandardised(target)) {
+    // The hull and its table are built in the standardised coordinate (src/methods/transform/standardise.ts).
+    return samplerStandardised(api, target, checkTarget(api, target), (z) => tableSampler(z, options), ['envelope', 'table']);
+  }
   const setup = setupHull(api, target, options, KNOWN);
   return createTableSampler(api, setup, options);
 }

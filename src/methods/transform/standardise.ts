@@ -1,0 +1,319 @@
+/**
+ * The standardised coordinate every method samples in: z = (x − loc)/2^k,
+ * with loc a point of the bulk (the mode hint, else the best of a few
+ * probes) and 2^k the power of two at which the log-density changes by 1/2
+ * on the narrower side of loc. @internal
+ *
+ * @packageDocumentation
+ */
+import { ExactDrawError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
+import type { Sampler, SamplerStats, Target } from '../../core/types.js';
+import type { CheckedTarget } from '../../core/validate.js';
+import { maximizeLog } from '../../bounds/maximize.js';
+
+/** Change of the log-density over one scale unit (from loc, on the narrower side). */
+const SCALE_DROP = 0.5;
+/** Targets whose scale 2^k has |k| ≤ this and whose |loc| ≤ 2^ORDINARY·2^k are sampled in x itself (the map would be x = z). */
+const ORDINARY = 20;
+/** Below |loc| ≤ this many scale units, loc is taken as 0 (x = 2^k·z is then exact). */
+const LOC_TO_ZERO = 64;
+/** Smallest and largest binary exponents of a scale. */
+const K_MIN = -1074;
+const K_MAX = 1023;
+
+/**
+ * A change of location and scale x = loc + 2^log2Scale·z. `identity` when
+ * the target is sampled in x itself (loc = 0, scale = 1). @internal
+ */
+export interface Standardisation {
+  /** Location (0 when identity, or when |loc| was within 64 scale units of 0). */
+  readonly loc: number;
+  /** Scale, a power of two. */
+  readonly scale: number;
+  /** log2 of the scale (an integer). */
+  readonly log2Scale: number;
+  /** True when x = z (ordinary targets: their draws are those of the method in x). */
+  readonly identity: boolean;
+  /** Support of the target in x. */
+  readonly lower: number;
+  readonly upper: number;
+  /** Support of Z (rounded outwards; x = loc + scale·z is clamped into [lower, upper]). */
+  readonly zLower: number;
+  readonly zUpper: number;
+  /** logDensity calls spent finding loc and scale. */
+  readonly evaluations: number;
+  /** `z = (x − loc)/2^k`, for messages and `choice.reason`. */
+  readonly description: string;
+}
+
+/** Targets built by {@link standardisedTarget} (or marked by a caller that standardised already): never standardised again. */
+const done = new WeakSet<object>();
+
+/** Marks a target as already in a standardised coordinate (its factories sample it as it is). @internal */
+export function markStandardised(target: object): void {
+  done.add(target);
+}
+
+/** True when `target` came from {@link standardisedTarget} or was marked. @internal */
+export function isStandardised(target: object): boolean {
+  return done.has(target);
+}
+
+/** The identity map (sampling in x). */
+function identityOf(t: CheckedTarget, evaluations: number): Standardisation {
+  return { loc: 0, scale: 1, log2Scale: 0, identity: true, lower: t.lower, upper: t.upper, zLower: t.lower, zUpper: t.upper, evaluations, description: 'z = x' };
+}
+
+/**
+ * Finds loc and the power-of-two scale of a target (about 25 evaluations).
+ *
+ * @remarks
+ * loc is the mode hint when logDensity is finite there; else the best of
+ * the finite ends (or the nearest double inside), the midpoint of a finite
+ * support and 0; else (no finite value among them) the maximisation of
+ * `maximizeLog`. The scale is the smallest 2^k (k from −1074 to 1023, by
+ * bisection on k) such that logDensity at loc ± 2^k differs from its value
+ * at loc by at least 1/2, or is −Infinity, or lies beyond an end of the
+ * support, on either side. For N(μ, σ²) with the mode hint that is the
+ * power of two in [σ, 2σ). When the scale is within 2^±20 and |loc| within
+ * 2^20 scales, the map is the identity (the methods work in x as they
+ * always did, so their streams are unchanged). When no finite value is
+ * found or no scale exists (a density flat over the whole double range),
+ * the identity is returned and the method gives its own error.
+ * @internal
+ */
+export function findStandardisation(api: string, t: CheckedTarget): Standardisation {
+  let evaluations = 0;
+  const lower = t.lower;
+  const upper = t.upper;
+  const f = (x: number): number => {
+    evaluations++;
+    return checkLogDensity(api, x, t.logDensity(x));
+  };
+  let loc = NaN;
+  let l0 = -Infinity;
+  const consider = (x: number): void => {
+    if (!(x >= lower && x <= upper) || !Number.isFinite(x)) return;
+    const l = f(x);
+    if (l > l0) {
+      l0 = l;
+      loc = x;
+    }
+  };
+  if (t.mode !== undefined) consider(t.mode);
+  if (l0 === -Infinity) {
+    for (const e of [lower, upper]) {
+      if (!Number.isFinite(e)) continue;
+      consider(e);
+      consider(nextToward(e, e === lower ? upper : lower));
+    }
+    if (Number.isFinite(lower) && Number.isFinite(upper)) consider(lower + (upper - lower) / 2);
+    consider(0);
+  }
+  if (l0 === -Infinity) {
+    try {
+      const r = maximizeLog(api, (x: number) => t.logDensity(x), lower, upper, {});
+      evaluations += r.evaluations;
+      if (r.value > -Infinity) {
+        loc = r.x;
+        l0 = r.value;
+      }
+    } catch (e) {
+      if (!(e instanceof ExactDrawError)) throw e;
+    }
+  }
+  if (l0 === -Infinity) return identityOf(t, evaluations);
+
+  // Bisection on k for the smallest 2^k at which one side has changed enough.
+  const enough = (k: number): boolean => {
+    const d = Math.pow(2, k);
+    for (const dir of [1, -1] as const) {
+      const end = dir > 0 ? upper : lower;
+      const room = Math.abs(end - loc);
+      if (room === 0) continue;
+      if (d >= room) return true;
+      const x = loc + dir * d;
+      if (x === loc) continue;
+      const l = f(x);
+      if (l === -Infinity || Math.abs(l - l0) >= SCALE_DROP) return true;
+    }
+    return false;
+  };
+  if (!enough(K_MAX)) return identityOf(t, evaluations);
+  let lo = K_MIN - 1; // not enough (assumed: below the smallest double)
+  let hi = K_MAX; // enough
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    if (enough(mid)) hi = mid;
+    else lo = mid;
+  }
+  const k = Math.max(K_MIN, hi);
+  const scale = Math.pow(2, k);
+  if (Math.abs(k) <= ORDINARY && Math.abs(loc) <= Math.pow(2, ORDINARY) * scale) return identityOf(t, evaluations);
+  if (Math.abs(loc) <= LOC_TO_ZERO * scale) loc = 0;
+  const zLower = Number.isFinite(lower) ? outward(lower, loc, scale, -1) : -Infinity;
+  const zUpper = Number.isFinite(upper) ? outward(upper, loc, scale, +1) : Infinity;
+  return {
+    loc,
+    scale,
+    log2Scale: k,
+    identity: false,
+    lower,
+    upper,
+    zLower,
+    zUpper,
+    evaluations,
+    description: loc === 0 ? `z = x/2^${k}` : `z = (x − ${loc})/2^${k}`,
+  };
+}
+
+/** (e − loc)/scale, moved outwards until loc + scale·z is beyond e (a few steps at most). */
+function outward(e: number, loc: number, scale: number, dir: 1 | -1): number {
+  let z = (e - loc) / scale;
+  if (!Number.isFinite(z)) z = dir * Number.MAX_VALUE;
+  for (let i = 0; i < 8 && (dir < 0 ? loc + scale * z > e : loc + scale * z < e); i++) z = nextToward(z, dir * Infinity);
+  return z;
+}
+
+/** The double next to x towards y. */
+function nextToward(x: number, y: number): number {
+  if (x === y || !Number.isFinite(x)) return x;
+  const dir = y > x ? 1 : -1;
+  if (x === 0) return dir * Number.MIN_VALUE;
+  const f = new Float64Array([x]);
+  const i = new BigInt64Array(f.buffer);
+  i[0] += (x > 0) === (dir > 0) ? 1n : -1n;
+  return f[0];
+}
+
+/**
+ * The target of Z: logDensity(z) = target.logDensity(clamp(loc + 2^k·z))
+ * (the same values, so envelopes of Z compare directly with logDensity in
+ * x; the constant Jacobian is left out), dLogDensity scaled by 2^k, the
+ * mode hint and `modes` mapped, support [zLower, zUpper]. @internal
+ */
+export function standardisedTarget(st: Standardisation, t: CheckedTarget, target: Target): Target {
+  const toX = xOf(st);
+  const logf = t.logDensity;
+  const dlogf = t.dLogDensity;
+  const zOf = (x: number): number => Math.min(st.zUpper, Math.max(st.zLower, (x - st.loc) / st.scale));
+  const out: { -readonly [K in keyof Target]: Target[K] } = {
+    logDensity: (z: number): number => (z === z ? logf(toX(z)) : NaN),
+    support: [st.zLower, st.zUpper],
+  };
+  if (dlogf !== undefined) {
+    const s = st.scale;
+    out.dLogDensity = (z: number): number => s * dlogf(toX(z));
+  }
+  if (t.mode !== undefined) out.mode = zOf(t.mode);
+  if (target.modes !== undefined) out.modes = target.modes.map(zOf);
+  done.add(out);
+  return out;
+}
+
+/** The map back, x = loc + 2^k·z clamped into the support. @internal */
+export function xOf(st: Standardisation): (z: number) => number {
+  const { loc, scale, lower, upper } = st;
+  return (z: number): number => {
+    const x = loc + scale * z;
+    return x < lower ? lower : x > upper ? upper : x;
+  };
+}
+
+/** Errors already given the note of the coordinate. */
+const noted = new WeakSet<object>();
+
+/** Adds to an error of the library (once) where it was found: in z, and how z maps to x. @internal */
+export function noteCoordinate(e: unknown, st: Standardisation): unknown {
+  if (st.identity || !(e instanceof ExactDrawError) || noted.has(e)) return e;
+  noted.add(e);
+  e.message = `${e.message} [the method worked in the standardised coordinate ${st.description}; x = ${st.loc === 0 ? '' : `${st.loc} + `}2^${st.log2Scale}·z]`;
+  return e;
+}
+
+/**
+ * A sampler of x from a sampler of Z: `fill` fills with z and maps in
+ * place (no allocation per draw); `stats` are the inner ones with
+ * `extraSetup` added to `setupEvaluations`; the members named in
+ * `passThrough` are forwarded (descriptions are in z; functions of a point,
+ * such as `logEnvelope`, take x and are evaluated at z(x)). For the
+ * identity map, `sample` and `fill` are the inner ones. @internal
+ */
+export function mapStandardised<S extends Sampler>(inner: S, st: Standardisation, extraSetup: number, passThrough: readonly string[]): S {
+  const innerSample = inner.sample.bind(inner);
+  const innerFill = inner.fill.bind(inner);
+  const toX = xOf(st);
+  const { loc, scale } = st;
+  const out = {
+    sample: st.identity
+      ? innerSample
+      : (): number => {
+          try {
+            return toX(innerSample());
+          } catch (e) {
+            throw noteCoordinate(e, st);
+          }
+        },
+    fill: st.identity
+      ? innerFill
+      : (buffer: Float64Array): Float64Array => {
+          try {
+            innerFill(buffer);
+          } catch (e) {
+            throw noteCoordinate(e, st);
+          }
+          for (let i = 0; i < buffer.length; i++) buffer[i] = toX(buffer[i]);
+          return buffer;
+        },
+    get stats(): SamplerStats {
+      const s = inner.stats;
+      return { ...s, setupEvaluations: s.setupEvaluations + extraSetup };
+    },
+    standardisation: st,
+  };
+  for (const key of passThrough) {
+    Object.defineProperty(out, key, {
+      enumerable: true,
+      get: () => {
+        const v = (inner as unknown as Record<string, unknown>)[key];
+        if (typeof v !== 'function') return v;
+        const g = (v as (z: number) => number).bind(inner);
+        return st.identity ? g : (x: number): number => g((x - loc) / scale);
+      },
+    });
+  }
+  return out as unknown as S;
+}
+
+/**
+ * The one entrance of the factories: unless `target` is already
+ * standardised, finds the map, builds `build` on the target of Z (on the
+ * target itself for the identity) and maps the draws back. Errors from the
+ * build name the coordinate. @internal
+ */
+export function samplerStandardised<S extends Sampler>(
+  api: string,
+  target: Target,
+  t: CheckedTarget,
+  build: (target: Target) => S,
+  passThrough: readonly string[],
+): S {
+  const st = findStandardisation(api, t);
+  let zTarget: Target;
+  if (st.identity) {
+    zTarget = target;
+    done.add(target);
+  } else {
+    zTarget = standardisedTarget(st, t, target);
+  }
+  let inner: S;
+  try {
+    inner = build(zTarget);
+  } catch (e) {
+    throw noteCoordinate(e, st);
+  } finally {
+    if (st.identity) done.delete(target);
+  }
+  return mapStandardised(inner, st, st.evaluations, passThrough);
+}
