@@ -22,7 +22,7 @@ import { exactWithBounds } from './auto/with-bounds.js';
 import type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 import { exactAcrossPoles } from './transform/exact.js';
-import { findStandardisation, isStandardised, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
+import { findStandardisation, inheritCells, isStandardised, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
 import type { Standardisation } from './transform/standardise.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
@@ -180,6 +180,7 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
     standardising = st.evaluations;
   }
   markStandardised(wrapped);
+  inheritCells(target, wrapped);
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
   let scanResult: ReturnType<typeof scanTarget>;
   try {

@@ -13,7 +13,7 @@ import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRej
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
-import { isStandardised, samplerStandardised } from './transform/standardise.js';
+import { cellWidthOf, isStandardised, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
 /** Options of {@link ratioOfUniformsSampler}. */
@@ -225,7 +225,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   }
   let rect: ReturnType<typeof computeRectangle>;
   try {
-    rect = computeRectangle(api, t, power, shift);
+    rect = computeRectangle(api, t, power, shift, cellWidthOf(target));
   } catch (e) {
     throw explainPole(api, target, e);
   }

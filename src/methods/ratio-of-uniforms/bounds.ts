@@ -72,13 +72,19 @@ export function margin(b: number): number {
  * @param t - the checked target
  * @param power - r > 0
  * @param shiftOption - user-given shift, or undefined for the mode
+ * @param cell - for a target whose logDensity is constant on cells wider
+ *   than the doubles of its coordinate (a standardised target: logDensity(z)
+ *   is f at the double nearest loc + 2^k·z), the width of the cell at a
+ *   point: the v-bound at the located supremum z* is widened by a factor
+ *   1 + 2·cell(z*)/|z* − s|, because within a cell (z − s) grows while f
+ *   stays the same
  * @throws {@link InvalidTargetError} when a bound is infinite (density unbounded at an end,
  *   tails too heavy for this power) or when the mode hint is not a mode
  * @throws {@link ImproperDensityError} when a tail of the density does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity (inside the support)
  * @internal
  */
-export function computeRectangle(api: string, t: CheckedTarget, power: number, shiftOption: number | undefined): Rectangle {
+export function computeRectangle(api: string, t: CheckedTarget, power: number, shiftOption: number | undefined, cell?: (x: number) => number): Rectangle {
   const { lower, upper } = t;
   const logDensity = t.logDensity;
   let evaluations = 0;
@@ -170,7 +176,7 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const r = sideSup(api, hp, a, upper, s + scale, scale);
     if (r !== undefined) {
       if (r.rising && upper === Infinity) throw tailError(api, lf, power, s, scale, 1);
-      logVMax = r.value + margin(r.value);
+      logVMax = r.value + margin(r.value) + cellWidening(cell, r.x, s);
       if (Number.isFinite(upper)) logVMax = Math.min(logVMax, Math.log(upper - s));
     }
   }
@@ -185,7 +191,7 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const r = sideSup(api, hm, lower, b, s - scale, scale);
     if (r !== undefined) {
       if (r.rising && lower === -Infinity) throw tailError(api, lf, power, s, scale, -1);
-      logVMinAbs = r.value + margin(r.value);
+      logVMinAbs = r.value + margin(r.value) + cellWidening(cell, r.x, s);
       if (Number.isFinite(lower)) logVMinAbs = Math.min(logVMinAbs, Math.log(s - lower));
     }
   }
@@ -205,6 +211,14 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
   };
 }
 
+/** log(1 + 2·cell(x)/|x − s|): the widening of a v-bound located at x for a density constant on cells (0 without cells). */
+function cellWidening(cell: ((x: number) => number) | undefined, x: number, s: number): number {
+  if (cell === undefined) return 0;
+  const d = Math.abs(x - s);
+  const w = cell(x);
+  return d > 0 && w > 0 ? Math.log1p((2 * w) / d) : 0;
+}
+
 /**
  * Sup of a v-side function over [a, b]; undefined when every probe is
  * −Infinity (no mass on that side of the shift: the side is empty).
@@ -216,7 +230,7 @@ function sideSup(
   b: number,
   hint: number,
   scale: number,
-): { value: number; rising: boolean } | undefined {
+): { value: number; x: number; rising: boolean } | undefined {
   let finiteSeen = false;
   const hh = (x: number): number => {
     const v = h(x);
@@ -228,7 +242,7 @@ function sideSup(
     const r = maximizeLog(api, hh, a, b, { hint: c, scale });
     const risingEnd = r.risingTail === undefined ? undefined : r.risingTail === 'upper' ? b : a;
     const p = polish(hh, r.x, r.value, a, b);
-    return { value: p.value, rising: risingEnd !== undefined && !Number.isFinite(risingEnd) };
+    return { value: p.value, x: p.x, rising: risingEnd !== undefined && !Number.isFinite(risingEnd) };
   } catch (e) {
     if (e instanceof InvalidTargetError && !finiteSeen) return undefined;
     throw e;

@@ -18,6 +18,8 @@ const SCALE_DROP = 0.5;
 const ORDINARY = 20;
 /** Below |loc| ≤ this many scale units, loc is taken as 0 (x = 2^k·z is then exact). */
 const LOC_TO_ZERO = 64;
+/** Above this spacing of the doubles at loc (in scale units), errors say that logDensity(z) is a staircase. */
+const COARSE_GRAIN = 2 ** -40;
 /** Smallest and largest binary exponents of a scale. */
 const K_MIN = -1074;
 const K_MAX = 1023;
@@ -41,6 +43,8 @@ export interface Standardisation {
   /** Support of Z (rounded outwards; x = loc + scale·z is clamped into [lower, upper]). */
   readonly zLower: number;
   readonly zUpper: number;
+  /** Spacing of the doubles of x at loc, in z units (ulp(loc)/scale): logDensity of Z is constant on cells this wide near z = 0. */
+  readonly grain: number;
   /** logDensity calls spent finding loc and scale. */
   readonly evaluations: number;
   /** `z = (x − loc)/2^k`, for messages and `choice.reason`. */
@@ -62,7 +66,7 @@ export function isStandardised(target: object): boolean {
 
 /** The identity map (sampling in x). */
 function identityOf(t: CheckedTarget, evaluations: number): Standardisation {
-  return { loc: 0, scale: 1, log2Scale: 0, identity: true, lower: t.lower, upper: t.upper, zLower: t.lower, zUpper: t.upper, evaluations, description: 'z = x' };
+  return { loc: 0, scale: 1, log2Scale: 0, identity: true, lower: t.lower, upper: t.upper, zLower: t.lower, zUpper: t.upper, grain: 0, evaluations, description: 'z = x' };
 }
 
 /**
@@ -163,6 +167,7 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
     upper,
     zLower,
     zUpper,
+    grain: ulpOf(loc) / scale,
     evaluations,
     description: loc === 0 ? `z = x/2^${k}` : `z = (x − ${loc})/2^${k}`,
   };
@@ -209,7 +214,34 @@ export function standardisedTarget(st: Standardisation, t: CheckedTarget, target
   if (t.mode !== undefined) out.mode = zOf(t.mode);
   if (target.modes !== undefined) out.modes = target.modes.map(zOf);
   done.add(out);
+  const { loc, scale } = st;
+  cells.set(out, (z: number): number => ulpOf(loc + scale * z) / scale);
   return out;
+}
+
+/** Cell widths of the standardised targets: logDensity(z) is constant where loc + 2^k·z rounds to the same double. */
+const cells = new WeakMap<object, (z: number) => number>();
+
+/**
+ * For a target built by {@link standardisedTarget}: the width, in z, of the
+ * set of z on which its logDensity is constant (the doubles of x near
+ * loc + 2^k·z are ulp(x) apart, that is ulp(x)/2^k in z); else undefined.
+ * @internal
+ */
+export function cellWidthOf(target: object): ((z: number) => number) | undefined {
+  return cells.get(target);
+}
+
+/** Gives `to` (a wrapper of `from` with the same logDensity values) the cell widths of `from`. @internal */
+export function inheritCells(from: object, to: object): void {
+  const c = cells.get(from);
+  if (c !== undefined) cells.set(to, c);
+}
+
+/** Spacing of the doubles at x (at least the smallest subnormal). */
+function ulpOf(x: number): number {
+  const a = Math.abs(x);
+  return a >= 2 ** -1022 ? Math.pow(2, Math.floor(Math.log2(a)) - 52) * 2 : Number.MIN_VALUE;
 }
 
 /** The map back, x = loc + 2^k·z clamped into the support. @internal */
@@ -228,7 +260,11 @@ const noted = new WeakSet<object>();
 export function noteCoordinate(e: unknown, st: Standardisation): unknown {
   if (st.identity || !(e instanceof ExactDrawError) || noted.has(e)) return e;
   noted.add(e);
-  e.message = `${e.message} [the method worked in the standardised coordinate ${st.description}; x = ${st.loc === 0 ? '' : `${st.loc} + `}2^${st.log2Scale}·z]`;
+  const coarse =
+    st.grain > COARSE_GRAIN
+      ? `; the doubles of x near ${st.loc} are ${st.grain.toPrecision(3)} apart in z (${Math.round(1 / st.grain)} per scale unit), so logDensity(z) is a staircase of that step, which a method checking the shape at finer spacing sees as a shape violation (ratio-of-uniforms accepts it)`
+      : '';
+  e.message = `${e.message} [the method worked in the standardised coordinate ${st.description}; x = ${st.loc === 0 ? '' : `${st.loc} + `}2^${st.log2Scale}·z${coarse}]`;
   return e;
 }
 
