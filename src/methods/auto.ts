@@ -22,8 +22,9 @@ import { exactWithBounds } from './auto/with-bounds.js';
 import type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 import { exactAcrossPoles } from './transform/exact.js';
-import { findStandardisation, inheritCells, isStandardised, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
+import { FINE_GRAIN, findStandardisation, inheritCells, isStandardised, retryable, standardisationOf, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
 import type { Standardisation } from './transform/standardise.js';
+import { HULL_FORWARD, PIECEWISE_FORWARD, POLE_FORWARD, RATIO_FORWARD } from './standardised-forward.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
 const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;
@@ -176,9 +177,19 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   let standardising = 0;
   if (!isStandardised(target)) {
     const st = findStandardisation(api, t);
-    if (!st.identity) return exactStandardised(st, standardisedTarget(st, t, target), options);
     standardising = st.evaluations;
+    if (!st.identity) {
+      try {
+        return exactStandardised(st, standardisedTarget(st, t, target), options);
+      } catch (e) {
+        if (!retryable(e)) throw e; // else: the scan and methods in x, as for an ordinary target
+      }
+    }
   }
+  // Where the doubles of x are coarse in z (more than 2^-40 of a scale unit apart), logDensity of Z is a
+  // staircase that the hulls and the piecewise cells would see as a shape violation: ratio-of-uniforms only.
+  const coarse = standardisationOf(target);
+  const staircase = coarse !== undefined && coarse.grain > FINE_GRAIN;
   markStandardised(wrapped);
   inheritCells(target, wrapped);
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
@@ -258,7 +269,13 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
     reason: `not log-concave (${convexWhere}) and not T-concave (${tConvexWhere}), e.g. multimodal: piecewise envelopes on cells of constant curvature${fastNote}`,
     build: () => (fast ? piecewiseSampler(wrapped, clean({ ...pass, fast: true as const })) : piecewiseSampler(wrapped, clean(pass))),
   };
-  if (heavy) plans.push(rouPlan, pwPlan);
+  if (staircase) {
+    plans.length = 0;
+    plans.push({
+      ...rouPlan,
+      reason: `the doubles of x are ${coarse.grain.toPrecision(3)} scale units apart near ${coarse.loc}, so logDensity in the standardised coordinate is a staircase, which no hull or piecewise cell bounds within its tolerance; ratio-of-uniforms needs only the bound of each step (its rectangle is widened by the step width)`,
+    });
+  } else if (heavy) plans.push(rouPlan, pwPlan);
   else plans.push(pwPlan, rouPlan);
 
   for (const p of plans) {
@@ -297,8 +314,6 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   );
 }
 
-/** Members of the chosen samplers forwarded by the sampler of x built over a sampler of Z. */
-const FORWARDED = ['envelope', 'table', 'region', 'logEnvelope', 'logSqueeze', 'transform', 'inner'] as const;
 
 /** exactSampler of the standardised target, its draws mapped back to x and its choice saying so. */
 function exactStandardised(st: Standardisation, z: Target, options: ExactSamplerOptions | undefined): ExactSampler {
@@ -308,10 +323,10 @@ function exactStandardised(st: Standardisation, z: Target, options: ExactSampler
   } catch (e) {
     throw noteCoordinate(e, st);
   }
-  const outer = mapStandardised(inner, st, st.evaluations, []);
-  const present = FORWARDED.filter((k) => k in inner.sampler);
-  const sampler = mapStandardised(inner.sampler, st, 0, present);
+  const outer = mapStandardised(inner, st, st.evaluations, {});
   const c = inner.choice;
+  const forward = 'transform' in inner.sampler ? POLE_FORWARD : c.method === 'piecewise' ? PIECEWISE_FORWARD : c.method === 'ratio-of-uniforms' ? RATIO_FORWARD : HULL_FORWARD;
+  const sampler = mapStandardised(inner.sampler, st, 0, forward);
   const choice: ExactChoice = Object.freeze({
     ...c,
     reason: `sampled in the standardised coordinate ${st.description} (scale = the power of two over which logDensity changes by 1/2 next to loc; draws mapped back by x = ${st.loc === 0 ? '' : `${st.loc} + `}2^${st.log2Scale}·z, the scan and descriptions are in z); for z: ${c.reason}`,

@@ -30,7 +30,8 @@ import { tableDraws } from './table/draws.js';
 import { MAX_TABLE_STRIPS, resolveTableOptions } from './table/options.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
-import { isStandardised, samplerStandardised } from './transform/standardise.js';
+import { PIECEWISE_FORWARD } from './standardised-forward.js';
+import { FINE_GRAIN, isStandardised, samplerStandardised } from './transform/standardise.js';
 
 /**
  * Default of {@link PiecewiseOptions.targetAreaRatio}: refinement stops once
@@ -356,7 +357,7 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const uniform = resolveUniform(api, opts);
   if (opts.breakpoints === undefined && !isStandardised(target)) {
     // Scan and cells in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, t, (z) => piecewiseSampler(z, opts), fast ? ['envelope', 'logEnvelope', 'logSqueeze', 'table'] : ['envelope', 'logEnvelope', 'logSqueeze']);
+    return samplerStandardised(api, target, t, (z) => piecewiseSampler(z, opts), PIECEWISE_FORWARD, { order: 'z-first', maxGrain: FINE_GRAIN });
   }
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
 

@@ -13,6 +13,7 @@ import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRej
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import { RATIO_FORWARD } from './standardised-forward.js';
 import { cellWidthOf, isStandardised, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
@@ -221,7 +222,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const t = checkTarget(api, target);
   if (shift === undefined && squeeze === undefined && !isStandardised(target)) {
     // Build the rectangle in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), ['region', 'logEnvelope']);
+    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), RATIO_FORWARD, { order: 'z-first', maxGrain: 2 ** -10 });
   }
   let rect: ReturnType<typeof computeRectangle>;
   try {

@@ -16,7 +16,8 @@ import type { TableDescription } from './table/describe.js';
 import { tableDraws } from './table/draws.js';
 import { resolveTableOptions } from './table/options.js';
 import { checkTarget } from '../core/validate.js';
-import { isStandardised, samplerStandardised } from './transform/standardise.js';
+import { HULL_FORWARD } from './standardised-forward.js';
+import { FINE_GRAIN, isStandardised, samplerStandardised } from './transform/standardise.js';
 
 export { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './table/options.js';
 
@@ -156,7 +157,7 @@ export function tableSampler(target: Target, options?: TableSamplerOptions): Tab
   const api = 'tableSampler';
   if (options?.startPoints === undefined && !isStandardised(target)) {
     // The hull and its table are built in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, checkTarget(api, target), (z) => tableSampler(z, options), ['envelope', 'table']);
+    return samplerStandardised(api, target, checkTarget(api, target), (z) => tableSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN });
   }
   const setup = setupHull(api, target, options, KNOWN);
   return createTableSampler(api, setup, options);

@@ -6,11 +6,11 @@
  *
  * @packageDocumentation
  */
-import { ExactDrawError } from '../../core/errors.js';
-import { checkLogDensity } from '../../core/evaluate.js';
+import { EnvelopeViolationError, ExactDrawError, ImproperDensityError, InvalidTargetError, ShapeViolationError } from '../../core/errors.js';
 import type { Sampler, SamplerStats, Target } from '../../core/types.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import { maximizeLog } from '../../bounds/maximize.js';
+import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description.js';
 
 /** Change of the log-density over one scale unit (from loc, on the narrower side). */
 const SCALE_DROP = 0.5;
@@ -18,6 +18,8 @@ const SCALE_DROP = 0.5;
 const ORDINARY = 20;
 /** Below |loc| ≤ this many scale units, loc is taken as 0 (x = 2^k·z is then exact). */
 const LOC_TO_ZERO = 64;
+/** At or above this spacing of the doubles at loc (in scale units) the target is left in x. */
+const FINEST_GRAIN = 2 ** -10;
 /** Above this spacing of the doubles at loc (in scale units), errors say that logDensity(z) is a staircase. */
 const COARSE_GRAIN = 2 ** -40;
 /** Smallest and largest binary exponents of a scale. */
@@ -43,7 +45,12 @@ export interface Standardisation {
   /** Support of Z (rounded outwards; x = loc + scale·z is clamped into [lower, upper]). */
   readonly zLower: number;
   readonly zUpper: number;
-  /** Spacing of the doubles of x at loc, in z units (ulp(loc)/scale): logDensity of Z is constant on cells this wide near z = 0. */
+  /**
+   * Spacing of the doubles of x at loc, in scale units (ulp(loc)/scale, an
+   * upper bound within a factor 2): logDensity of Z is constant on cells
+   * this wide near z = 0. Set for the identity too when that was chosen
+   * because the doubles are too coarse (above 2^−10); else 0 for it.
+   */
   readonly grain: number;
   /** logDensity calls spent finding loc and scale. */
   readonly evaluations: number;
@@ -65,8 +72,8 @@ export function isStandardised(target: object): boolean {
 }
 
 /** The identity map (sampling in x). */
-function identityOf(t: CheckedTarget, evaluations: number): Standardisation {
-  return { loc: 0, scale: 1, log2Scale: 0, identity: true, lower: t.lower, upper: t.upper, zLower: t.lower, zUpper: t.upper, grain: 0, evaluations, description: 'z = x' };
+function identityOf(t: CheckedTarget, evaluations: number, grain = 0): Standardisation {
+  return { loc: 0, scale: 1, log2Scale: 0, identity: true, lower: t.lower, upper: t.upper, zLower: t.lower, zUpper: t.upper, grain, evaluations, description: 'z = x' };
 }
 
 /**
@@ -91,9 +98,16 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
   let evaluations = 0;
   const lower = t.lower;
   const upper = t.upper;
+  // A value that is not a number, NaN or +Infinity stops the search (identity): the method's own evaluations report it where it matters.
+  let bad = false;
   const f = (x: number): number => {
     evaluations++;
-    return checkLogDensity(api, x, t.logDensity(x));
+    const v: unknown = t.logDensity(x);
+    if (typeof v !== 'number' || v !== v || v === Infinity) {
+      bad = true;
+      return -Infinity;
+    }
+    return v;
   };
   let loc = NaN;
   let l0 = -Infinity;
@@ -107,18 +121,9 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
   };
   if (t.mode !== undefined) consider(t.mode);
   if (l0 === -Infinity) {
-    for (const e of [lower, upper]) {
-      if (!Number.isFinite(e)) continue;
-      consider(e);
-      consider(nextToward(e, e === lower ? upper : lower));
-    }
-    if (Number.isFinite(lower) && Number.isFinite(upper)) consider(lower + (upper - lower) / 2);
-    consider(0);
-  }
-  if (l0 === -Infinity) {
+    // No usable mode hint: the global maximisation every method's setup uses (a few hundred evaluations).
     try {
-      const r = maximizeLog(api, (x: number) => t.logDensity(x), lower, upper, {});
-      evaluations += r.evaluations;
+      const r = maximizeLog(api, f, lower, upper, {});
       if (r.value > -Infinity) {
         loc = r.x;
         l0 = r.value;
@@ -127,7 +132,16 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
       if (!(e instanceof ExactDrawError)) throw e;
     }
   }
-  if (l0 === -Infinity) return identityOf(t, evaluations);
+  if (l0 === -Infinity) {
+    for (const e of [lower, upper]) {
+      if (!Number.isFinite(e)) continue;
+      consider(e);
+      consider(nextToward(e, e === lower ? upper : lower));
+    }
+    if (Number.isFinite(lower) && Number.isFinite(upper)) consider(lower + (upper - lower) / 2);
+    consider(0);
+  }
+  if (l0 === -Infinity || bad) return identityOf(t, evaluations);
 
   // Bisection on k for the smallest 2^k at which one side has changed enough.
   const enough = (k: number): boolean => {
@@ -154,7 +168,10 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
   }
   const k = Math.max(K_MIN, hi);
   const scale = Math.pow(2, k);
+  if (bad) return identityOf(t, evaluations);
   if (Math.abs(k) <= ORDINARY && Math.abs(loc) <= Math.pow(2, ORDINARY) * scale) return identityOf(t, evaluations);
+  // Fewer than 2^10 doubles per scale unit at loc (a pole, or a target only a few ulps wide): z cannot resolve more than x.
+  if (ulpOf(loc) / scale > FINEST_GRAIN) return identityOf(t, evaluations, ulpOf(loc) / scale);
   if (Math.abs(loc) <= LOC_TO_ZERO * scale) loc = 0;
   const zLower = Number.isFinite(lower) ? outward(lower, loc, scale, -1) : -Infinity;
   const zUpper = Number.isFinite(upper) ? outward(upper, loc, scale, +1) : Infinity;
@@ -216,7 +233,16 @@ export function standardisedTarget(st: Standardisation, t: CheckedTarget, target
   done.add(out);
   const { loc, scale } = st;
   cells.set(out, (z: number): number => ulpOf(loc + scale * z) / scale);
+  maps.set(out, st);
   return out;
+}
+
+/** The maps of the standardised targets. */
+const maps = new WeakMap<object, Standardisation>();
+
+/** The map a target built by {@link standardisedTarget} came from (undefined for any other target). @internal */
+export function standardisationOf(target: object): Standardisation | undefined {
+  return maps.get(target);
 }
 
 /** Cell widths of the standardised targets: logDensity(z) is constant where loc + 2^k·z rounds to the same double. */
@@ -269,14 +295,20 @@ export function noteCoordinate(e: unknown, st: Standardisation): unknown {
 }
 
 /**
+ * How a member of a sampler of Z is forwarded by the sampler of x:
+ * `'point'` for a function of a point (called at z(x)), `'as-is'`, or a
+ * function mapping a description in z to one in x. @internal
+ */
+export type Forward = 'point' | 'as-is' | ((value: never, st: Standardisation) => unknown);
+
+/**
  * A sampler of x from a sampler of Z: `fill` fills with z and maps in
  * place (no allocation per draw); `stats` are the inner ones with
- * `extraSetup` added to `setupEvaluations`; the members named in
- * `passThrough` are forwarded (descriptions are in z; functions of a point,
- * such as `logEnvelope`, take x and are evaluated at z(x)). For the
- * identity map, `sample` and `fill` are the inner ones. @internal
+ * `extraSetup` added to `setupEvaluations`; the members in `forward` are
+ * forwarded as said there. For the identity map, `sample` and `fill` are
+ * the inner ones and every member is forwarded as it is. @internal
  */
-export function mapStandardised<S extends Sampler>(inner: S, st: Standardisation, extraSetup: number, passThrough: readonly string[]): S {
+export function mapStandardised<S extends Sampler>(inner: S, st: Standardisation, extraSetup: number, forward: Readonly<Record<string, Forward>>): S {
   const innerSample = inner.sample.bind(inner);
   const innerFill = inner.fill.bind(inner);
   const toX = xOf(st);
@@ -306,50 +338,144 @@ export function mapStandardised<S extends Sampler>(inner: S, st: Standardisation
       const s = inner.stats;
       return { ...s, setupEvaluations: s.setupEvaluations + extraSetup };
     },
-    standardisation: st,
   };
-  for (const key of passThrough) {
+  for (const [key, how] of Object.entries(forward)) {
+    if (!(key in inner)) continue;
     Object.defineProperty(out, key, {
       enumerable: true,
       get: () => {
         const v = (inner as unknown as Record<string, unknown>)[key];
-        if (typeof v !== 'function') return v;
-        const g = (v as (z: number) => number).bind(inner);
-        return st.identity ? g : (x: number): number => g((x - loc) / scale);
+        if (typeof v === 'function') {
+          const g = (v as (z: number) => number).bind(inner);
+          return st.identity || how !== 'point' ? g : (x: number): number => g((x - loc) / scale);
+        }
+        if (st.identity || typeof how !== 'function') return v;
+        return (how as (value: unknown, st: Standardisation) => unknown)(v, st);
       },
     });
   }
   return out as unknown as S;
 }
 
+/** A point of Z as x (no clamping: descriptions keep their own ends). @internal */
+export function pointX(st: Standardisation, z: number): number {
+  return st.loc + st.scale * z;
+}
+
+/** A log-area over z as one over x: + k·log 2. @internal */
+export function areaX(st: Standardisation, logArea: number): number {
+  return logArea + st.log2Scale * Math.LN2;
+}
+
+/** The description of a T-concave envelope (hull or strip pieces) in z, as one in x. @internal */
+export function envelopeInX(e: EnvelopeDescription, st: Standardisation): EnvelopeDescription {
+  const px = (z: number): number => pointX(st, z);
+  const sl = (g: number): number => g / st.scale;
+  const pieces: EnvelopePiece[] = e.pieces.map((p) => ({
+    lower: px(p.lower),
+    upper: px(p.upper),
+    anchor: px(p.anchor),
+    value: p.value,
+    slope: sl(p.slope),
+    squeezeAnchor: px(p.squeezeAnchor),
+    squeezeValue: p.squeezeValue,
+    squeezeSlope: sl(p.squeezeSlope),
+    logArea: areaX(st, p.logArea),
+  }));
+  return {
+    ...e,
+    support: [clampX(st, px(e.support[0])), clampX(st, px(e.support[1]))],
+    touchPoints: e.touchPoints.map(px),
+    pieces,
+    logEnvelopeArea: areaX(st, e.logEnvelopeArea),
+    logSqueezeArea: areaX(st, e.logSqueezeArea),
+  };
+}
+
+/** x clamped into the support of the target. @internal */
+export function clampX(st: Standardisation, x: number): number {
+  return x < st.lower ? st.lower : x > st.upper ? st.upper : x;
+}
+
+/** Errors of a construction that a retry in the other coordinate may avoid. @internal */
+export function retryable(e: unknown): boolean {
+  return e instanceof InvalidTargetError || e instanceof ImproperDensityError || e instanceof ShapeViolationError || e instanceof EnvelopeViolationError;
+}
+
+/** How a factory uses the standardised coordinate. @internal */
+export interface StandardiseMode {
+  /**
+   * `'x-first'`: build in x; only when that construction is refused, build
+   * in z (the cheap setup of the hull, e.g. one draw per fresh target in a
+   * Gibbs step, costs nothing more). `'z-first'`: build in z (in x for the
+   * identity); when that is refused, in x.
+   */
+  readonly order: 'x-first' | 'z-first';
+  /** The coarsest spacing of the doubles of x at loc, in scale units, the method can work with in z. */
+  readonly maxGrain: number;
+}
+
 /**
  * The one entrance of the factories: unless `target` is already
- * standardised, finds the map, builds `build` on the target of Z (on the
- * target itself for the identity) and maps the draws back. Errors from the
- * build name the coordinate. @internal
+ * standardised, builds `build` on the target of Z (or on the target itself,
+ * as `mode` says) and maps the draws back. When both constructions are
+ * refused, the error of the construction in x is thrown (the method's own
+ * message on the target as given). @internal
  */
 export function samplerStandardised<S extends Sampler>(
   api: string,
   target: Target,
   t: CheckedTarget,
   build: (target: Target) => S,
-  passThrough: readonly string[],
+  forward: Readonly<Record<string, Forward>>,
+  mode: StandardiseMode,
 ): S {
-  const st = findStandardisation(api, t);
-  let zTarget: Target;
-  if (st.identity) {
-    zTarget = target;
+  const inX = (): S => {
     done.add(target);
-  } else {
-    zTarget = standardisedTarget(st, t, target);
+    try {
+      return build(target);
+    } finally {
+      done.delete(target);
+    }
+  };
+  if (mode.order === 'x-first') {
+    try {
+      return inX();
+    } catch (ex) {
+      if (!retryable(ex)) throw ex;
+      const st = findStandardisation(api, t);
+      if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
+      if (st.identity) throw ex;
+      let inner: S;
+      try {
+        inner = build(standardisedTarget(st, t, target));
+      } catch (ez) {
+        if (retryable(ez)) throw ex;
+        throw noteCoordinate(ez, st);
+      }
+      return mapStandardised(inner, st, st.evaluations, forward);
+    }
   }
+  const st = findStandardisation(api, t);
+  if (st.grain > mode.maxGrain) throw coarseError(api, st, undefined);
+  if (st.identity) return mapStandardised(inX(), st, st.evaluations, forward);
   let inner: S;
   try {
-    inner = build(zTarget);
-  } catch (e) {
-    throw noteCoordinate(e, st);
-  } finally {
-    if (st.identity) done.delete(target);
+    inner = build(standardisedTarget(st, t, target));
+  } catch (ez) {
+    if (!retryable(ez)) throw noteCoordinate(ez, st);
+    return inX();
   }
-  return mapStandardised(inner, st, st.evaluations, passThrough);
+  return mapStandardised(inner, st, st.evaluations, forward);
 }
+
+/** The refusal of a target whose doubles are too coarse for the method (`inX`: its error in x, if it was tried). */
+function coarseError(api: string, st: Standardisation, inX: unknown): ShapeViolationError {
+  const tried = inX instanceof Error ? ` (built in x, it reported: ${inX.message})` : '';
+  return new ShapeViolationError(
+    `${api}: the target's scale is only about ${Math.round(1 / st.grain)} spacings of the doubles near its location (doubles ${st.grain.toPrecision(3)} scale units apart): logDensity is a staircase on the scale of the target, which this method's envelope cannot bound within its tolerance${tried}; ratioOfUniformsSampler and exactSampler sample it (as the exact draw's distribution over the doubles, up to the cell rule of the docs)`,
+  );
+}
+
+/** The coarsest grain at which a hull or piecewise envelope built in z stays within its tolerance (2^−40 of a scale unit). @internal */
+export const FINE_GRAIN = 2 ** -40;
