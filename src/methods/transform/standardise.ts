@@ -413,7 +413,33 @@ export interface StandardiseMode {
   readonly order: 'x-first' | 'z-first';
   /** The coarsest spacing of the doubles of x at loc, in scale units, the method can work with in z. */
   readonly maxGrain: number;
+  /**
+   * For `'x-first'`: whether a sampler built in x is known good without
+   * evaluating anything (e.g. its touch points lie in an ordinary range);
+   * when it is not, the map is found and the sampler rebuilt in z, and the
+   * one in x is kept only when that fails or the doubles are too coarse.
+   */
+  readonly ordinary?: (s: never) => boolean;
 }
+
+/**
+ * For the hulls: touch points within ±2^30 and, with two or more, spread
+ * over more than 2^−30 (a hull whose scale is ordinary: no extra
+ * evaluations for it). @internal
+ */
+export function ordinaryTouchPoints(tp: readonly number[]): boolean {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const x of tp) {
+    if (!(Math.abs(x) <= ORDINARY_SPAN)) return false;
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
+  }
+  return tp.length < 2 || hi - lo >= 1 / ORDINARY_SPAN;
+}
+
+/** Range of the touch points of a hull built in x that counts as ordinary. */
+const ORDINARY_SPAN = 2 ** 30;
 
 /**
  * The one entrance of the factories: unless `target` is already
@@ -439,8 +465,9 @@ export function samplerStandardised<S extends Sampler>(
     }
   };
   if (mode.order === 'x-first') {
+    let built: S;
     try {
-      return inX();
+      built = inX();
     } catch (ex) {
       if (!retryable(ex)) throw ex;
       const st = findStandardisation(api, t);
@@ -454,6 +481,16 @@ export function samplerStandardised<S extends Sampler>(
         throw noteCoordinate(ez, st);
       }
       return mapStandardised(inner, st, st.evaluations, forward);
+    }
+    if (mode.ordinary === undefined || (mode.ordinary as (s: S) => boolean)(built)) return built;
+    const st = findStandardisation(api, t);
+    const keep = (): S => mapStandardised(built, { ...st, identity: true, loc: 0, scale: 1, log2Scale: 0 }, st.evaluations, forward);
+    if (st.identity || st.grain > mode.maxGrain) return keep();
+    try {
+      return mapStandardised(build(standardisedTarget(st, t, target)), st, st.evaluations, forward);
+    } catch (ez) {
+      if (retryable(ez)) return keep();
+      throw noteCoordinate(ez, st);
     }
   }
   const st = findStandardisation(api, t);
