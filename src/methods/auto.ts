@@ -24,7 +24,9 @@ export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMe
 import { exactAcrossPoles } from './transform/exact.js';
 import { FINE_GRAIN, findStandardisation, inheritCells, isStandardised, retryable, standardisationOf, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
 import type { Standardisation } from './transform/standardise.js';
-import { HULL_FORWARD, PIECEWISE_FORWARD, POLE_FORWARD, RATIO_FORWARD } from './standardised-forward.js';
+import { HULL_FORWARD, POLE_FORWARD } from './standardised-forward.js';
+import { PIECEWISE_FORWARD } from './piecewise.js';
+import { RATIO_FORWARD } from './ratio-of-uniforms.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
 const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;

@@ -13,7 +13,8 @@ import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRej
 import { resolveUniform } from '../random/resolve.js';
 import { computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
-import { RATIO_FORWARD } from './standardised-forward.js';
+import { areaX, pointX } from './transform/standardise.js';
+import type { Forward, Standardisation } from './transform/standardise.js';
 import { cellWidthOf, isStandardised, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
@@ -222,7 +223,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const t = checkTarget(api, target);
   if (shift === undefined && squeeze === undefined && !isStandardised(target)) {
     // Build the rectangle in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), RATIO_FORWARD, { order: 'z-first', maxGrain: 2 ** -10 });
+    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), RATIO_FORWARD, { order: 'z-first', maxGrain: Infinity });
   }
   let rect: ReturnType<typeof computeRectangle>;
   try {
@@ -376,3 +377,21 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     }
   }
 }
+
+/** A ratio-of-uniforms region described in z, in x (v scales with 2^k; u does not). */
+function regionInX(r: RatioOfUniformsRegion, st: Standardisation): RatioOfUniformsRegion {
+  return {
+    ...r,
+    shift: pointX(st, r.shift),
+    argmax: pointX(st, r.argmax),
+    logVMax: areaX(st, r.logVMax),
+    logVMinAbs: areaX(st, r.logVMinAbs),
+    scaledVMin: r.scaledVMin * st.scale,
+    scaledVMax: r.scaledVMax * st.scale,
+    logRectangleArea: areaX(st, r.logRectangleArea),
+    logRegionAreaEstimate: areaX(st, r.logRegionAreaEstimate),
+  };
+}
+
+/** Forwarded members of the ratio-of-uniforms sampler built in the standardised coordinate. @internal */
+export const RATIO_FORWARD: Readonly<Record<string, Forward>> = { region: regionInX, logEnvelope: 'point' };

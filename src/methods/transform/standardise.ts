@@ -85,8 +85,8 @@ function identityOf(t: CheckedTarget, evaluations: number, grain = 0): Standardi
  * support and 0; else (no finite value among them) the maximisation of
  * `maximizeLog`. The scale is the smallest 2^k (k from −1074 to 1023, by
  * bisection on k) such that logDensity at loc ± 2^k differs from its value
- * at loc by at least 1/2, or is −Infinity, or lies beyond an end of the
- * support, on either side. For N(μ, σ²) with the mode hint that is the
+ * at loc by at least 1/2 on a side, or both loc − 2^k and loc + 2^k are out
+ * of room (beyond an end of the support or where the density is 0). For N(μ, σ²) with the mode hint that is the
  * power of two in [σ, 2σ). When the scale is within 2^±20 and |loc| within
  * 2^20 scales, the map is the identity (the methods work in x as they
  * always did, so their streams are unchanged). When no finite value is
@@ -94,7 +94,7 @@ function identityOf(t: CheckedTarget, evaluations: number, grain = 0): Standardi
  * the identity is returned and the method gives its own error.
  * @internal
  */
-export function findStandardisation(api: string, t: CheckedTarget): Standardisation {
+export function findStandardisation(api: string, t: CheckedTarget, search: 'maximise' | 'probe' = 'maximise'): Standardisation {
   let evaluations = 0;
   const lower = t.lower;
   const upper = t.upper;
@@ -120,10 +120,11 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
     }
   };
   if (t.mode !== undefined) consider(t.mode);
-  if (l0 === -Infinity) {
+  if (l0 === -Infinity && search === 'maximise') {
     // No usable mode hint: the global maximisation every method's setup uses (a few hundred evaluations).
     try {
       const r = maximizeLog(api, f, lower, upper, {});
+      if (r.risingTail !== undefined) return identityOf(t, evaluations); // no decay found: nothing to locate
       if (r.value > -Infinity) {
         loc = r.x;
         l0 = r.value;
@@ -144,19 +145,24 @@ export function findStandardisation(api: string, t: CheckedTarget): Standardisat
   if (l0 === -Infinity || bad) return identityOf(t, evaluations);
 
   // Bisection on k for the smallest 2^k at which one side has changed enough.
+  // Enough at 2^k: logDensity at loc ± 2^k differs from l0 by 1/2 on a side, or both sides are out of
+  // room (beyond an end of the support, or where the density is 0: an edge is a bound, not a scale).
   const enough = (k: number): boolean => {
     const d = Math.pow(2, k);
+    let out = 0;
     for (const dir of [1, -1] as const) {
       const end = dir > 0 ? upper : lower;
-      const room = Math.abs(end - loc);
-      if (room === 0) continue;
-      if (d >= room) return true;
+      if (d >= Math.abs(end - loc)) {
+        out++;
+        continue;
+      }
       const x = loc + dir * d;
       if (x === loc) continue;
       const l = f(x);
-      if (l === -Infinity || Math.abs(l - l0) >= SCALE_DROP) return true;
+      if (l === -Infinity) out++;
+      else if (Math.abs(l - l0) >= SCALE_DROP) return true;
     }
-    return false;
+    return out === 2;
   };
   if (!enough(K_MAX)) return identityOf(t, evaluations);
   let lo = K_MIN - 1; // not enough (assumed: below the smallest double)
@@ -470,7 +476,7 @@ export function samplerStandardised<S extends Sampler>(
       built = inX();
     } catch (ex) {
       if (!retryable(ex)) throw ex;
-      const st = findStandardisation(api, t);
+      const st = findStandardisation(api, t, 'probe');
       if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
       if (st.identity) throw ex;
       let inner: S;
