@@ -477,8 +477,8 @@ export function samplerStandardised<S extends Sampler>(
     } catch (ex) {
       if (!retryable(ex)) throw ex;
       const st = findStandardisation(api, t, 'probe');
-      if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
       if (st.identity) throw ex;
+      if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
       let inner: S;
       try {
         inner = build(standardisedTarget(st, t, target));
@@ -500,7 +500,7 @@ export function samplerStandardised<S extends Sampler>(
     }
   }
   const st = findStandardisation(api, t);
-  if (st.grain > mode.maxGrain) throw coarseError(api, st, undefined);
+  if (!st.identity && st.grain > mode.maxGrain) throw coarseError(api, st, undefined);
   if (st.identity) return mapStandardised(inX(), st, st.evaluations, forward);
   let inner: S;
   try {
