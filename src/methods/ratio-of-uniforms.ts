@@ -334,8 +334,12 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
         const u = 1 - uniform();
         const v = vMin + vWidth * uniform();
         c.proposals++;
-        const x = unitPower ? s + v / u : s + v / Math.pow(u, r);
-        if (x >= lower && x <= upper && x > -Infinity && x < Infinity) {
+        const q = unitPower ? v / u : v / Math.pow(u, r);
+        const x = s + q;
+        // x is s + q rounded to nearest: at a finite end, keep it only when s + q itself lies inside
+        // (its rounding error, Knuth's TwoSum, has the sign of s + q − x); else the exact draws just
+        // beyond the end, rounded onto it, would double the end's probability
+        if (x >= lower && x <= upper && x > -Infinity && x < Infinity && ((x !== upper && x !== lower) || insideAtEnd(s, q, x, lower, upper))) {
           const lhs = r1 * Math.log(u);
           let q = -Infinity;
           if (squeeze !== undefined) {
@@ -369,4 +373,17 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       }
     }
   }
+}
+
+/**
+ * Whether s + q (exactly) lies in [lower, upper], given x = s + q rounded to
+ * nearest equals one of the ends: the rounding error of the sum (Knuth's
+ * TwoSum, exact) says on which side of x the exact sum lies.
+ */
+function insideAtEnd(s: number, q: number, x: number, lower: number, upper: number): boolean {
+  const bv = x - s;
+  const e = s - (x - bv) + (q - bv);
+  if (x === upper && e > 0) return false;
+  if (x === lower && e < 0) return false;
+  return true;
 }
