@@ -11,7 +11,7 @@ import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
-import { computeRectangle } from './ratio-of-uniforms/bounds.js';
+import { checkMassBeyondDoubles, computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
 import type { PoleOption } from './transform/sampler.js';
 
@@ -224,6 +224,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   } catch (e) {
     throw explainPole(api, target, e);
   }
+  rect.evaluations += checkMassBeyondDoubles(api, t, rect, power);
   return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, uniform);
 }
 
