@@ -9,7 +9,7 @@ import { checkLogDensity } from '../../core/evaluate.js';
 import type { Uniform } from '../../core/types.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece } from '../envelope/transforms.js';
-import { checkBeyondZero } from './gaps.js';
+import { checkBeyondZero } from '../envelope/gaps.js';
 import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
 

@@ -13,7 +13,7 @@ import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, re
 import type { CheckedTarget } from '../../core/validate.js';
 import { resolveUniform } from '../../random/resolve.js';
 import { Hull, nonFiniteDerivative } from './hull.js';
-import { checkBeyondZero } from './gaps.js';
+import { checkBeyondZero } from '../envelope/gaps.js';
 import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe } from './start.js';

@@ -1,5 +1,5 @@
 /**
- * Zeros of the density that cut a hull's support: the look beyond them. @internal
+ * Gaps in the support: the look beyond a zero that cuts a hull's support, and the message naming a gap. @internal
  *
  * @packageDocumentation
  */
@@ -62,8 +62,12 @@ export function checkBeyondZero(api: string, evaluate: (x: number) => number, ze
   }
 }
 
-/** Locates the gap between `edge` (positive) … `zero` (0) … `beyond` (positive) and throws. */
-function gapError(api: string, evaluate: (x: number) => number, edge: number, zero: number, beyond: number, lBeyond: number): never {
+/**
+ * Locates the gap around `zero` (log-density −Infinity) between `edge` and
+ * `beyond` (both of finite log-density, on either side) by bisection, and
+ * throws {@link ShapeViolationError} naming it (error path only). @internal
+ */
+export function gapError(api: string, evaluate: (x: number) => number, edge: number, zero: number, beyond: number, lBeyond: number): never {
   // start of the gap: between edge (positive) and zero
   let a = edge;
   let b = zero;
@@ -87,7 +91,7 @@ function gapError(api: string, evaluate: (x: number) => number, edge: number, ze
   const lo = Math.min(start, end);
   const hi = Math.max(start, end);
   throw new ShapeViolationError(
-    `${api}: logDensity is -Infinity on about [${lo}, ${hi}] but finite on both sides (at x = ${edge} and at x = ${beyond}, logDensity ${lBeyond}): the support is not an interval, and a hull would sample only one side of the gap; sample each interval with its own support and mix the draws by their masses`,
+    `${api}: logDensity is -Infinity on about [${lo}, ${hi}] but finite on both sides (at x = ${edge} and at x = ${beyond}, logDensity ${lBeyond}): the support is not an interval, which a hull cannot sample (it would cut its support at the gap or put mass inside it); sample each interval with its own support and mix the draws by their masses`,
     [lo, hi],
   );
 }
