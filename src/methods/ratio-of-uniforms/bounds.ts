@@ -365,7 +365,9 @@ export const MAX_MASS_BEYOND_DOUBLES = Math.pow(2, -53);
  * T/((r+1)(vMax − vMin)) is a lower bound of the share beyond M (power-law
  * extrapolation at M). When it exceeds {@link MAX_MASS_BEYOND_DOUBLES} the
  * target is refused with {@link InvalidTargetError}; α ≤ 0 there (no decay at
- * the end of the doubles) is an {@link ImproperDensityError}.
+ * the end of the doubles) is an {@link ImproperDensityError}. A value at
+ * either probe that is not finite (−Infinity, NaN, +Infinity) skips the
+ * check on that side: the probes serve this check only.
  * @returns the evaluations spent
  * @internal
  */
@@ -376,11 +378,14 @@ export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rect
   const logArea = Math.log(power + 1) + Math.log(rect.vMax - rect.vMin);
   for (const dir of [1, -1] as const) {
     if (dir > 0 ? t.upper < M : t.lower > -M) continue;
-    const lM = checkLogDensity(api, dir * M, t.logDensity(dir * M));
+    // a value that is not a finite number or −Infinity out there (e.g. NaN from Infinity − Infinity in
+    // the user's formula) is read as "no information": these two points are probed for this check only
+    const lM = t.logDensity(dir * M);
     evaluations++;
-    if (!(lM > -Infinity)) continue;
-    const lHalf = checkLogDensity(api, dir * 0.5 * M, t.logDensity(dir * 0.5 * M));
+    if (typeof lM !== 'number' || !(lM > -Infinity && lM < Infinity)) continue;
+    const lHalf = t.logDensity(dir * 0.5 * M);
     evaluations++;
+    if (typeof lHalf !== 'number' || !(lHalf > -Infinity && lHalf < Infinity)) continue;
     const alpha = (lHalf - lM) / Math.LN2 - 1;
     if (!(alpha > 0)) {
       throw new ImproperDensityError(

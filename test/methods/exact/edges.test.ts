@@ -225,12 +225,14 @@ describe('granularity of the doubles (issue 17 item 4): the draw is the exact dr
     return out;
   };
 
-  it('normal(1, 1e-13): tableSampler, piecewise fast and ratio-of-uniforms match the rounded distribution on single doubles (was p = 0 for the tables)', () => {
+  it('normal(1, 1e-13): tableSampler, piecewise fast, ratio-of-uniforms, the hull and piecewise match the rounded distribution on single doubles (was p = 0 for the tables)', () => {
     const t = normalTarget(1, SD);
     for (const [name, s] of [
       ['table', tableSampler(t, { seed: 1 })],
       ['piecewise fast', piecewiseSampler(t, { seed: 1, fast: true })],
       ['ratio-of-uniforms', ratioOfUniformsSampler(t, { seed: 1 })],
+      ['hull', adaptiveRejectionSampler(t, { seed: 1 })],
+      ['piecewise', piecewiseSampler(t, { seed: 1 })],
     ] as const) {
       const xs = draw(s, 1_000_000);
       expect(perDouble(xs), name).toBeGreaterThan(ALPHA);
