@@ -184,7 +184,9 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', '
  * @param options - power, shift, optional squeeze and uniform source
  * @returns the sampler, with its `region` description
  * @throws {@link InvalidTargetError} for bad inputs, an unbounded density, a
- *   tail too heavy for the power, or a mode hint that is not a mode
+ *   tail too heavy for the power, a mode hint that is not a mode, or more than
+ *   2^−53 of the mass beyond ±1.8e308 (such draws would be ±Infinity and cannot be
+ *   tested; the message gives the share — truncate the support or sample log|x|)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
  * @throws {@link EnvelopeViolationError} at draw time when the rectangle is proven too small
