@@ -151,7 +151,7 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  * @param options - start points, piece cap, construction, transform, uniform source
  * @returns the sampler, with its `envelope` description
  * @throws {@link InvalidTargetError} for a malformed target or bad options
- * @throws {@link ShapeViolationError} when setup (or, later, adaptation) proves the target not T-concave
+ * @throws {@link ShapeViolationError} when setup (or, later, adaptation) proves the target not T-concave, or finds its support not an interval (log f = −Infinity on a gap between parts of positive density; the message names the gap)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity (or dLogDensity NaN)
  * @throws {@link EnvelopeViolationError} at draw time, when the target is found above the envelope or below the squeeze without a shape explanation

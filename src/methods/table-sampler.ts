@@ -141,7 +141,7 @@ const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 's
  * @param options - hull options, `strips`, `tailMass`, uniform source
  * @returns the sampler, with `envelope` and `table` descriptions
  * @throws {@link InvalidTargetError} for a malformed target or bad options
- * @throws {@link ShapeViolationError} when setup (or a later evaluation) proves the target not T-concave
+ * @throws {@link ShapeViolationError} when setup (or a later evaluation) proves the target not T-concave, or finds its support not an interval (the message names the gap)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
  * @throws {@link EnvelopeViolationError} at draw time, when the target is found above an envelope or below a squeeze without a shape explanation

@@ -13,6 +13,7 @@ import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, re
 import type { CheckedTarget } from '../../core/validate.js';
 import { resolveUniform } from '../../random/resolve.js';
 import { Hull, nonFiniteDerivative } from './hull.js';
+import { checkBeyondZero } from '../envelope/gaps.js';
 import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe } from './start.js';
@@ -171,6 +172,23 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
   const next = new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1);
   for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true);
   for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
+  // a zero that cuts the support: look beyond it (issue 17: never a one-sided sample)
+  let checkedLower = t.lower;
+  let checkedUpper = t.upper;
+  const checkCuts = (): void => {
+    const k = hull.k;
+    if (k === 0) return;
+    const span = hull.touchX[k - 1] - hull.touchX[0];
+    if (hull.lower > checkedLower) {
+      checkBeyondZero(api, evaluate, hull.lower, hull.touchX[0], checkedLower, span);
+      checkedLower = hull.lower;
+    }
+    if (hull.upper < checkedUpper) {
+      checkBeyondZero(api, evaluate, hull.upper, hull.touchX[k - 1], checkedUpper, span);
+      checkedUpper = hull.upper;
+    }
+  };
+  checkCuts();
   let stuck = 0;
   let refinements = 0;
   for (;;) {
@@ -188,6 +206,7 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
     }
     if (!hull.insert(p.x, p.l, p.g, true) && ++stuck > 20) break;
   }
+  checkCuts();
   const top = hull.maxRelativeHeight();
   if (top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);
   hull.maxK = Math.max(Math.floor(maxPieces / 2), hull.k);

@@ -359,3 +359,59 @@ function tailError(api: string, lf: (x: number) => number, power: number, s: num
       `choose power >= 1/(α − 1) ≈ ${need.toPrecision(3)} (a larger power bounds heavier tails)`,
   );
 }
+
+/**
+ * Largest share of the target's mass that may lie beyond ±Number.MAX_VALUE
+ * before {@link checkMassBeyondDoubles} refuses the target: 2^−53, the
+ * resolution of the uniforms (a lower bound of the share is compared with it). @internal
+ */
+export const MAX_MASS_BEYOND_DOUBLES = Math.pow(2, -53);
+
+/**
+ * Mass beyond the largest double (issue 17): the exact draw, rounded to
+ * nearest, would be ±Infinity with the probability the target puts beyond
+ * ±1.8e308, but no candidate there can be tested against the density (x
+ * overflows), so such candidates would be rejected and that mass silently
+ * dropped. Where the support reaches ±Number.MAX_VALUE, log f at M = MAX_VALUE
+ * and at M/2 give the local tail exponent f ∝ |x|^−(1+α) (α = (l(M/2) −
+ * l(M))/log 2 − 1) and the tail mass T ≈ M·f(M)/α beyond M. The region's area
+ * bounds the total mass from above (∫f/f̃max ≤ (r+1)(vMax − vMin)), so
+ * T/((r+1)(vMax − vMin)) is a lower bound of the share beyond M (power-law
+ * extrapolation at M). When it exceeds {@link MAX_MASS_BEYOND_DOUBLES} the
+ * target is refused with {@link InvalidTargetError}; α ≤ 0 there (no decay at
+ * the end of the doubles) is an {@link ImproperDensityError}. A value at
+ * either probe that is not finite (−Infinity, NaN, +Infinity) skips the
+ * check on that side: the probes serve this check only.
+ * @returns the evaluations spent
+ * @internal
+ */
+export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rectangle, power: number): number {
+  const M = Number.MAX_VALUE;
+  const logM = Math.log(M);
+  let evaluations = 0;
+  const logArea = Math.log(power + 1) + Math.log(rect.vMax - rect.vMin);
+  for (const dir of [1, -1] as const) {
+    if (dir > 0 ? t.upper < M : t.lower > -M) continue;
+    // a value that is not a finite number or −Infinity out there (e.g. NaN from Infinity − Infinity in
+    // the user's formula) is read as "no information": these two points are probed for this check only
+    const lM = t.logDensity(dir * M);
+    evaluations++;
+    if (typeof lM !== 'number' || !(lM > -Infinity && lM < Infinity)) continue;
+    const lHalf = t.logDensity(dir * 0.5 * M);
+    evaluations++;
+    if (typeof lHalf !== 'number' || !(lHalf > -Infinity && lHalf < Infinity)) continue;
+    const alpha = (lHalf - lM) / Math.LN2 - 1;
+    if (!(alpha > 0)) {
+      throw new ImproperDensityError(
+        `${api}: the density does not decay towards ${dir > 0 ? '+' : '-'}1.8e308 (logDensity ${lHalf} at ${dir * 0.5 * M}, ${lM} at ${dir * M}): the mass beyond the largest double is infinite`,
+      );
+    }
+    const logShare = logM + lM - rect.logDensityBound - Math.log(alpha) - logArea;
+    if (logShare > Math.log(MAX_MASS_BEYOND_DOUBLES)) {
+      throw new InvalidTargetError(
+        `${api}: at least about ${Math.exp(logShare).toPrecision(2)} of the mass lies beyond ${dir > 0 ? '+' : '-'}1.8e308 (the largest double; local tail f ~ |x|^(−${(1 + alpha).toPrecision(4)}) there): such draws would be ${dir > 0 ? '+' : '-'}Infinity, and candidates there cannot be tested, so exactdraw refuses the target rather than drop that mass; sample log|x| instead, or truncate the support`,
+      );
+    }
+  }
+  return evaluations;
+}
