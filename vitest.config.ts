@@ -6,5 +6,7 @@ export default defineConfig({
     testTimeout: 120_000,
     hookTimeout: 120_000,
     pool: 'forks',
+    // prints one line when the browser test is skipped (no Chromium)
+    globalSetup: ['test/browser/announce-skip.ts'],
   },
 });

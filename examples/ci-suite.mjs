@@ -3,7 +3,7 @@
 //   npx exactdraw bench examples/ci-suite.mjs --json --out out/ci-bench.json
 //   npx exactdraw bench examples/ci-suite.mjs --baseline out/ci-bench.json --tolerance 0.2
 // Scenario (INVENTED): the generators a bike-share simulation ships.
-import { cauchyProposal, normalTarget, rejectionSampler, tableSampler, truncate, uniformProposal } from '../dist/index.js';
+import { cauchyProposal, normalTarget, rejectionSampler, tableSampler, truncate, uniformProposal } from 'exactdraw';
 
 // Battery charge on return, in % (invented): normal(62, 18) truncated to [0, 100].
 const charge = truncate(normalTarget(62, 18), 0, 100);

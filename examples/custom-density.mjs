@@ -2,8 +2,8 @@
 // Scenario (INVENTED): a reliability model of the bike-share fleet needs the
 // time to the next brake-pad failure, whose hazard rises with wear; the
 // resulting density is known only up to a constant.
-// Run: npm run build && node examples/custom-density.mjs
-import { ksCheck, rejectionSampler, exponentialProposal, findLogBound } from '../dist/index.js';
+// Run (from the package root, after npm run build in a checkout): node examples/custom-density.mjs
+import { ksCheck, rejectionSampler, exponentialProposal, findLogBound } from 'exactdraw';
 
 // Unnormalized density (invented): a Weibull(shape 2.8, scale 50 days) density
 // modulated by a seasonal wear factor (1 + 0.3 sin(t / 9)):

@@ -1,8 +1,8 @@
 // Filling a large array on all cores, reproducibly (scenario and figures INVENTED:
 // ride speeds of a bike-share fleet simulation).
-// Run: npm run build && node examples/parallel-fill.mjs
-import { createParallelFiller, fillParallel } from '../dist/node/index.js';
-import { partitionedFill } from '../dist/index.js';
+// Run (from the package root, after npm run build in a checkout): node examples/parallel-fill.mjs
+import { createParallelFiller, fillParallel } from 'exactdraw/node';
+import { partitionedFill } from 'exactdraw';
 import { samplers } from './ci-suite.mjs';
 
 const n = 4_000_000;

@@ -9,6 +9,7 @@ import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Target } from '../core/types.js';
 import { checkOptionKeys, checkTarget } from '../core/validate.js';
 import { maximizeLog } from './maximize.js';
+import { pow } from '../vendor/math.js';
 
 /**
  * Safety margin added to the located supremum, in log space:
@@ -122,7 +123,7 @@ function targetRises(logf: (x: number) => number, x0: number, side: 'lower' | 'u
   let prev = -Infinity;
   let rises = 0;
   for (let k = 4; k <= 60; k += 4) {
-    const v = logf(x0 + dir * Math.pow(2, k));
+    const v = logf(x0 + dir * pow(2, k));
     if (v !== v) return false;
     if (v > prev) rises++;
     prev = v;

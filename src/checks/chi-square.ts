@@ -33,6 +33,11 @@ export interface ChiSquareResult {
  * @param counts - observed non-negative integer counts per bin
  * @param probabilities - bin probabilities (non-negative, summing to 1 within 1e-8)
  * @throws {@link InvalidTargetError} when the inputs are inconsistent
+ * @example
+ * ```ts
+ * // bikes returned per station over a day (invented) against the planned shares
+ * const { pValue, df } = chiSquareCheck([18, 25, 31, 26], [0.2, 0.25, 0.3, 0.25]);
+ * ```
  */
 export function chiSquareCheck(counts: ArrayLike<number>, probabilities: ArrayLike<number>): ChiSquareResult {
   const api = 'chiSquareCheck';

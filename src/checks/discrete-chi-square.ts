@@ -4,7 +4,8 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError } from '../core/errors.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
+import { checkOptionKeys, showValue } from '../core/validate.js';
 import { chiSquareCheck } from './chi-square.js';
 
 /** Result of {@link discreteChiSquareCheck}. */
@@ -85,9 +86,10 @@ export function discreteChiSquareCheck(
   if (!(Number.isInteger(lo) || lo === -Infinity) || !(Number.isInteger(hi) || hi === Infinity) || !(lo <= hi)) {
     throw new InvalidTargetError(`${api}: support must be integers (or infinite ends) with lower <= upper, got [${lo}, ${hi}]`);
   }
+  checkOptionKeys(api, options, ['minExpected']);
   const minExpected = options?.minExpected ?? DISCRETE_CHI_SQUARE_MIN_EXPECTED;
   if (typeof minExpected !== 'number' || !(minExpected > 0) || minExpected === Infinity) {
-    throw new InvalidTargetError(`${api}: options.minExpected must be a finite number > 0, got ${String(minExpected)}`);
+    throw new InvalidOptionError(`${api}: options.minExpected must be a finite number > 0, got ${showValue(minExpected)}`);
   }
   const n = draws.length;
   let outside = 0;

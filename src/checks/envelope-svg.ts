@@ -4,10 +4,13 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
+import { checkOptionKeys, showValue } from '../core/validate.js';
 import type { Target } from '../core/types.js';
 import { evaluateEnvelope } from '../methods/envelope/description.js';
 import type { EnvelopeDescription } from '../methods/envelope/description.js';
 import { roundTicks } from './svg-ticks.js';
+import { exp } from '../vendor/math.js';
 
 /** Options of {@link envelopeSvg}. */
 export interface EnvelopeSvgOptions {
@@ -82,15 +85,17 @@ function fmt(v: number): string {
   return (Math.round(v * 100) / 100).toString();
 }
 
+const KNOWN_OPTIONS = ['width', 'height', 'range', 'points', 'logScale', 'title', 'xLabel', 'yLabel', 'stage', 'setup', 'description'] as const;
+
 function checkText(name: string, v: unknown, def: string): string {
   if (v === undefined) return def;
-  if (typeof v !== 'string') throw new InvalidTargetError(`${API}: options.${name} must be a string, got ${String(v)}`);
+  if (typeof v !== 'string') throw new InvalidOptionError(`${API}: options.${name} must be a string, got ${showValue(v)}`);
   return v;
 }
 
 function checkDescription(name: string, v: unknown): EnvelopeDescription {
   if (v === null || typeof v !== 'object' || !Array.isArray((v as EnvelopeDescription).pieces) || !Array.isArray((v as EnvelopeDescription).touchPoints)) {
-    throw new InvalidTargetError(`${API}: ${name} must be an envelope description (with pieces and touchPoints), got ${v === null ? 'null' : typeof v}`);
+    throw new InvalidOptionError(`${API}: ${name} must be an envelope description (with pieces and touchPoints), got ${v === null ? 'null' : typeof v}`);
   }
   return v as EnvelopeDescription;
 }
@@ -105,7 +110,7 @@ const STYLE = {
 
 function checkSize(name: string, v: unknown, min: number, max: number): number {
   if (typeof v !== 'number' || !Number.isFinite(v) || v < min || v > max) {
-    throw new InvalidTargetError(`${API}: options.${name} must be a number in [${min}, ${max}], got ${String(v)}`);
+    throw new InvalidOptionError(`${API}: options.${name} must be a number in [${min}, ${max}], got ${String(v)}`);
   }
   return v;
 }
@@ -133,7 +138,7 @@ function checkSize(name: string, v: unknown, min: number, max: number): number {
  * @param target - the target the envelope was built for
  * @param options - size, x range, resolution, log scale, title, axis labels, stage
  * @returns an SVG document as a string
- * @throws {@link InvalidTargetError} for a malformed source, target or option
+ * @throws {@link InvalidTargetError} for a malformed source or target; {@link InvalidOptionError} for an unknown option or a bad option value
  * @example
  * ```ts
  * const t = gammaTarget(2.5);
@@ -159,23 +164,24 @@ export function envelopeSvg(
     throw new InvalidTargetError(`${API}: target must be an object with a logDensity function`);
   }
   if (options === null || typeof options !== 'object') {
-    throw new InvalidTargetError(`${API}: options must be an object, got ${String(options)}`);
+    throw new InvalidOptionError(`${API}: options must be an object, got ${String(options)}`);
   }
+  checkOptionKeys(API, options, KNOWN_OPTIONS);
   const width = checkSize('width', options.width ?? 640, 100, 10000);
   const height = checkSize('height', options.height ?? 360, 80, 10000);
   const n = Math.floor(checkSize('points', options.points ?? 400, 2, 100000));
   const logPlot = options.logScale ?? false;
-  if (typeof logPlot !== 'boolean') throw new InvalidTargetError(`${API}: options.logScale must be a boolean, got ${String(logPlot)}`);
+  if (typeof logPlot !== 'boolean') throw new InvalidOptionError(`${API}: options.logScale must be a boolean, got ${String(logPlot)}`);
   const title = checkText('title', options.title, 'Target, envelope and squeeze');
   const xLabel = checkText('xLabel', options.xLabel, 'x');
   const yLabel = checkText('yLabel', options.yLabel, logPlot ? 'log density (as returned by logDensity)' : 'density relative to the envelope maximum');
   const setup = options.setup === undefined ? undefined : checkDescription('options.setup', options.setup);
   const stage = options.stage ?? (setup ? 'both' : 'current');
   if (stage !== 'current' && stage !== 'setup' && stage !== 'both') {
-    throw new InvalidTargetError(`${API}: options.stage must be 'current', 'setup' or 'both', got ${typeof stage === 'string' ? `'${stage}'` : String(stage)}`);
+    throw new InvalidOptionError(`${API}: options.stage must be 'current', 'setup' or 'both', got ${typeof stage === 'string' ? `'${stage}'` : String(stage)}`);
   }
   if (stage !== 'current' && setup === undefined) {
-    throw new InvalidTargetError(`${API}: options.stage '${stage}' needs options.setup (read sampler.envelope before the first draw)`);
+    throw new InvalidOptionError(`${API}: options.stage '${stage}' needs options.setup (read sampler.envelope before the first draw)`);
   }
   // main: the hull whose envelope and squeeze are drawn in full; under: the setup envelope drawn beneath (stage 'both')
   const main = stage === 'setup' ? (setup as EnvelopeDescription) : current;
@@ -189,7 +195,7 @@ export function envelopeSvg(
   if (options.range !== undefined) {
     const r = options.range;
     if (!Array.isArray(r) || r.length !== 2 || !Number.isFinite(r[0]) || !Number.isFinite(r[1]) || !(r[0] < r[1])) {
-      throw new InvalidTargetError(`${API}: options.range must be a pair [a, b] of finite numbers with a < b, got ${String(r)}`);
+      throw new InvalidOptionError(`${API}: options.range must be a pair [a, b] of finite numbers with a < b, got ${String(r)}`);
     }
     a = r[0];
     b = r[1];
@@ -230,7 +236,7 @@ export function envelopeSvg(
   if (!(top > -Infinity)) top = 0;
   const bottom = top - 30;
   // plotted y: linear, relative to the maximum (0 .. 1); log, the logDensity values themselves
-  const yOf = (lv: number): number => (logPlot ? lv + ref : Math.exp(lv - top));
+  const yOf = (lv: number): number => (logPlot ? lv + ref : exp(lv - top));
   const yMax = logPlot ? top + ref : 1.04;
   const yMin = logPlot ? bottom + ref : 0;
 

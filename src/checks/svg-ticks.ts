@@ -3,6 +3,7 @@
  *
  * @packageDocumentation
  */
+import { log10, pow } from '../vendor/math.js';
 
 /** Ticks of an axis: positions and their labels. @internal */
 export interface AxisTicks {
@@ -22,7 +23,7 @@ export interface AxisTicks {
 export function roundTicks(lo: number, hi: number, maxTicks = 7): AxisTicks {
   if (!(Number.isFinite(lo) && Number.isFinite(hi) && hi > lo)) return { step: NaN, values: [], labels: [] };
   const raw = (hi - lo) / Math.max(1, maxTicks - 1);
-  let p = Math.pow(10, Math.floor(Math.log10(raw)));
+  let p = pow(10, Math.floor(log10(raw)));
   let step = p;
   for (let guard = 0; guard < 8; guard++) {
     step = [1, 2, 5].map((m) => m * p).find((s) => Math.floor(hi / s) - Math.ceil(lo / s) + 1 <= maxTicks) ?? NaN;
@@ -31,7 +32,7 @@ export function roundTicks(lo: number, hi: number, maxTicks = 7): AxisTicks {
   }
   const k0 = Math.ceil(lo / step - 1e-9);
   const k1 = Math.floor(hi / step + 1e-9);
-  const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9));
+  const decimals = Math.max(0, -Math.floor(log10(step) + 1e-9));
   const values: number[] = [];
   const labels: string[] = [];
   for (let k = k0; k <= k1 && values.length < 50; k++) {
@@ -46,6 +47,6 @@ function formatTick(v: number, step: number, decimals: number): string {
   if (v === 0) return '0';
   if (step >= 1e-4 && Math.abs(v) < 1e6) return v.toFixed(decimals);
   // very small or very large values: a mantissa with as many digits as the step needs
-  const digits = Math.max(0, Math.floor(Math.log10(Math.abs(v))) - Math.floor(Math.log10(step) + 1e-9));
+  const digits = Math.max(0, Math.floor(log10(Math.abs(v))) - Math.floor(log10(step) + 1e-9));
   return v.toExponential(Math.min(digits, 6)).replace('e+', 'e');
 }

@@ -7,13 +7,55 @@
 import { gammaFactory, zigguratFactory } from '../vendor/peers.js';
 import * as ed from '../index.js';
 import type { Sampler, SamplerStats, Uniform } from '../core/types.js';
-import type { SuiteEntry } from './suite.js';
+import type { SuiteEntry } from '../node/suite.js';
 import { quadratureCdf } from './demo.js';
 
 /** A suite entry that is a peer generator, not an exactdraw sampler. */
 export interface BuiltinEntry extends SuiteEntry {
   /** True for peers (their acceptance and evaluation counts are not reported). */
   peer?: boolean;
+  /** `exactdraw bench` times `draws / drawsDivisor` draws per round for this entry (each draw of the Gibbs cases is a fresh setup). */
+  drawsDivisor?: number;
+}
+
+/**
+ * A Gibbs step as a sampler: each draw builds a fresh `adaptiveRejectionSampler`
+ * on a gamma(a, b) conditional whose (a, b) change every step (the workload of
+ * bench/gibbs.mjs) and draws once. Counts add setup and sampling evaluations.
+ */
+function gibbsSampler(uniform: Uniform, tangents: boolean): Sampler {
+  let a = 2.5;
+  let b = 1.3;
+  const logDensity = (t: number): number => (t > 0 ? (a - 1) * Math.log(t) - b * t : -Infinity);
+  const conditional: ed.Target = tangents
+    ? { support: [0, Infinity], logDensity, dLogDensity: (t: number) => (a - 1) / t - b }
+    : { support: [0, Infinity], logDensity };
+  let samples = 0;
+  let proposals = 0;
+  let evaluations = 0;
+  let setup = 0;
+  const step = (): number => {
+    a = 1.5 + (samples % 11) * 0.4;
+    b = 0.5 + (samples % 7) * 0.25;
+    const s = ed.adaptiveRejectionSampler(conditional, { uniform });
+    const x = s.sample();
+    const st = s.stats;
+    samples++;
+    proposals += st.proposals;
+    evaluations += st.densityEvaluations + st.setupEvaluations;
+    setup += st.setupEvaluations;
+    return x;
+  };
+  return {
+    sample: step,
+    fill(out: Float64Array): Float64Array {
+      for (let i = 0; i < out.length; i++) out[i] = step();
+      return out;
+    },
+    get stats(): SamplerStats {
+      return { samples, proposals, densityEvaluations: evaluations, setupEvaluations: setup, acceptanceRate: proposals > 0 ? samples / proposals : 0 };
+    },
+  };
 }
 
 /** Wraps a plain generator function as a Sampler (peers have no rejection counts). */
@@ -138,6 +180,9 @@ export function builtinSuite(): BuiltinEntry[] {
     },
     { name: 'ratio-of-uniforms normal', reference: PEERS.normal, create: (uniform) => ed.ratioOfUniformsSampler(normal, { uniform }), cdf: (x) => normal.cdf!(x) },
     { name: 'ratio-of-uniforms student-t(5)', reference: PEERS.uniform, create: (uniform) => ed.ratioOfUniformsSampler(t5, { uniform }), cdf: (x) => t5.cdf!(x) },
+    // Gibbs steps: a fresh hull on a changing gamma conditional per draw (evaluations/draw include the setup)
+    { name: 'gibbs step: fresh hull, tangents', reference: PEERS.uniform, drawsDivisor: 100, create: (uniform) => gibbsSampler(uniform, true) },
+    { name: 'gibbs step: fresh hull, secants', reference: PEERS.uniform, drawsDivisor: 100, create: (uniform) => gibbsSampler(uniform, false) },
   );
   return list;
 }

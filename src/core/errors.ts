@@ -143,7 +143,7 @@ export class StalledSamplerError extends ExactDrawError {
     const rate = proposals > 0 ? samples / proposals : 0;
     super(
       'STALLED',
-      `${api}: ${rejections} consecutive rejections (samples = ${samples}, proposals = ${proposals}, acceptance rate = ${rate}); the envelope is far too loose or the target has almost no mass where the proposal puts it`,
+      `${api}: ${rejections} consecutive rejections, the limit options.maxRejections (samples = ${samples}, proposals = ${proposals}, acceptance rate = ${rate}); the envelope is far too loose or the target has almost no mass where the proposal puts it (raise options.maxRejections only if a low acceptance rate is expected)`,
     );
     this.name = 'StalledSamplerError';
     this.rejections = rejections;

@@ -4,19 +4,20 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from './errors.js';
+import { InvalidOptionError } from './errors.js';
 import type { Proposal } from './types.js';
 import { checkSupport } from './validate.js';
 
 /** Validates a proposal object and returns its support. @internal */
 export function checkProposal(api: string, proposal: Proposal | undefined): [number, number] {
   if (proposal === null || typeof proposal !== 'object') {
-    throw new InvalidTargetError(`${api}: options.proposal must be a Proposal object (e.g. normalProposal(0, 1)), got ${proposal === null ? 'null' : typeof proposal}`);
+    throw new InvalidOptionError(`${api}: options.proposal must be a Proposal object (e.g. normalProposal(0, 1)), got ${proposal === null ? 'null' : typeof proposal}`);
   }
   if (typeof proposal.sample !== 'function') {
-    throw new InvalidTargetError(`${api}: options.proposal.sample must be a function, got ${typeof proposal.sample}`);
+    throw new InvalidOptionError(`${api}: options.proposal.sample must be a function, got ${typeof proposal.sample}`);
   }
   if (typeof proposal.logDensity !== 'function') {
-    throw new InvalidTargetError(`${api}: options.proposal.logDensity must be a function, got ${typeof proposal.logDensity}`);
+    throw new InvalidOptionError(`${api}: options.proposal.logDensity must be a function, got ${typeof proposal.logDensity}`);
   }
   return checkSupport(api, 'options.proposal.support', proposal.support ?? [-Infinity, Infinity]);
 }

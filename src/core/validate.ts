@@ -3,7 +3,7 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError } from './errors.js';
+import { InvalidOptionError, InvalidTargetError } from './errors.js';
 import { DEFAULT_MAX_REJECTIONS } from './counters.js';
 import { checkLogDensity } from './evaluate.js';
 import type { Target } from './types.js';
@@ -52,7 +52,7 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
   let mode = target.mode;
   if (mode !== undefined) {
     if (typeof mode !== 'number' || !Number.isFinite(mode)) {
-      throw new InvalidTargetError(`${api}: target.mode must be a finite number when given, got ${String(mode)}`);
+      throw new InvalidTargetError(`${api}: target.mode must be a finite number when given, got ${showValue(mode)}`);
     }
     if (mode < lower || mode > upper) {
       throw new InvalidTargetError(`${api}: target.mode = ${mode} lies outside the support [${lower}, ${upper}]`);
@@ -68,18 +68,18 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
 export function checkSupport(api: string, name: string, support: readonly [number, number] | undefined): [number, number] {
   if (support === undefined) return [-Infinity, Infinity];
   if (!Array.isArray(support) || support.length !== 2) {
-    throw new InvalidTargetError(`${api}: ${name} must be a pair [lower, upper], got ${String(support)}`);
+    throw badValue(name, `${api}: ${name} must be a pair [lower, upper], got ${showValue(support)}`);
   }
   const lower = support[0] as unknown;
   const upper = support[1] as unknown;
   if (typeof lower !== 'number' || typeof upper !== 'number' || Number.isNaN(lower) || Number.isNaN(upper)) {
-    throw new InvalidTargetError(`${api}: ${name} bounds must be numbers (not NaN), got [${String(lower)}, ${String(upper)}]`);
+    throw badValue(name, `${api}: ${name} bounds must be numbers (not NaN), got [${showValue(lower)}, ${showValue(upper)}]`);
   }
   if (!(lower < upper)) {
-    throw new InvalidTargetError(`${api}: ${name} must have lower < upper, got [${lower}, ${upper}]`);
+    throw badValue(name, `${api}: ${name} must have lower < upper, got [${lower}, ${upper}]`);
   }
   if (lower === Infinity || upper === -Infinity) {
-    throw new InvalidTargetError(`${api}: ${name} is empty, got [${lower}, ${upper}]`);
+    throw badValue(name, `${api}: ${name} is empty, got [${lower}, ${upper}]`);
   }
   return [lower, upper];
 }
@@ -92,26 +92,48 @@ export function evalLog(api: string, logDensity: (x: number) => number, x: numbe
   return checkLogDensity(api, x, logDensity(x));
 }
 
-/** Throws unless `v` is a finite number. @internal */
+/**
+ * A value as messages show it: strings quoted (`'42'`), everything else as
+ * `String(v)` (arrays in brackets, objects by their tag).
+ * @internal
+ */
+export function showValue(v: unknown): string {
+  if (typeof v === 'string') return `'${v}'`;
+  if (Array.isArray(v)) return `[${v.map(showValue).join(', ')}]`;
+  if (v !== null && typeof v === 'object') return Object.prototype.toString.call(v);
+  return String(v);
+}
+
+/**
+ * The error class for a bad value of the parameter `name`: an option
+ * (`name` starts with `options.`) gets {@link InvalidOptionError}
+ * (`'INVALID_OPTION'`), a target or family parameter {@link InvalidTargetError}.
+ * @internal
+ */
+export function badValue(name: string, message: string): InvalidTargetError | InvalidOptionError {
+  return name.startsWith('options.') ? new InvalidOptionError(message) : new InvalidTargetError(message);
+}
+
+/** Throws unless `v` is a finite number (`InvalidOptionError` when `name` is `options.…`). @internal */
 export function checkFinite(api: string, name: string, v: unknown): number {
   if (typeof v !== 'number' || !Number.isFinite(v)) {
-    throw new InvalidTargetError(`${api}: ${name} must be a finite number, got ${String(v)}`);
+    throw badValue(name, `${api}: ${name} must be a finite number, got ${showValue(v)}`);
   }
   return v;
 }
 
-/** Throws unless `v` is a finite number > 0. @internal */
+/** Throws unless `v` is a finite number > 0 (`InvalidOptionError` when `name` is `options.…`). @internal */
 export function checkPositive(api: string, name: string, v: unknown): number {
   if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) {
-    throw new InvalidTargetError(`${api}: ${name} must be a finite number > 0, got ${String(v)}`);
+    throw badValue(name, `${api}: ${name} must be a finite number > 0, got ${showValue(v)}`);
   }
   return v;
 }
 
-/** Throws unless `v` is an integer in `[min, max]`. @internal */
+/** Throws unless `v` is an integer in `[min, max]` (`InvalidOptionError` when `name` is `options.…`). @internal */
 export function checkInteger(api: string, name: string, v: unknown, min: number, max: number): number {
   if (typeof v !== 'number' || !Number.isInteger(v) || v < min || v > max) {
-    throw new InvalidTargetError(`${api}: ${name} must be an integer in [${min}, ${max}], got ${String(v)}`);
+    throw badValue(name, `${api}: ${name} must be an integer in [${min}, ${max}], got ${showValue(v)}`);
   }
   return v;
 }
@@ -120,11 +142,11 @@ export function checkInteger(api: string, name: string, v: unknown, min: number,
 export function checkOptionKeys(api: string, opts: object | undefined, known: readonly string[]): void {
   if (opts === undefined) return;
   if (opts === null || typeof opts !== 'object') {
-    throw new InvalidTargetError(`${api}: options must be an object, got ${opts === null ? 'null' : typeof opts}`);
+    throw new InvalidOptionError(`${api}: options must be an object, got ${opts === null ? 'null' : typeof opts}`);
   }
   for (const k of Object.keys(opts)) {
     if (!known.includes(k)) {
-      throw new InvalidTargetError(`${api}: unknown option '${k}' (known: ${known.join(', ')})`);
+      throw new InvalidOptionError(`${api}: unknown option '${k}' (known: ${known.map((n) => `'${n}'`).join(', ')})`);
     }
   }
 }
@@ -148,6 +170,6 @@ export function resolveMaxRejections(api: string, v: unknown): number {
 /** Resolves a boolean option `name` (as written in messages, e.g. `options.fast`): `dflt` when undefined. @internal */
 export function resolveBoolean(api: string, name: string, v: unknown, dflt: boolean): boolean {
   if (v === undefined) return dflt;
-  if (typeof v !== 'boolean') throw new InvalidTargetError(`${api}: ${name} must be a boolean, got ${String(v)}`);
+  if (typeof v !== 'boolean') throw badValue(name, `${api}: ${name} must be a boolean, got ${showValue(v)}`);
   return v;
 }

@@ -5,7 +5,7 @@
  * @packageDocumentation
  */
 import { Counters } from '../core/counters.js';
-import { InvalidOptionError } from '../core/errors.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
 import type { SamplerOptions, SamplerStats } from '../core/types.js';
 import { checkOptionKeys } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
@@ -76,7 +76,7 @@ export function weightedIndexSampler(weights: ArrayLike<number>, options?: Weigh
     throw new InvalidOptionError(`${api}: options.method must be 'alias' or 'inversion', got ${typeof method === 'string' ? `'${method}'` : String(method)}`);
   }
   if (weights === null || typeof weights !== 'object' || typeof weights.length !== 'number') {
-    throw new InvalidOptionError(`${api}: weights must be an array of numbers, got ${weights === null ? 'null' : typeof weights}`);
+    throw new InvalidTargetError(`${api}: weights must be an array of numbers, got ${weights === null ? 'null' : typeof weights}`);
   }
   const units = quantizeWeights(api, weights, (i) => `weights[${i}]`);
   const u = resolveUniform(api, options);

@@ -5,7 +5,7 @@
  */
 import { wrapDraws } from '../core/draws.js';
 import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
-import { checkTarget, resolveBoolean } from '../core/validate.js';
+import { checkTarget, resolveBoolean, showValue } from '../core/validate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './envelope/description.js';
@@ -150,7 +150,7 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  * @param target - a T-concave target
  * @param options - start points, piece cap, construction, transform, uniform source
  * @returns the sampler, with its `envelope` description
- * @throws {@link InvalidTargetError} for a malformed target or bad options
+ * @throws {@link InvalidTargetError} for a malformed target; {@link InvalidOptionError} for an unknown option or a bad option value
  * @throws {@link ShapeViolationError} when setup (or, later, adaptation) proves the target not T-concave, or finds its support not an interval (log f = −Infinity on a gap between parts of positive density; the message names the gap)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity (or dLogDensity NaN)
@@ -168,7 +168,7 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   const opts = options === null || typeof options !== 'object' ? undefined : options;
   const fast = resolveBoolean(api, 'options.fast', opts?.fast, false);
   if (!fast && (opts?.strips !== undefined || opts?.tailMass !== undefined)) {
-    throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts?.strips)}, tailMass ${String(opts?.tailMass)})`);
+    throw new InvalidOptionError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${showValue(opts?.strips)}, tailMass ${showValue(opts?.tailMass)})`);
   }
   const pole = readPoleOption(api, options);
   if (pole !== undefined) {

@@ -27,6 +27,7 @@ import type { Standardisation } from './transform/standardise.js';
 import { HULL_FORWARD, POLE_FORWARD } from './standardised-forward.js';
 import { PIECEWISE_FORWARD } from './piecewise.js';
 import { RATIO_FORWARD } from './ratio-of-uniforms.js';
+import { exp, log } from '../vendor/math.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
 const SHAPE_SCAN_POINTS = DEFAULT_SCAN_POINTS;
@@ -367,7 +368,7 @@ function verdict(pts: readonly ScanPoint[], logMax: number, evaluations: number,
       break;
     }
   }
-  const tOf = (l: number): number => -Math.exp(-0.5 * (l - logMax));
+  const tOf = (l: number): number => -exp(-0.5 * (l - logMax));
   for (let j = 1; j + 1 < pts.length; j++) {
     const p = pts[j - 1];
     const q = pts[j];
@@ -413,13 +414,13 @@ function verdict(pts: readonly ScanPoint[], logMax: number, evaluations: number,
     const logConvex = s1 - s0 > e;
     if (!logConvex) continue;
     // T relative to the outermost value (T(a) = −1), as the piecewise tails do
-    const T = (l: number): number => -Math.exp(-0.5 * (l - a.l));
+    const T = (l: number): number => -exp(-0.5 * (l - a.l));
     const t0 = (T(md.l) - T(lo.l)) / w0;
     const t1 = (T(hi.l) - T(md.l)) / w1;
     const eT = NOISE * ((4 + Math.abs(T(lo.l)) + Math.abs(T(md.l)) + Math.abs(T(hi.l))) / Math.min(w0, w1) + Math.abs(t0) + Math.abs(t1));
     if (t1 - t0 <= eT) continue;
-    const r0 = Math.log(Math.abs(b.x - centre));
-    const r1 = Math.log(Math.abs(a.x - centre));
+    const r0 = log(Math.abs(b.x - centre));
+    const r1 = log(Math.abs(a.x - centre));
     const al = r1 > r0 ? -(a.l - b.l) / (r1 - r0) : NaN;
     if (al === al && !(al >= alpha)) alpha = al;
   }

@@ -4,16 +4,18 @@
  *
  * @packageDocumentation
  */
-import { Counters, DEFAULT_MAX_REJECTIONS } from '../core/counters.js';
-import { InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { Counters } from '../core/counters.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
+import { wrapDraws } from '../core/draws.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkFillArray, checkInteger, checkOptionKeys, checkTarget } from '../core/validate.js';
+import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections, showValue } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import type { EnvelopeDescription, EnvelopePiece } from './envelope/description.js';
 import { buildCells } from './certified/build.js';
 import { BoundsOracle } from './certified/cells.js';
 import type { BoundsFn } from './certified/cells.js';
 import { CertifiedState, certifiedFill } from './certified/kernel.js';
+import { exp } from '../vendor/math.js';
 
 /** Default share of the envelope area the squeeze must reach before setup stops (the acceptance rate is at least this). */
 export const DEFAULT_CERTIFIED_ACCEPTANCE = 0.99;
@@ -175,13 +177,15 @@ const KNOWN = ['targetAcceptance', 'maxCells', 'refine', 'maxRejections', 'seed'
  * interval evaluations are counted in `stats.boundEvaluations`,
  * `stats.setupBoundEvaluations` and `stats.derivativeBoundEvaluations`.
  * After an error while drawing the sampler is unusable (every later call
- * throws the same error), except after {@link StalledSamplerError}.
+ * throws the same error), except after {@link StalledSamplerError} or a bad
+ * value from an injected uniform source.
  * Since 0.1.0.
  *
  * @param target - a target with `logDensityBounds` (and, for infinite supports, `dLogDensityBounds`)
  * @param options - acceptance target, cell budget, refinement, uniform source
  * @returns the sampler, with its `cells` and `envelope` descriptions
- * @throws {@link InvalidTargetError} when the target has no `logDensityBounds`, for bad options, or for bounds that are not pairs lo ≤ hi or contradict each other
+ * @throws {@link InvalidTargetError} when the target has no `logDensityBounds`, or for bounds that are not pairs lo ≤ hi or contradict each other
+ * @throws {@link InvalidOptionError} for an unknown option or a bad option value
  * @throws {@link ShapeViolationError} naming the cell when a finite cell keeps an upper bound of +Infinity (a pole) within the budget
  * @throws {@link ImproperDensityError} naming the cell when an infinite cell cannot be given an integrable envelope (no decay proven)
  * @throws {@link EnvelopeViolationError} at draw time, when an evaluation shows the bounds were wrong
@@ -216,13 +220,12 @@ export function certifiedSampler(target: Target, options?: CertifiedOptions): Ce
   const opts: CertifiedOptions = options ?? {};
   const acc = opts.targetAcceptance ?? DEFAULT_CERTIFIED_ACCEPTANCE;
   if (typeof acc !== 'number' || !(acc >= 0.5 && acc <= 0.9999)) {
-    throw new InvalidTargetError(`${api}: options.targetAcceptance must be a number in [0.5, 0.9999], got ${String(acc)}`);
+    throw new InvalidOptionError(`${api}: options.targetAcceptance must be a number in [0.5, 0.9999], got ${showValue(acc)}`);
   }
   const maxCells = opts.maxCells === undefined ? DEFAULT_CERTIFIED_MAX_CELLS : checkInteger(api, 'options.maxCells', opts.maxCells, 2, MAX_CERTIFIED_CELLS);
-  const refine = opts.refine ?? true;
-  if (typeof refine !== 'boolean') throw new InvalidTargetError(`${api}: options.refine must be a boolean, got ${String(refine)}`);
+  const refine = resolveBoolean(api, 'options.refine', opts.refine, true);
   const maxRejections =
-    opts.maxRejections === undefined ? DEFAULT_MAX_REJECTIONS : checkInteger(api, 'options.maxRejections', opts.maxRejections, 1, Number.MAX_SAFE_INTEGER);
+    resolveMaxRejections(api, opts.maxRejections);
   const uniform = resolveUniform(api, opts);
 
   const fb = target.logDensityBounds.bind(target) as BoundsFn;
@@ -236,28 +239,11 @@ export function certifiedSampler(target: Target, options?: CertifiedOptions): Ce
   const counters = new Counters();
   const state = new CertifiedState(api, built.cells, oracle, t.logDensity, uniform, counters, maxCells, maxRejections, refine);
 
-  let failure: unknown;
-  const scratch = new Float64Array(1);
-  const run = (out: Float64Array, n: number): void => {
-    if (failure !== undefined) throw failure;
-    try {
-      certifiedFill(state, out, n);
-    } catch (e) {
-      if (!(e instanceof StalledSamplerError)) failure = e;
-      throw e;
-    }
-  };
+  const draws = wrapDraws(api, (out, n) => certifiedFill(state, out, n));
   const support: readonly [number, number] = Object.freeze([t.lower, t.upper] as [number, number]);
   return {
-    sample(): number {
-      run(scratch, 1);
-      return scratch[0];
-    },
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(api, out);
-      run(out, out.length);
-      return out;
-    },
+    sample: draws.sample,
+    fill: draws.fill,
     get stats(): CertifiedStats {
       return {
         ...counters.snapshot(),
@@ -308,7 +294,7 @@ function describeCells(s: CertifiedState, support: readonly [number, number], ro
     cells: Object.freeze(cells),
     logEnvelopeArea: s.logEnvelopeArea,
     logSqueezeArea: s.logSqueezeArea,
-    acceptanceBound: Math.exp(s.logSqueezeArea - s.logEnvelopeArea),
+    acceptanceBound: exp(s.logSqueezeArea - s.logEnvelopeArea),
     setupRounds: rounds,
   });
 }

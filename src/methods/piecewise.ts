@@ -5,6 +5,7 @@
  */
 import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { wrapDraws } from '../core/draws.js';
 import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections } from '../core/validate.js';
@@ -34,6 +35,7 @@ import { tableInX } from './standardised-forward.js';
 import { areaX, clampX, pointX } from './transform/standardise.js';
 import type { Forward, Standardisation } from './transform/standardise.js';
 import { FINE_GRAIN, isStandardised, samplerStandardised } from './transform/standardise.js';
+import { exp } from '../vendor/math.js';
 
 /**
  * Default of {@link PiecewiseOptions.targetAreaRatio}: refinement stops once
@@ -351,9 +353,9 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const adapt = resolveBoolean(api, 'options.adapt', opts.adapt, false);
   const maxRejections = resolveMaxRejections(api, opts.maxRejections);
   const fast = resolveBoolean(api, 'options.fast', opts.fast, false);
-  if (fast && adapt) throw new InvalidTargetError(`${api}: options.fast and options.adapt cannot both be true (the table of the fast path does not change after setup)`);
+  if (fast && adapt) throw new InvalidOptionError(`${api}: options.fast and options.adapt cannot both be true (the table of the fast path does not change after setup)`);
   if (!fast && (opts.strips !== undefined || opts.tailMass !== undefined)) {
-    throw new InvalidTargetError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts.strips)}, tailMass ${String(opts.tailMass)})`);
+    throw new InvalidOptionError(`${api}: options.strips and options.tailMass apply only with options.fast: true (got strips ${String(opts.strips)}, tailMass ${String(opts.tailMass)})`);
   }
   const { strips, tailMass } = resolveTableOptions(api, opts);
   const uniform = resolveUniform(api, opts);
@@ -580,7 +582,7 @@ function describe(grid: Grid, t: Tables, ratio: number, ev: Evaluator): Piecewis
     gridPoints: Object.freeze(grid.x.slice()),
     logEnvelopeArea: t.logEnvelopeArea,
     logSqueezeArea: t.logSqueezeArea,
-    areaRatio: Math.exp(t.logEnvelopeArea - t.logSqueezeArea),
+    areaRatio: exp(t.logEnvelopeArea - t.logSqueezeArea),
     targetAreaRatio: ratio,
     inflections: Object.freeze(grid.inflections()),
     extrema: Object.freeze(grid.extrema()),
@@ -624,16 +626,16 @@ function checkDerivative(api: string, pts: readonly ScanPoint[]): void {
 
 function checkBreakpoints(api: string, pts: readonly number[], t: CheckedTarget): number[] {
   if (!Array.isArray(pts)) {
-    throw new InvalidTargetError(`${api}: options.breakpoints must be an array of numbers, got ${String(pts)}`);
+    throw new InvalidOptionError(`${api}: options.breakpoints must be an array of numbers, got ${String(pts)}`);
   }
   const out: number[] = [];
   for (let i = 0; i < pts.length; i++) {
     const x = pts[i] as unknown;
     if (typeof x !== 'number' || !Number.isFinite(x)) {
-      throw new InvalidTargetError(`${api}: options.breakpoints[${i}] must be a finite number, got ${String(x)}`);
+      throw new InvalidOptionError(`${api}: options.breakpoints[${i}] must be a finite number, got ${String(x)}`);
     }
     if (x < t.lower || x > t.upper) {
-      throw new InvalidTargetError(`${api}: options.breakpoints[${i}] = ${x} lies outside the support [${t.lower}, ${t.upper}]`);
+      throw new InvalidOptionError(`${api}: options.breakpoints[${i}] = ${x} lies outside the support [${t.lower}, ${t.upper}]`);
     }
     out.push(x);
   }
@@ -642,7 +644,7 @@ function checkBreakpoints(api: string, pts: readonly number[], t: CheckedTarget)
 
 function checkRatio(api: string, v: unknown): number {
   if (typeof v !== 'number' || !(v > 1) || !(v <= 100)) {
-    throw new InvalidTargetError(`${api}: options.targetAreaRatio must be a number in (1, 100], got ${String(v)}`);
+    throw new InvalidOptionError(`${api}: options.targetAreaRatio must be a number in (1, 100], got ${String(v)}`);
   }
   return v;
 }

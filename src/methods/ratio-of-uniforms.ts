@@ -17,6 +17,7 @@ import { areaX, pointX } from './transform/standardise.js';
 import type { Forward, Standardisation } from './transform/standardise.js';
 import { cellWidthOf, isStandardised, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
+import { log, pow } from '../vendor/math.js';
 
 /** Options of {@link ratioOfUniformsSampler}. */
 export interface RatioOfUniformsOptions extends SamplerOptions {
@@ -218,7 +219,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const shift = options.shift === undefined ? undefined : checkFinite(api, 'options.shift', options.shift);
   const squeeze = options.squeeze;
   if (squeeze !== undefined && typeof squeeze !== 'function') {
-    throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
+    throw new InvalidOptionError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
@@ -283,7 +284,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       logVMinAbs: rect.logVMinAbs + k * LM,
       scaledVMin: rect.vMin,
       scaledVMax: rect.vMax,
-      logRectangleArea: LM + Math.log(this.vWidth),
+      logRectangleArea: LM + log(this.vWidth),
     });
     const draws = wrapDraws(api, (out, n) => this.run(out, n));
     this.sample = draws.sample;
@@ -301,7 +302,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       ...this.regionBase,
       estimatedAcceptance: p,
       acceptanceStandardError: proposals > 0 ? Math.sqrt((p * (1 - p)) / proposals) : NaN,
-      logRegionAreaEstimate: this.regionBase.logRectangleArea + Math.log(p),
+      logRegionAreaEstimate: this.regionBase.logRectangleArea + log(p),
     });
   }
 
@@ -310,7 +311,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     const LM = this.rect.logDensityBound;
     if (d === 0) return LM;
     const logV = d > 0 ? this.rect.logVMax : this.rect.logVMinAbs;
-    return LM + Math.min(0, this.ratio * (logV - Math.log(Math.abs(d))));
+    return LM + Math.min(0, this.ratio * (logV - log(Math.abs(d))));
   }
 
   readonly sample: () => number;
@@ -344,13 +345,13 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
         const u = 1 - uniform();
         const v = vMin + vWidth * uniform();
         c.proposals++;
-        const q = unitPower ? v / u : v / Math.pow(u, r);
+        const q = unitPower ? v / u : v / pow(u, r);
         const x = s + q;
         // x is s + q rounded to nearest: at a finite end, keep it only when s + q itself lies inside
         // (its rounding error, Knuth's TwoSum, has the sign of s + q − x); else the exact draws just
         // beyond the end, rounded onto it, would double the end's probability
         if (x >= lower && x <= upper && x > -Infinity && x < Infinity && ((x !== upper && x !== lower) || insideAtEnd(s, q, x, lower, upper))) {
-          const lhs = r1 * Math.log(u);
+          const lhs = r1 * log(u);
           let q = -Infinity;
           if (squeeze !== undefined) {
             q = checkLogDensity(`${api} (squeeze)`, x, squeeze(x));
@@ -367,7 +368,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
           const d = x - s;
           if (d > vPlus || -d > vMinus) {
             // Only here can |x − s|·(f/M)^(r/(r+1)) exceed the v-bound (f/M ≤ 1 is checked above).
-            const env = LM + ratio * ((d > 0 ? logVPlus : logVMinus) - Math.log(Math.abs(d)));
+            const env = LM + ratio * ((d > 0 ? logVPlus : logVMinus) - log(Math.abs(d)));
             if (lf > env) throw new EnvelopeViolationError(api, x, lf, env, 'envelope');
           }
           if (q > lf + SQUEEZE_TOLERANCE * (1 + Math.abs(lf))) throw new EnvelopeViolationError(api, x, lf, q, 'squeeze');

@@ -6,12 +6,14 @@
 import { findLogBound } from '../bounds/find-log-bound.js';
 import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
+import { InvalidOptionError } from '../core/errors.js';
 import { checkCovers, checkProposal } from '../core/proposal-check.js';
 import { checkLogDensity } from '../core/evaluate.js';
 import type { Proposal, Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
+import { log } from '../vendor/math.js';
 
 /** Options of {@link rejectionSampler}. */
 export interface RejectionOptions extends SamplerOptions {
@@ -83,7 +85,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   const api = 'rejectionSampler';
   const t = checkTarget(api, target);
   if (options === undefined || options === null || typeof options !== 'object') {
-    throw new InvalidTargetError(`${api}: options with a proposal are required, got ${String(options)}`);
+    throw new InvalidOptionError(`${api}: options with a proposal are required, got ${String(options)}`);
   }
   checkOptionKeys(api, options, KNOWN);
   const proposal = options.proposal;
@@ -91,7 +93,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
   checkCovers(api, [t.lower, t.upper], pSupport);
   const squeeze = options.squeeze;
   if (squeeze !== undefined && typeof squeeze !== 'function') {
-    throw new InvalidTargetError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
+    throw new InvalidOptionError(`${api}: options.squeeze must be a function when given, got ${typeof squeeze}`);
   }
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
@@ -119,7 +121,7 @@ export function rejectionSampler(target: Target, options: RejectionOptions): Rej
       counters.proposals++;
       if (x >= lower && x <= upper) {
         const logEnv = logC + proposal.logDensity(x);
-        const logV = Math.log(1 - uniform());
+        const logV = log(1 - uniform());
         const threshold = logV + logEnv;
         let s = -Infinity;
         if (squeeze !== undefined) {

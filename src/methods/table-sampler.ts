@@ -77,60 +77,25 @@ const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 's
  * `adaptiveRejectionSampler(target, { fast: true })`).
  *
  * @remarks
- * Setup builds the hull of {@link adaptiveRejectionSampler}, uses it to plan
- * a table of `strips` strips over the body of the target (the strip idea of
- * the ziggurat, Marsaglia & Tsang 2000, with vertical strips), evaluates the
- * target at the strip boundaries and derives for each strip a constant
- * envelope value M ≥ f and a constant squeeze value m ≤ f on the strip from
- * those values and T-concavity alone: m is the smaller end value, M the
- * larger one on the strips where the values show f monotone, and around the
- * mode the maximum of the neighbouring chords' extensions (Gilks 1992) or of
- * the hull, whichever is lower. The setup also checks the boundary values
- * for T-concavity ({@link ShapeViolationError} names the interval). The
- * tails beyond the body are the extensions of the outermost chords, sampled
- * exactly. The regions — the sure rectangle [x_i, x_{i+1}] × [0, m_i] of
- * each strip, the cap above it up to M_i, and the two tails — are selected
- * with probability proportional to their area through an alias table
- * (Walker 1977; Vose 1991) of K = 2^b cells.
- *
- * Drawing: one 53-bit uniform u = k/2^53 gives everything. With K = 2^b
- * cells (`table.indexBits` = b), t = u·K is exact, the cell is j = ⌊t⌋ —
- * the top b bits of k — and v = t − j — the low 53 − b bits of k over
- * 2^(53−b) — chooses between the cell's own region (v < P_j) and its alias
- * and, rescaled, the position inside the region. Since k is uniform on
- * [0, 2^53), its top and low bits are independent and uniform, so the
- * region is selected with its exact probability (up to the 2^(b−53) grid of
- * v, about 2^−43 at the default size) and the position is uniform on it,
- * independent of the selection. From `@stdlib/random-base-mt19937`'s
- * `normalized()`, k = (o₁ ≫ 5)·2^26 + (o₂ ≫ 6) for consecutive 32-bit outputs
- * o₁, o₂: the cell comes from the top b bits of o₁, the position from the
- * remaining 27 − b bits of o₁ and the top 26 bits of o₂. In a sure rectangle the draw is
- * `x = B + v·S`, accepted at once — the overwhelmingly common case. In a
- * cap a second uniform gives a height h on (m, M]: the candidate is accepted
- * without evaluation when h lies under the strip's chord, rejected without
- * evaluation when it lies above the neighbouring chords' extensions, and
- * otherwise decided by evaluating the target (counted, checked for
- * NaN/+Infinity, against M, the upper lines and the chord, with the hull
- * tolerance). In a tail the candidate is drawn by inverting the tail piece
- * and accepted with a second uniform after evaluating the target. A
- * rejected candidate starts over with a fresh uniform (bounded by
- * `maxRejections`). An evaluation above an envelope or below a squeeze
- * contradicts T-concavity at that point and its neighbouring boundaries and
- * throws {@link ShapeViolationError} (or {@link EnvelopeViolationError} when
- * the points do not show it); after such an error, or a
- * {@link NonFiniteDensityError}, every later call throws the same error.
+ * Setup builds the hull of {@link adaptiveRejectionSampler}, plans a table of
+ * `strips` vertical strips over the body of the target (the strip idea of the
+ * ziggurat, Marsaglia & Tsang 2000), evaluates the target at the strip
+ * boundaries and derives each strip's envelope and squeeze from T-concavity
+ * alone; regions are selected through an alias table (Walker 1977; Vose 1991).
+ * The boundary values are checked for T-concavity ({@link ShapeViolationError}
+ * names the interval). Most draws take one uniform and no evaluation; the
+ * evaluations that do happen are checked like the hull's, and after a thrown
+ * error every later call throws it again. How a draw is made from one
+ * uniform: DEVELOPERS.md, "Method internals".
  *
  * Stream: each candidate consumes one uniform, plus one more in a cap or a
- * tail. The table never adapts: its draws do not depend on how they are
- * split between `sample()` and `fill()` calls. With `seed` the sampler owns
- * its MT19937 and reads it in blocks of 512 uniforms from a block generator
- * started at the seeded state (the same values as calling the source one at
- * a time, checked in the tests; it avoids a per-value call, which V8 makes
- * markedly slower once several generators share the code); an injected
- * `uniform` is called once per value, in order. Counts:
- * `stats.setupEvaluations` counts the hull's setup, the placement (about
- * 100) and the strip boundaries (`strips + 1`); `stats.densityEvaluations`
- * the evaluations while drawing. Since 0.1.0.
+ * tail. The table never adapts, so draws do not depend on how they are split
+ * between `sample()` and `fill()`. With `seed` (or `stream`) the sampler owns
+ * its MT19937 and reads it in blocks (same values as one at a time, faster);
+ * an injected `uniform` is called once per value, in order.
+ * `stats.setupEvaluations` counts the hull's setup, the placement (about 100)
+ * and the strip boundaries (`strips + 1`); `stats.densityEvaluations` the
+ * evaluations while drawing. Since 0.1.0.
  *
  * When to use it: for many draws from one target (simulation, fills of
  * large arrays). For a target that changes every few draws (Gibbs full

@@ -5,7 +5,8 @@
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
-import { InvalidTargetError } from '../core/errors.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
+import { checkOptionKeys, showValue } from '../core/validate.js';
 import { partRange } from '../random/partition.js';
 
 /**
@@ -64,26 +65,41 @@ interface Reply {
   /** Id of the job replied to (0: the start-up). */
   id: number;
   error?: string;
+  /** Code of a typed start-up error (unknown entry, malformed suite). */
+  code?: string;
 }
 
 const API = 'fillParallel';
+
+const SPEC_KEYS = ['module', 'name'] as const;
 
 function checkSpec(api: string, spec: ParallelSamplerSpec): void {
   if (spec === null || typeof spec !== 'object' || typeof spec.module !== 'string' || typeof spec.name !== 'string') {
     throw new InvalidTargetError(`${api}: spec must be { module: string, name: string }, got ${JSON.stringify(spec)}`);
   }
+  for (const k of Object.keys(spec)) {
+    if (!(SPEC_KEYS as readonly string[]).includes(k)) throw new InvalidOptionError(`${api}: spec has an unknown key '${k}' (known: 'module', 'name')`);
+  }
 }
 
 function checkWorkers(api: string, workers: unknown): number {
-  const w = workers ?? availableParallelism();
-  if (typeof w !== 'number' || !Number.isInteger(w) || w < 1 || w > 256) throw new InvalidTargetError(`${api}: workers must be an integer in [1, 256], got ${String(w)}`);
+  const w = workers === undefined ? availableParallelism() : workers;
+  if (typeof w !== 'number' || !Number.isInteger(w) || w < 1 || w > 256) throw new InvalidOptionError(`${api}: options.workers must be an integer in [1, 256], got ${showValue(w)}`);
   return w;
 }
 
 function checkSeed(api: string, seed: unknown): number {
-  const s = seed ?? 5489;
-  if (typeof s !== 'number' || !Number.isInteger(s) || s < 0 || s > Number.MAX_SAFE_INTEGER) throw new InvalidTargetError(`${api}: seed must be an integer in [0, 2^53 - 1], got ${String(s)}`);
+  const s = seed === undefined ? 5489 : seed;
+  if (typeof s !== 'number' || !Number.isInteger(s) || s < 0 || s > Number.MAX_SAFE_INTEGER) throw new InvalidOptionError(`${api}: options.seed must be an integer in [0, 2^53 - 1], got ${showValue(s)}`);
   return s;
+}
+
+/** The typed error of a start-up reply that carries a code (the message already names the API). */
+function startupError(m: Reply): Error | undefined {
+  if (m.id !== 0 || m.error === undefined) return undefined;
+  if (m.code === 'INVALID_TARGET') return new InvalidTargetError(m.error);
+  if (m.code === 'INVALID_OPTION') return new InvalidOptionError(m.error);
+  return undefined;
 }
 
 /** One worker thread and the promise of its current job. */
@@ -99,10 +115,10 @@ class PoolWorker {
     spec: ParallelSamplerSpec,
   ) {
     const url = new URL('./fill-worker.js', import.meta.url);
-    this.worker = new Worker(url, { workerData: { module: spec.module, name: spec.name, cwd: process.cwd() } });
+    this.worker = new Worker(url, { workerData: { module: spec.module, name: spec.name, cwd: process.cwd(), api } });
     this.worker.on('message', (m: Reply) => {
       if (this.pending === null || m.id !== this.pending.id) return; // not the job waited for (cannot happen while fills wait for every part); ignore it
-      this.settle(m.ok ? null : new Error(`${this.api}: worker ${this.index} failed: ${m.error ?? 'unknown error'}`));
+      this.settle(m.ok ? null : startupError(m) ?? new Error(`${this.api}: worker ${this.index} failed: ${m.error ?? 'unknown error'}`));
     });
     this.worker.on('error', (e: Error) => this.fail(e));
     this.worker.on('exit', (code) => this.fail(new Error(`${this.api}: worker ${this.index} exited with code ${code}`)));
@@ -164,7 +180,8 @@ class PoolWorker {
  * @param spec - module and entry name of the sampler
  * @param opts - worker count
  * @returns a promise of the filler
- * @throws InvalidTargetError (from `exactdraw`) for bad arguments
+ * @throws InvalidTargetError (from `exactdraw`) for a bad spec or `out`, and when the module has no entry of that name (the message lists the known names)
+ * @throws InvalidOptionError (from `exactdraw`) for an unknown option key (a typo such as `workerz`) or a bad option value
  * @example
  * ```ts
  * const filler = await createParallelFiller({ module: './my-samplers.mjs', name: 'service time' }, { workers: 2 });
@@ -178,7 +195,7 @@ export async function createParallelFiller(spec: ParallelSamplerSpec, opts: Para
 
 async function startFiller(api: string, spec: ParallelSamplerSpec, opts: ParallelFillerOptions): Promise<ParallelFiller> {
   checkSpec(api, spec);
-  if (opts === null || typeof opts !== 'object') throw new InvalidTargetError(`${api}: options must be an object, got ${String(opts)}`);
+  checkOptionKeys(api, opts, ['workers']);
   const workers = checkWorkers(api, opts.workers);
   const pool: PoolWorker[] = [];
   for (let k = 0; k < workers; k++) pool.push(new PoolWorker(api, k, spec));
@@ -195,8 +212,9 @@ async function startFiller(api: string, spec: ParallelSamplerSpec, opts: Paralle
     async fill(out: Float64Array, fillOpts: ParallelFillOptions = {}): Promise<Float64Array> {
       if (closed) throw new Error(`${api}: the filler is closed`);
       if (busy) throw new Error(`${api}: a fill is already running on this filler; await it first`);
-      if (!(out instanceof Float64Array)) throw new InvalidTargetError(`${api}: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-      const seed = checkSeed(api, fillOpts?.seed);
+      if (!(out instanceof Float64Array)) throw new InvalidTargetError(`${api}(...).fill: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
+      checkOptionKeys(`${api}(...).fill`, fillOpts, ['seed']);
+      const seed = checkSeed(`${api}(...).fill`, fillOpts.seed);
       busy = true;
       try {
         const shared = out.buffer instanceof SharedArrayBuffer;
@@ -241,7 +259,8 @@ async function startFiller(api: string, spec: ParallelSamplerSpec, opts: Paralle
  * @param out - array to fill
  * @param opts - worker count and seed
  * @returns a promise of `out`
- * @throws InvalidTargetError (from `exactdraw`) for bad arguments; a worker's error rejects the promise
+ * @throws InvalidTargetError (from `exactdraw`) for a bad spec or `out`, and when the module has no entry of that name (the message lists the known names)
+ * @throws InvalidOptionError (from `exactdraw`) for an unknown option key (a typo such as `worker`) or a bad option value; a worker's error rejects the promise
  * @example
  * ```ts
  * const draws = new Float64Array(new SharedArrayBuffer(8 * 1e8));
@@ -251,7 +270,7 @@ async function startFiller(api: string, spec: ParallelSamplerSpec, opts: Paralle
 export async function fillParallel(spec: ParallelSamplerSpec, out: Float64Array, opts: FillParallelOptions = {}): Promise<Float64Array> {
   checkSpec(API, spec);
   if (!(out instanceof Float64Array)) throw new InvalidTargetError(`${API}: out must be a Float64Array, got ${Object.prototype.toString.call(out)}`);
-  if (opts === null || typeof opts !== 'object') throw new InvalidTargetError(`${API}: options must be an object, got ${String(opts)}`);
+  checkOptionKeys(API, opts, ['workers', 'seed']);
   const workers = checkWorkers(API, opts.workers);
   const seed = checkSeed(API, opts.seed);
   const filler = await startFiller(API, spec, { workers });

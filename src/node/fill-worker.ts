@@ -6,16 +6,17 @@
  * @packageDocumentation
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { pathToFileURL } from 'node:url';
-import { isAbsolute, resolve } from 'node:path';
+import { ExactDrawError } from '../core/errors.js';
 import { substream } from '../random/substream.js';
-import { validateSuite } from '../cli/suite.js';
-import type { SuiteEntry } from '../cli/suite.js';
+import { findSuiteEntry, suiteModuleUrl, validateSuite } from './suite.js';
+import type { SuiteEntry } from './suite.js';
 
 interface Init {
   module: string;
   name: string;
   cwd: string;
+  /** Public API shown in messages. */
+  api: string;
 }
 
 interface Job {
@@ -31,12 +32,10 @@ interface Job {
 const message = (e: unknown): string => (e instanceof Error ? e.message : String(e));
 
 async function load(init: Init): Promise<SuiteEntry> {
-  const spec = /^[a-z]+:/i.test(init.module) ? init.module : pathToFileURL(isAbsolute(init.module) ? init.module : resolve(init.cwd, init.module)).href;
-  const mod = (await import(spec)) as { samplers?: unknown; default?: unknown };
-  const entries = validateSuite(init.module, mod.samplers ?? mod.default);
-  const entry = entries.find((e) => e.name === init.name);
-  if (entry === undefined) throw new Error(`no sampler named '${init.name}' in ${init.module} (have: ${entries.map((e) => e.name).join(', ')})`);
-  return entry;
+  const mod = (await import(suiteModuleUrl(init.module, init.cwd))) as { samplers?: unknown; default?: unknown };
+  const value = mod.samplers ?? (Array.isArray(mod.default) ? mod.default : (mod.default as { samplers?: unknown } | undefined)?.samplers);
+  const entries = validateSuite(init.module, value, init.api);
+  return findSuiteEntry(entries, init.name, init.module, init.api);
 }
 
 load(workerData as Init).then(
@@ -52,5 +51,5 @@ load(workerData as Init).then(
     });
     parentPort?.postMessage({ ok: true, id: 0 });
   },
-  (e: unknown) => parentPort?.postMessage({ ok: false, id: 0, error: message(e) }),
+  (e: unknown) => parentPort?.postMessage({ ok: false, id: 0, error: message(e), code: e instanceof ExactDrawError ? e.code : undefined }),
 );

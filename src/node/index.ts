@@ -6,5 +6,5 @@
  */
 export { fillParallel, createParallelFiller } from './fill-parallel.js';
 export type { ParallelSamplerSpec, FillParallelOptions, ParallelFiller, ParallelFillerOptions, ParallelFillOptions } from './fill-parallel.js';
-export { loadSuite, validateSuite } from '../cli/suite.js';
-export type { SuiteEntry } from '../cli/suite.js';
+export { loadSuite, validateSuite, suiteModuleUrl, findSuiteEntry } from './suite.js';
+export type { SuiteEntry } from './suite.js';

@@ -5,6 +5,7 @@
  */
 import type { Proposal, Uniform } from '../core/types.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
+import { log, log1p, tan } from '../vendor/math.js';
 
 /** |z| above which z² is not formed (it would overflow long before 1e154). */
 const BIG_Z = 1e100;
@@ -35,17 +36,17 @@ export function cauchyProposal(location: number, scale: number): Proposal {
   const api = 'cauchyProposal';
   checkFinite(api, 'location', location);
   checkPositive(api, 'scale', scale);
-  const c = -Math.log(Math.PI * scale);
+  const c = -log(Math.PI * scale);
   return {
     sample(u: Uniform): number {
-      return location + scale * Math.tan(Math.PI * (u() - 0.5));
+      return location + scale * tan(Math.PI * (u() - 0.5));
     },
     logDensity(x: number): number {
       const z = (x - location) / scale;
       const az = Math.abs(z);
-      if (az <= BIG_Z) return c - Math.log1p(z * z);
+      if (az <= BIG_Z) return c - log1p(z * z);
       if (az === Infinity) return -Infinity;
-      return c - 2 * Math.log(az) - Math.log1p(1 / az / az);
+      return c - 2 * log(az) - log1p(1 / az / az);
     },
     support: [-Infinity, Infinity] as const,
   };

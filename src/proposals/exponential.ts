@@ -5,6 +5,7 @@
  */
 import type { Proposal, Uniform } from '../core/types.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
+import { log } from '../vendor/math.js';
 
 /**
  * The exponential distribution with rate `rate`, shifted to start at
@@ -30,10 +31,10 @@ export function exponentialProposal(rate: number, origin: number = 0): Proposal 
   const api = 'exponentialProposal';
   checkPositive(api, 'rate', rate);
   checkFinite(api, 'origin', origin);
-  const logRate = Math.log(rate);
+  const logRate = log(rate);
   return {
     sample(u: Uniform): number {
-      return origin - Math.log(1 - u()) / rate;
+      return origin - log(1 - u()) / rate;
     },
     logDensity(x: number): number {
       return x >= origin ? logRate - rate * (x - origin) : x !== x ? NaN : -Infinity;

@@ -6,6 +6,7 @@
 import type { Proposal, Uniform } from '../core/types.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import { normalFromUniform } from './_internals/normal-quantile.js';
+import { log } from '../vendor/math.js';
 
 /** log(2π) / 2. */
 const HALF_LOG_2PI = 0.9189385332046728;
@@ -36,7 +37,7 @@ export function normalProposal(mean: number, sd: number): Proposal {
   const api = 'normalProposal';
   checkFinite(api, 'mean', mean);
   checkPositive(api, 'sd', sd);
-  const c = -Math.log(sd) - HALF_LOG_2PI;
+  const c = -log(sd) - HALF_LOG_2PI;
   return {
     sample(u: Uniform): number {
       return mean + sd * normalFromUniform(u());

@@ -6,6 +6,7 @@
 import { InvalidTargetError } from '../core/errors.js';
 import type { Proposal, Uniform } from '../core/types.js';
 import { checkFinite } from '../core/validate.js';
+import { log } from '../vendor/math.js';
 
 /**
  * The uniform distribution on `[a, b]` as a {@link Proposal}.
@@ -34,7 +35,7 @@ export function uniformProposal(a: number, b: number): Proposal {
   if (!Number.isFinite(width)) {
     throw new InvalidTargetError(`${api}: the width b - a must be finite, got a = ${a}, b = ${b}`);
   }
-  const logDens = -Math.log(width);
+  const logDens = -log(width);
   return {
     sample(u: Uniform): number {
       const x = a + width * u();

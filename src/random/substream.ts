@@ -3,10 +3,9 @@
  *
  * @packageDocumentation
  */
-import { mt19937Factory } from '../vendor/stdlib.js';
 import { InvalidTargetError } from '../core/errors.js';
 import type { MersenneTwister } from './mersenne-twister.js';
-import { wrapStdlibMt } from './mersenne-twister.js';
+import { generatorFromState, seededState } from './mersenne-twister.js';
 
 const TWO32 = 4294967296;
 
@@ -66,5 +65,5 @@ export function substream(seed: number, index: number): MersenneTwister {
       throw new InvalidTargetError(`substream: ${name} must be an integer in [0, 2^53 - 1], got ${String(v)}`);
     }
   }
-  return wrapStdlibMt(mt19937Factory({ seed: substreamKey(seed, index), copy: true }));
+  return generatorFromState(seededState(substreamKey(seed, index)));
 }

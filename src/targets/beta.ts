@@ -7,9 +7,10 @@ import { betaCdf, betaln } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import type { PoleTarget } from './end-distance.js';
+import { log, log1p, pow } from '../vendor/math.js';
 
 /** The largest double below 1. */
-const ONE_BELOW = 1 - Math.pow(2, -53);
+const ONE_BELOW = /* @__PURE__ */ (() => 1 - pow(2, -53))();
 
 /**
  * The beta distribution Beta(a, b) (density x^(a−1) (1−x)^(b−1) / B(a, b) on
@@ -80,7 +81,7 @@ export function betaTarget(a: number, b: number): FamilyTarget & PoleTarget {
   const target: FamilyTarget & PoleTarget = {
     logDensity(x: number): number {
       if (x > 0 && x < 1) {
-        return (am1 === 0 ? 0 : am1 * Math.log(x)) + (bm1 === 0 ? 0 : bm1 * Math.log1p(-x)) + c;
+        return (am1 === 0 ? 0 : am1 * log(x)) + (bm1 === 0 ? 0 : bm1 * log1p(-x)) + c;
       }
       if (x === 0) return atZero;
       if (x === 1) return atOne;
@@ -95,7 +96,7 @@ export function betaTarget(a: number, b: number): FamilyTarget & PoleTarget {
     support: [0, 1] as const,
     ...(a < 1 || b < 1 ? { poles: a < 1 && b < 1 ? ('both' as const) : a < 1 ? ('lower' as const) : ('upper' as const) } : {}),
     logDensityFromUpper(d: number): number {
-      if (d > 0 && d < 1) return (am1 === 0 ? 0 : am1 * Math.log1p(-d)) + (bm1 === 0 ? 0 : bm1 * Math.log(d)) + c;
+      if (d > 0 && d < 1) return (am1 === 0 ? 0 : am1 * log1p(-d)) + (bm1 === 0 ? 0 : bm1 * log(d)) + c;
       if (d === 0) return atOne;
       if (d === 1) return atZero;
       return d !== d ? NaN : -Infinity;

@@ -6,6 +6,7 @@
 import { exponentialCdf } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { exp, log } from '../vendor/math.js';
 
 /**
  * The exponential distribution with rate `rate` (density rate·e^(−rate·x) on
@@ -30,7 +31,7 @@ import type { FamilyTarget } from './family-target.js';
 export function exponentialTarget(rate: number = 1): FamilyTarget {
   const api = 'exponentialTarget';
   checkPositive(api, 'rate', rate);
-  const logRate = Math.log(rate);
+  const logRate = log(rate);
   return {
     logDensity(x: number): number {
       if (x >= 0) return x === Infinity ? -Infinity : logRate - rate * x;
@@ -47,7 +48,7 @@ export function exponentialTarget(rate: number = 1): FamilyTarget {
     },
     sf(x: number): number {
       if (!(x > 0)) return x !== x ? NaN : 1;
-      return Math.exp(-rate * x);
+      return exp(-rate * x);
     },
   };
 }

@@ -8,6 +8,7 @@ import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import type { PoleTarget } from './end-distance.js';
 import { lowerRegularizedGamma, upperRegularizedGamma } from './_internals/gamma-series.js';
+import { log } from '../vendor/math.js';
 
 /**
  * Shape from which {@link gammaTarget} computes its cdf with the incomplete
@@ -69,7 +70,7 @@ export function gammaTarget(shape: number, rate: number = 1): FamilyTarget & Pol
   const api = 'gammaTarget';
   checkPositive(api, 'shape', shape);
   checkPositive(api, 'rate', rate);
-  const logRate = Math.log(rate);
+  const logRate = log(rate);
   const shapeM1 = shape - 1;
   const c = logRate - gammaln(shape);
   const atZero = shape > 1 ? -Infinity : shape === 1 ? logRate : -Infinity;
@@ -81,8 +82,8 @@ export function gammaTarget(shape: number, rate: number = 1): FamilyTarget & Pol
         if (x === Infinity) return -Infinity;
         const rx = rate * x;
         // rate·x underflows to 0 only for x near the smallest doubles and rate < 1
-        if (rx === 0) return (shapeM1 === 0 ? 0 : shapeM1 * (Math.log(x) + logRate)) + c;
-        return (shapeM1 === 0 ? 0 : shapeM1 * Math.log(rx)) - rx + c;
+        if (rx === 0) return (shapeM1 === 0 ? 0 : shapeM1 * (log(x) + logRate)) + c;
+        return (shapeM1 === 0 ? 0 : shapeM1 * log(rx)) - rx + c;
       }
       if (x === 0) return atZero;
       return x < 0 ? -Infinity : NaN;

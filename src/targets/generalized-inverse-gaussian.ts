@@ -7,6 +7,7 @@ import { InvalidTargetError } from '../core/errors.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import { logBesselK, QuadratureCdf } from './_internals/gig-quadrature.js';
+import { log } from '../vendor/math.js';
 
 /**
  * The generalized inverse Gaussian distribution GIG(p, a, b): density
@@ -67,7 +68,7 @@ export function generalizedInverseGaussianTarget(p: number, a: number, b: number
     throw new InvalidTargetError(`${api}: √(a·b) must lie in (1e-300, 1e300), got a = ${a}, b = ${b} (√(ab) = ${z})`);
   }
   const logK = logBesselK(api, p, z);
-  const logC = (p / 2) * (Math.log(a) - Math.log(b)) - Math.LN2 - logK;
+  const logC = (p / 2) * (log(a) - log(b)) - Math.LN2 - logK;
   const pm1 = p - 1;
   const ha = a / 2;
   const hb = b / 2;
@@ -77,7 +78,7 @@ export function generalizedInverseGaussianTarget(p: number, a: number, b: number
   const tab = (): QuadratureCdf => (table ??= new QuadratureCdf(api, p, a, b, logC));
   return {
     logDensity(x: number): number {
-      if (x > 0) return x === Infinity ? -Infinity : logC + pm1 * Math.log(x) - ha * x - hb / x;
+      if (x > 0) return x === Infinity ? -Infinity : logC + pm1 * log(x) - ha * x - hb / x;
       if (x === 0) return -Infinity;
       return x < 0 ? -Infinity : NaN;
     },
@@ -91,12 +92,12 @@ export function generalizedInverseGaussianTarget(p: number, a: number, b: number
     cdf(x: number): number {
       if (!(x > 0)) return x !== x ? NaN : 0;
       if (x === Infinity) return 1;
-      return tab().cdf(Math.log(x));
+      return tab().cdf(log(x));
     },
     sf(x: number): number {
       if (!(x > 0)) return x !== x ? NaN : 1;
       if (x === Infinity) return 0;
-      return tab().sf(Math.log(x));
+      return tab().sf(log(x));
     },
   };
 }

@@ -6,6 +6,7 @@
 import { gumbelCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { exp, expm1, log } from '../vendor/math.js';
 
 /**
  * The Gumbel distribution for maxima with location `location` and scale
@@ -34,16 +35,16 @@ export function gumbelTarget(location: number = 0, scale: number = 1): FamilyTar
   const api = 'gumbelTarget';
   checkFinite(api, 'location', location);
   checkPositive(api, 'scale', scale);
-  const logScale = Math.log(scale);
+  const logScale = log(scale);
   return {
     logDensity(x: number): number {
       const z = (x - location) / scale;
       if (z !== z) return NaN;
-      const e = Math.exp(-z);
+      const e = exp(-z);
       return e === Infinity ? -Infinity : -z - e - logScale;
     },
     dLogDensity(x: number): number {
-      return Math.expm1(-(x - location) / scale) / scale;
+      return expm1(-(x - location) / scale) / scale;
     },
     support: [-Infinity, Infinity] as const,
     mode: location,
@@ -51,7 +52,7 @@ export function gumbelTarget(location: number = 0, scale: number = 1): FamilyTar
       return gumbelCdf(x, location, scale);
     },
     sf(x: number): number {
-      return -Math.expm1(-Math.exp(-(x - location) / scale));
+      return -expm1(-exp(-(x - location) / scale));
     },
   };
 }

@@ -8,6 +8,7 @@ import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import { GAMMA_SERIES_MIN_SHAPE } from './gamma.js';
 import { lowerRegularizedGamma, upperRegularizedGamma } from './_internals/gamma-series.js';
+import { log } from '../vendor/math.js';
 
 /**
  * The inverse-gamma distribution with shape `shape` (α) and scale `scale`
@@ -42,12 +43,12 @@ export function inverseGammaTarget(shape: number, scale: number = 1): FamilyTarg
   const api = 'inverseGammaTarget';
   checkPositive(api, 'shape', shape);
   checkPositive(api, 'scale', scale);
-  const c = shape * Math.log(scale) - gammaln(shape);
+  const c = shape * log(scale) - gammaln(shape);
   const ap1 = shape + 1;
   const useSeries = shape >= GAMMA_SERIES_MIN_SHAPE;
   return {
     logDensity(x: number): number {
-      if (x > 0) return x === Infinity ? -Infinity : c - ap1 * Math.log(x) - scale / x;
+      if (x > 0) return x === Infinity ? -Infinity : c - ap1 * log(x) - scale / x;
       if (x === 0) return -Infinity;
       return x < 0 ? -Infinity : NaN;
     },

@@ -6,6 +6,7 @@
 import { laplaceCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { log } from '../vendor/math.js';
 
 /**
  * The Laplace distribution with location `location` and scale `scale`
@@ -35,7 +36,7 @@ export function laplaceTarget(location: number = 0, scale: number = 1): FamilyTa
   const api = 'laplaceTarget';
   checkFinite(api, 'location', location);
   checkPositive(api, 'scale', scale);
-  const c = -Math.log(2 * scale);
+  const c = -log(2 * scale);
   return {
     logDensity(x: number): number {
       return -Math.abs((x - location) / scale) + c;

@@ -6,6 +6,7 @@
 import { logisticCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { exp, log, log1p, tanh } from '../vendor/math.js';
 
 /**
  * The logistic distribution with location `location` and scale `scale` as a
@@ -32,14 +33,14 @@ export function logisticTarget(location: number = 0, scale: number = 1): FamilyT
   const api = 'logisticTarget';
   checkFinite(api, 'location', location);
   checkPositive(api, 'scale', scale);
-  const logScale = Math.log(scale);
+  const logScale = log(scale);
   return {
     logDensity(x: number): number {
       const az = Math.abs((x - location) / scale);
-      return -az - 2 * Math.log1p(Math.exp(-az)) - logScale;
+      return -az - 2 * log1p(exp(-az)) - logScale;
     },
     dLogDensity(x: number): number {
-      return -Math.tanh((x - location) / scale / 2) / scale;
+      return -tanh((x - location) / scale / 2) / scale;
     },
     support: [-Infinity, Infinity] as const,
     mode: location,

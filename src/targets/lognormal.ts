@@ -6,6 +6,7 @@
 import { lognormalCdf, normalCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { exp, log } from '../vendor/math.js';
 
 /** log(2π) / 2. */
 const HALF_LOG_2PI = 0.9189385332046728;
@@ -37,13 +38,13 @@ export function lognormalTarget(mu: number = 0, sigma: number = 1): FamilyTarget
   const api = 'lognormalTarget';
   checkFinite(api, 'mu', mu);
   checkPositive(api, 'sigma', sigma);
-  const c = -Math.log(sigma) - HALF_LOG_2PI;
-  const mode = Math.exp(mu - sigma * sigma);
+  const c = -log(sigma) - HALF_LOG_2PI;
+  const mode = exp(mu - sigma * sigma);
   return {
     logDensity(x: number): number {
       if (x > 0) {
         if (x === Infinity) return -Infinity;
-        const lx = Math.log(x);
+        const lx = log(x);
         const z = (lx - mu) / sigma;
         return -0.5 * z * z - lx + c;
       }
@@ -51,7 +52,7 @@ export function lognormalTarget(mu: number = 0, sigma: number = 1): FamilyTarget
       return x < 0 ? -Infinity : NaN;
     },
     dLogDensity(x: number): number {
-      if (x > 0) return -(1 + (Math.log(x) - mu) / (sigma * sigma)) / x;
+      if (x > 0) return -(1 + (log(x) - mu) / (sigma * sigma)) / x;
       if (x === 0) return Infinity;
       return NaN;
     },
@@ -63,7 +64,7 @@ export function lognormalTarget(mu: number = 0, sigma: number = 1): FamilyTarget
     },
     sf(x: number): number {
       if (!(x > 0)) return x !== x ? NaN : 1;
-      return normalCdf((mu - Math.log(x)) / sigma, 0, 1);
+      return normalCdf((mu - log(x)) / sigma, 0, 1);
     },
   };
 }

@@ -6,6 +6,7 @@
 import { normalCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { log } from '../vendor/math.js';
 
 /** log(2π) / 2. */
 const HALF_LOG_2PI = 0.9189385332046728;
@@ -35,7 +36,7 @@ export function normalTarget(mean: number, sd: number): FamilyTarget {
   const api = 'normalTarget';
   checkFinite(api, 'mean', mean);
   checkPositive(api, 'sd', sd);
-  const logSd = Math.log(sd);
+  const logSd = log(sd);
   const c = -logSd - HALF_LOG_2PI;
   return {
     logDensity(x: number): number {

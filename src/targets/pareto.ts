@@ -6,6 +6,7 @@
 import { paretoType1Cdf } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { exp, log } from '../vendor/math.js';
 
 /**
  * The Pareto type I distribution with shape `shape` (tail index α) and
@@ -36,11 +37,11 @@ export function paretoTarget(shape: number, scale: number = 1): FamilyTarget {
   const api = 'paretoTarget';
   checkPositive(api, 'shape', shape);
   checkPositive(api, 'scale', scale);
-  const c = Math.log(shape / scale);
+  const c = log(shape / scale);
   const ap1 = shape + 1;
   return {
     logDensity(x: number): number {
-      if (x >= scale) return x === Infinity ? -Infinity : c - ap1 * Math.log(x / scale);
+      if (x >= scale) return x === Infinity ? -Infinity : c - ap1 * log(x / scale);
       return x < scale ? -Infinity : NaN;
     },
     dLogDensity(x: number): number {
@@ -54,7 +55,7 @@ export function paretoTarget(shape: number, scale: number = 1): FamilyTarget {
     },
     sf(x: number): number {
       if (!(x > scale)) return x !== x ? NaN : 1;
-      return Math.exp(-shape * Math.log(x / scale));
+      return exp(-shape * log(x / scale));
     },
   };
 }

@@ -6,6 +6,7 @@
 import { betaln, tCdf } from '../vendor/stdlib.js';
 import { checkFinite, checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
+import { log, log1p } from '../vendor/math.js';
 
 /** |z| above which z² is not formed (it would overflow long before 1e154). */
 const BIG_Z = 1e100;
@@ -43,16 +44,16 @@ export function studentTTarget(df: number, location: number = 0, scale: number =
   checkPositive(api, 'df', df);
   checkFinite(api, 'location', location);
   checkPositive(api, 'scale', scale);
-  const logDf = Math.log(df);
-  const c = -Math.log(scale) - 0.5 * logDf - betaln(0.5, 0.5 * df);
+  const logDf = log(df);
+  const c = -log(scale) - 0.5 * logDf - betaln(0.5, 0.5 * df);
   const h = 0.5 * (df + 1);
   return {
     logDensity(x: number): number {
       const z = (x - location) / scale;
       const az = Math.abs(z);
-      if (az <= BIG_Z) return c - h * Math.log1p((z * z) / df);
+      if (az <= BIG_Z) return c - h * log1p((z * z) / df);
       if (az === Infinity) return -Infinity;
-      return c - h * (2 * Math.log(az) - logDf + Math.log1p(df / az / az));
+      return c - h * (2 * log(az) - logDf + log1p(df / az / az));
     },
     dLogDensity(x: number): number {
       const z = (x - location) / scale;

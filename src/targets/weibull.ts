@@ -7,6 +7,7 @@ import { weibullCdf } from '../vendor/stdlib.js';
 import { checkPositive } from '../core/validate.js';
 import type { FamilyTarget } from './family-target.js';
 import type { PoleTarget } from './end-distance.js';
+import { exp, log, pow } from '../vendor/math.js';
 
 /**
  * The Weibull distribution with shape `shape` (k) and scale `scale` (λ):
@@ -42,17 +43,17 @@ export function weibullTarget(shape: number, scale: number = 1): FamilyTarget & 
   checkPositive(api, 'shape', shape);
   checkPositive(api, 'scale', scale);
   const km1 = shape - 1;
-  const c = Math.log(shape / scale);
-  const logScale = Math.log(scale);
+  const c = log(shape / scale);
+  const logScale = log(scale);
   const atZero = shape === 1 ? c : -Infinity;
   const dAtZero = shape > 1 ? Infinity : shape === 1 ? -1 / scale : -Infinity;
-  const mode = shape > 1 ? Math.max(Number.MIN_VALUE, scale * Math.pow(km1 / shape, 1 / shape)) : 0;
+  const mode = shape > 1 ? Math.max(Number.MIN_VALUE, scale * pow(km1 / shape, 1 / shape)) : 0;
   return {
     logDensity(x: number): number {
       if (x > 0) {
         if (x === Infinity) return -Infinity;
-        const lz = Math.log(x) - logScale; // log(x/scale) without underflow of x/scale
-        return (km1 === 0 ? 0 : km1 * lz) - Math.exp(shape * lz) + c;
+        const lz = log(x) - logScale; // log(x/scale) without underflow of x/scale
+        return (km1 === 0 ? 0 : km1 * lz) - exp(shape * lz) + c;
       }
       if (x === 0) return atZero;
       return x < 0 ? -Infinity : NaN;
@@ -60,7 +61,7 @@ export function weibullTarget(shape: number, scale: number = 1): FamilyTarget & 
     dLogDensity(x: number): number {
       if (x > 0) {
         const z = x / scale;
-        return (km1 / z - shape * Math.pow(z, km1)) / scale;
+        return (km1 / z - shape * pow(z, km1)) / scale;
       }
       if (x === 0) return dAtZero;
       return NaN;
@@ -74,7 +75,7 @@ export function weibullTarget(shape: number, scale: number = 1): FamilyTarget & 
     },
     sf(x: number): number {
       if (!(x > 0)) return x !== x ? NaN : 1;
-      return Math.exp(-Math.pow(x / scale, shape));
+      return exp(-pow(x / scale, shape));
     },
   };
 }

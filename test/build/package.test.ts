@@ -98,7 +98,7 @@ describe('published build', () => {
       for (let i = 0; i < 10_000; i++) v = u.uint32();
       expect(v).toBe(4123659995);
     }
-    expect(() => cjs.tableSampler(cjs.normalTarget(0, 1), { strips: 1 })).toThrow(cjs.InvalidTargetError);
+    expect(() => cjs.tableSampler(cjs.normalTarget(0, 1), { strips: 1 })).toThrow(cjs.InvalidOptionError);
   });
 
   it('the core runs in a bare ECMAScript context (no process, Buffer, require, timers): bundled dist/index.js in node:vm draws what Node draws', async () => {
@@ -114,7 +114,7 @@ describe('published build', () => {
           const auto = Array.from(e.exactSampler(e.gammaTarget(2.5), { seed: 2 }).fill(new Float64Array(200)));
           const ks = e.ksCheck(new Float64Array(auto), e.gammaTarget(2.5).cdf).pValue;
           let typed = '';
-          try { e.tableSampler(e.normalTarget(0, 1), { strips: 1 }); } catch (err) { typed = err instanceof e.InvalidTargetError ? err.code : 'other'; }
+          try { e.tableSampler(e.normalTarget(0, 1), { strips: 1 }); } catch (err) { typed = err instanceof e.InvalidOptionError ? err.code : 'other'; }
           return JSON.stringify({ fast, auto, ks, typed, globals: [typeof process, typeof Buffer, typeof require, typeof setTimeout] });
         })()`,
         ctx,
@@ -125,7 +125,7 @@ describe('published build', () => {
     expect(got.fast).toEqual(Array.from(esm.tableSampler(esm.normalTarget(0, 1), { seed: 1 }).fill(new Float64Array(200))));
     expect(got.auto).toEqual(Array.from(esm.exactSampler(esm.gammaTarget(2.5), { seed: 2 }).fill(new Float64Array(200))));
     expect(got.ks).toBe(esm.ksCheck(new Float64Array(got.auto), esm.gammaTarget(2.5).cdf as (x: number) => number).pValue);
-    expect(got.typed).toBe('INVALID_TARGET');
+    expect(got.typed).toBe('INVALID_OPTION');
   });
 
   it('the packed package installs alone (no dependency to fetch) and works from a fresh project: ESM, CommonJS, exactdraw/node, the command', () => {
@@ -147,8 +147,42 @@ describe('published build', () => {
       // consistent with the 10,000th-output check value 4123659995 tested elsewhere)
       const cjs = execFileSync(process.execPath, ['-e', "console.log(require('exactdraw').mersenneTwister(5489).uint32())"], { cwd: dir, encoding: 'utf8' }).trim();
       expect(cjs).toBe('3499211612');
+      // one implementation behind import and require: the same classes, so instanceof holds both ways,
+      // also for an error thrown by exactdraw/node
+      writeFileSync(
+        join(dir, 'same.mjs'),
+        [
+          "import { createRequire } from 'node:module';",
+          "import { ExactDrawError, InvalidTargetError, mersenneTwister } from 'exactdraw';",
+          "import { createParallelFiller } from 'exactdraw/node';",
+          "const cjs = createRequire(import.meta.url)('exactdraw');",
+          'const caught = (f) => { try { f(); } catch (e) { return e; } return null; };',
+          'const a = caught(() => cjs.mersenneTwister(-1));',
+          'const b = caught(() => mersenneTwister(-1));',
+          'const c = await createParallelFiller(null).catch((e) => e);',
+          'console.log(JSON.stringify([cjs.ExactDrawError === ExactDrawError, a instanceof InvalidTargetError, b instanceof cjs.InvalidTargetError, c instanceof cjs.ExactDrawError, c instanceof ExactDrawError, c?.code]));',
+        ].join('\n'),
+      );
+      expect(execFileSync(process.execPath, ['same.mjs'], { cwd: dir, encoding: 'utf8' }).trim()).toBe('[true,true,true,true,true,"INVALID_TARGET"]');
+      // exactdraw/node is ESM only: require() fails at run time, and the types say so (TypeScript, nodenext)
+      expect(() => execFileSync(process.execPath, ['-e', "require('exactdraw/node')"], { cwd: dir, encoding: 'utf8', stdio: 'pipe' })).toThrow(/ERR_PACKAGE_PATH_NOT_EXPORTED/);
+      writeFileSync(join(dir, 'tsconfig.json'), JSON.stringify({ compilerOptions: { module: 'nodenext', moduleResolution: 'nodenext', strict: true, noEmit: true, skipLibCheck: true, types: [] }, files: ['a.cts', 'b.mts'] }));
+      writeFileSync(join(dir, 'a.cts'), "import node = require('exactdraw/node');\nimport core = require('exactdraw');\nexport const x = [typeof node, core.DEFAULT_SEED];\n");
+      writeFileSync(join(dir, 'b.mts'), "import { fillParallel } from 'exactdraw/node';\nimport { DEFAULT_SEED } from 'exactdraw';\nexport const y = [typeof fillParallel, DEFAULT_SEED];\n");
+      const tsc = createRequire(import.meta.url).resolve('typescript/bin/tsc');
+      let tscOut = '';
+      try {
+        execFileSync(process.execPath, [tsc, '-p', dir], { cwd: dir, encoding: 'utf8', stdio: 'pipe' });
+      } catch (e) {
+        tscOut = String((e as { stdout?: string }).stdout);
+      }
+      // exactly one error: the require of exactdraw/node in the CommonJS file (not the ESM file, not the core)
+      expect(tscOut.trim().split('\n').filter((l) => /error TS/.test(l))).toEqual([expect.stringMatching(/^a\.cts\(1,.*exactdraw\/node/)]);
       const cli = execFileSync(process.execPath, [join(dir, 'node_modules/exactdraw/dist/cli/main.js'), 'check', '--only', 'fast hull normal (own stream)', '--n', '2000'], { cwd: dir, encoding: 'utf8' });
       expect(cli).toContain('all checks passed');
+      // the shipped example suite imports 'exactdraw' and runs from the installed package
+      const ex = execFileSync(process.execPath, [join(dir, 'node_modules/exactdraw/dist/cli/main.js'), 'check', 'node_modules/exactdraw/examples/ci-suite.mjs', '--draws', '2000'], { cwd: dir, encoding: 'utf8' });
+      expect(ex).toMatch(/all checks passed \(3 checked\)/);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
@@ -156,9 +190,15 @@ describe('published build', () => {
 
   it('dist/THIRD_PARTY_LICENSES.md lists the bundled packages with their license texts', () => {
     const md = readFileSync(join(DIST, 'THIRD_PARTY_LICENSES.md'), 'utf8');
-    for (const name of ['@stdlib/random-base-mt19937', '@stdlib/stats-kstest', '@stdlib/stats-base-dists-gamma-cdf', '@stdlib/random-base-improved-ziggurat']) {
+    for (const name of ['@stdlib/stats-kstest', '@stdlib/stats-base-dists-gamma-cdf', '@stdlib/random-base-improved-ziggurat']) {
       expect(md).toContain(`- ${name}@`);
     }
+    // the core's MT19937 is its own (the package is the test oracle; the command's peer generators still bundle it)
+    expect(readFileSync(join(DIST, 'cjs/index.js'), 'utf8')).not.toContain('random-base-mt19937');
+    expect(readFileSync(join(DIST, 'cli/main.js'), 'utf8')).toContain('random-base-mt19937'); // twin: the scan sees a bundled package
     expect(md).toContain('Apache License');
+    // the NOTICE text of the @stdlib packages (Apache-2.0 section 4(d)), as shipped in node_modules/@stdlib/*/NOTICE
+    expect(md).toContain('## NOTICE files');
+    expect(md).toContain(readFileSync('node_modules/@stdlib/math-base-special-exp/NOTICE', 'utf8').trim());
   });
 });

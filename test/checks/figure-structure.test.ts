@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { envelopeSvg } from '../../src/checks/envelope-svg.js';
 import { roundTicks } from '../../src/checks/svg-ticks.js';
 import { histogramSvg } from '../../src/cli/svg.js';
-import { InvalidTargetError } from '../../src/core/errors.js';
+import { InvalidOptionError, InvalidTargetError } from '../../src/core/errors.js';
 import { adaptiveRejectionSampler } from '../../src/methods/adaptive-rejection.js';
 import { gammaTarget } from '../../src/targets/gamma.js';
 import { normalTarget } from '../../src/targets/normal.js';
@@ -122,10 +122,15 @@ describe('envelopeSvg figure structure', () => {
     expect(s.envelope.touchPoints.length).toBeGreaterThan(setup.touchPoints.length); // adaptation added points
   });
 
-  it('envelopeSvg refuses bad stage, setup and label options with InvalidTargetError naming the option', () => {
+  it('envelopeSvg refuses bad stage, setup and label options and unknown keys with InvalidOptionError naming the option', () => {
     expect(() => envelopeSvg(s, t, { stage: 'setup' })).toThrow(/options.stage 'setup' needs options.setup/);
     expect(() => envelopeSvg(s, t, { stage: 'later' as never, setup })).toThrow(/options.stage must be 'current', 'setup' or 'both', got 'later'/);
-    expect(() => envelopeSvg(s, t, { setup: {} as never })).toThrow(InvalidTargetError);
+    expect(() => envelopeSvg(s, t, { setup: {} as never })).toThrow(InvalidOptionError);
+    expect(() => envelopeSvg(s, t, { stage: 'later' as never, setup })).toThrow(InvalidOptionError);
+    expect(() => envelopeSvg(s, t, { logscale: true } as never)).toThrow(/envelopeSvg: unknown option 'logscale' \(known: 'width', /);
+    expect(() => envelopeSvg(s, t, { logscale: true } as never)).toThrow(InvalidOptionError);
+    // twin: a malformed source stays a target error
+    expect(() => envelopeSvg({} as never, t)).toThrow(InvalidTargetError);
     expect(() => envelopeSvg(s, t, { xLabel: 3 as never })).toThrow(/options.xLabel must be a string/);
   });
 

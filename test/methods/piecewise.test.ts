@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import {
   EnvelopeViolationError,
   ImproperDensityError,
+  InvalidOptionError,
   InvalidTargetError,
   NonFiniteDensityError,
   ShapeViolationError,
@@ -307,7 +308,7 @@ describe('piecewiseSampler: errors name the problem', () => {
     expectRejects(draw(piecewiseSampler(shiftedOne, { seed: 2 }), 100_000), cdf, 'one interval, shifted');
   });
 
-  it('piecewiseSampler refuses bad options with InvalidTargetError', () => {
+  it('piecewiseSampler refuses bad options with InvalidOptionError', () => {
     const t = normalTarget(0, 1);
     expect(() => piecewiseSampler(t, { scanPoint: 10 } as unknown as PiecewiseOptions)).toThrow(/unknown option 'scanPoint'/);
     expect(() => piecewiseSampler(t, { breakpoints: [0, NaN] })).toThrow(/breakpoints\[1\]/);
@@ -315,7 +316,8 @@ describe('piecewiseSampler: errors name the problem', () => {
     expect(() => piecewiseSampler(t, { scanPoints: 3 })).toThrow(/scanPoints/);
     expect(() => piecewiseSampler(t, { targetAreaRatio: 1 })).toThrow(/targetAreaRatio/);
     expect(() => piecewiseSampler(t, { adapt: 'yes' as unknown as boolean })).toThrow(/adapt/);
-    expect(() => piecewiseSampler(t, { seed: 1, uniform: () => 0.5 })).toThrow(InvalidTargetError);
+    expect(() => piecewiseSampler(t, { seed: 1, uniform: () => 0.5 })).toThrow(InvalidOptionError);
+    expect(() => piecewiseSampler(t, { scanPoints: 3 })).toThrow(InvalidOptionError);
     expect(() => piecewiseSampler(t).fill([] as unknown as Float64Array)).toThrow(InvalidTargetError);
   });
 

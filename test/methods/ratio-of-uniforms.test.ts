@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import {
   EnvelopeViolationError,
   ImproperDensityError,
+  InvalidOptionError,
   InvalidTargetError,
   NonFiniteDensityError,
   StalledSamplerError,
@@ -510,18 +511,18 @@ describe('ratioOfUniformsSampler: counts', () => {
 describe('ratioOfUniformsSampler: bad inputs give typed errors, never draws', () => {
   const n = normalTarget(0, 1);
   const bad: Array<[string, () => unknown, new (...a: never[]) => Error]> = [
-    ['power 0', () => ratioOfUniformsSampler(n, { power: 0 }), InvalidTargetError],
-    ['power −1', () => ratioOfUniformsSampler(n, { power: -1 }), InvalidTargetError],
-    ['power NaN', () => ratioOfUniformsSampler(n, { power: NaN }), InvalidTargetError],
-    ['power Infinity', () => ratioOfUniformsSampler(n, { power: Infinity }), InvalidTargetError],
-    ['power "1"', () => ratioOfUniformsSampler(n, { power: '1' as unknown as number }), InvalidTargetError],
-    ['shift NaN', () => ratioOfUniformsSampler(n, { shift: NaN }), InvalidTargetError],
-    ['shift Infinity', () => ratioOfUniformsSampler(n, { shift: Infinity }), InvalidTargetError],
-    ['unknown option', () => ratioOfUniformsSampler(n, { powr: 2 } as unknown as RatioOfUniformsOptions), InvalidTargetError],
-    ['squeeze not a function', () => ratioOfUniformsSampler(n, { squeeze: 1 as unknown as () => number }), InvalidTargetError],
-    ['maxRejections 0', () => ratioOfUniformsSampler(n, { maxRejections: 0 }), InvalidTargetError],
-    ['seed and uniform', () => ratioOfUniformsSampler(n, { seed: 1, uniform: Math.random }), InvalidTargetError],
-    ['seed −1', () => ratioOfUniformsSampler(n, { seed: -1 }), InvalidTargetError],
+    ['power 0', () => ratioOfUniformsSampler(n, { power: 0 }), InvalidOptionError],
+    ['power −1', () => ratioOfUniformsSampler(n, { power: -1 }), InvalidOptionError],
+    ['power NaN', () => ratioOfUniformsSampler(n, { power: NaN }), InvalidOptionError],
+    ['power Infinity', () => ratioOfUniformsSampler(n, { power: Infinity }), InvalidOptionError],
+    ['power "1"', () => ratioOfUniformsSampler(n, { power: '1' as unknown as number }), InvalidOptionError],
+    ['shift NaN', () => ratioOfUniformsSampler(n, { shift: NaN }), InvalidOptionError],
+    ['shift Infinity', () => ratioOfUniformsSampler(n, { shift: Infinity }), InvalidOptionError],
+    ['unknown option', () => ratioOfUniformsSampler(n, { powr: 2 } as unknown as RatioOfUniformsOptions), InvalidOptionError],
+    ['squeeze not a function', () => ratioOfUniformsSampler(n, { squeeze: 1 as unknown as () => number }), InvalidOptionError],
+    ['maxRejections 0', () => ratioOfUniformsSampler(n, { maxRejections: 0 }), InvalidOptionError],
+    ['seed and uniform', () => ratioOfUniformsSampler(n, { seed: 1, uniform: Math.random }), InvalidOptionError],
+    ['seed −1', () => ratioOfUniformsSampler(n, { seed: -1 }), InvalidOptionError],
     ['no logDensity', () => ratioOfUniformsSampler({} as Target), InvalidTargetError],
     ['reversed support', () => ratioOfUniformsSampler({ logDensity: () => 0, support: [1, 0] }), InvalidTargetError],
     ['mode hint that is not a mode', () => ratioOfUniformsSampler({ ...n, mode: 1 }), InvalidTargetError],
@@ -548,7 +549,7 @@ describe('ratioOfUniformsSampler: bad inputs give typed errors, never draws', ()
 
   it('a uniform source returning 1 throws at draw time instead of drawing', () => {
     const s = ratioOfUniformsSampler(n, { uniform: () => 1 });
-    expect(() => s.sample()).toThrow(InvalidTargetError);
+    expect(() => s.sample()).toThrow(InvalidOptionError);
   });
 
   it('fill requires a Float64Array', () => {

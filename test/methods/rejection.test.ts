@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   EnvelopeViolationError,
   ImproperDensityError,
+  InvalidOptionError,
   InvalidTargetError,
   NonFiniteDensityError,
   StalledSamplerError,
@@ -245,13 +246,13 @@ describe('rejectionSampler: bounded loops, bad inputs, reproducibility', () => {
   it('rejectionSampler rejects bad options with typed errors', () => {
     const t = normalTarget(0, 1);
     const p = cauchyProposal(0, 1);
-    expect(() => rejectionSampler(t, undefined as unknown as { proposal: Proposal })).toThrow(InvalidTargetError);
-    expect(() => rejectionSampler(t, { proposal: {} as Proposal })).toThrow(InvalidTargetError);
+    expect(() => rejectionSampler(t, undefined as unknown as { proposal: Proposal })).toThrow(InvalidOptionError);
+    expect(() => rejectionSampler(t, { proposal: {} as Proposal })).toThrow(InvalidOptionError);
     expect(() => rejectionSampler(t, { proposal: p, logBound: NaN })).toThrow(/logBound/);
-    expect(() => rejectionSampler(t, { proposal: p, squeeze: 3 as unknown as () => number })).toThrow(InvalidTargetError);
+    expect(() => rejectionSampler(t, { proposal: p, squeeze: 3 as unknown as () => number })).toThrow(InvalidOptionError);
     expect(() => rejectionSampler(t, { proposal: p, seed: -1 })).toThrow(/seed/);
-    expect(() => rejectionSampler(t, { proposal: p, seed: 1.5 })).toThrow(InvalidTargetError);
-    expect(() => rejectionSampler(t, { proposal: p, maxRejections: 0 })).toThrow(InvalidTargetError);
+    expect(() => rejectionSampler(t, { proposal: p, seed: 1.5 })).toThrow(InvalidOptionError);
+    expect(() => rejectionSampler(t, { proposal: p, maxRejections: 0 })).toThrow(InvalidOptionError);
     expect(() => rejectionSampler(t, { proposal: p, proposl: p } as unknown as { proposal: Proposal })).toThrow(/unknown option/);
     // A proposal that does not cover the support.
     expect(() => rejectionSampler(t, { proposal: uniformProposal(-3, 3) })).toThrow(/does not cover/);

@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
+  InvalidOptionError,
   InvalidTargetError,
   adaptiveRejectionSampler,
   cauchyProposal,
@@ -46,9 +47,9 @@ describe('options.stream', () => {
     });
   }
 
-  it('a bad stream, or stream with uniform, throws InvalidTargetError naming the API, options.stream and the value', () => {
+  it('a bad stream, or stream with uniform, throws InvalidOptionError naming the API, options.stream and the value', () => {
     for (const bad of [-1, 1.5, NaN, 2 ** 53, '3' as unknown as number]) {
-      expect(() => tableSampler(normal, { seed: 1, stream: bad })).toThrow(InvalidTargetError);
+      expect(() => tableSampler(normal, { seed: 1, stream: bad })).toThrow(InvalidOptionError);
       expect(() => rejectionSampler(normal, { proposal: cauchyProposal(0, 1), stream: bad })).toThrow(/rejectionSampler: options\.stream must be an integer/);
     }
     expect(() => tableSampler(normal, { stream: -3 })).toThrow(/tableSampler: options\.stream .*-3/);

@@ -20,6 +20,7 @@
  * @internal
  */
 import { InvalidTargetError } from '../../core/errors.js';
+import { pow } from '../../vendor/math.js';
 
 /** Units per table: probabilities are multiples of 2^-52. @internal */
 export const TABLE_UNITS = 4503599627370496; // 2^52
@@ -123,8 +124,8 @@ export interface AliasTable {
 export function buildAlias(units: Float64Array): AliasTable {
   const n = units.length;
   let bits = 0;
-  while (2 ** bits < n) bits++;
-  const K = 2 ** bits;
+  while (pow(2, bits) < n) bits++;
+  const K = pow(2, bits);
   const C = TABLE_UNITS / K;
   const mass = new Float64Array(K);
   mass.set(units);

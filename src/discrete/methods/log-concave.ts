@@ -33,6 +33,7 @@ import type { Uniform } from '../../core/types.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
 import type { DiscreteSampler } from '../types.js';
 import { discreteDraws } from '../_internals/draws.js';
+import { exp, expm1, log } from '../../vendor/math.js';
 
 /** One side of the hat. @internal */
 export interface LogConcaveSide {
@@ -125,7 +126,7 @@ export function buildLogConcaveHat(ev: SetupEvaluator, m: number): LogConcaveHat
   const F = ev.h(m);
   const right = side(ev, m, F, 1);
   const left = side(ev, m, F, -1);
-  const tail = (s: LogConcaveSide): number => (Number.isNaN(s.slope) ? 0 : Math.exp(s.hEdge - F + s.slope) / -Math.expm1(s.slope));
+  const tail = (s: LogConcaveSide): number => (Number.isNaN(s.slope) ? 0 : exp(s.hEdge - F + s.slope) / -expm1(s.slope));
   return { m, F, right, left, massCentre: right.edge - left.edge + 1, massRight: tail(right), massLeft: tail(left) };
 }
 
@@ -164,7 +165,7 @@ export function logConcaveSampler(
         k = l + Math.floor(t);
         const v = 1 - u();
         const sq = k >= m ? F + (k - m) * cR : F + (m - k) * cL;
-        if (v <= Math.exp(sq - G)) return k;
+        if (v <= exp(sq - G)) return k;
         g = G;
         const hk = logPmf(k);
         counters.densityEvaluations++;
@@ -173,11 +174,11 @@ export function logConcaveSampler(
         if (hk < sq - DISCRETE_LOG_MARGIN) {
           throw new ShapeViolationError(`${api}: logPmf(${k}) = ${hk} is below the chord from the mode ${m} (${sq}); the pmf is not log-concave`, [Math.min(k, m), Math.max(k, m)]);
         }
-        if (v <= Math.exp(hk - g)) return k;
+        if (v <= exp(hk - g)) return k;
       } else {
         const right = t < cut1;
         const s = right ? sR : sL;
-        const j = 1 + Math.floor(Math.log(1 - u()) / s);
+        const j = 1 + Math.floor(log(1 - u()) / s);
         k = right ? r + j : l - j;
         const v = 1 - u();
         if (k >= lo && k <= hi && Math.abs(k) <= MAX_DISCRETE_K) {
@@ -186,7 +187,7 @@ export function logConcaveSampler(
           counters.densityEvaluations++;
           checkLogDensity(api, k, hk);
           if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
-          if (v <= Math.exp(hk - g)) return k;
+          if (v <= exp(hk - g)) return k;
         }
       }
       if (++rej >= maxRejections) throw new StalledSamplerError(api, rej, counters.samples, counters.proposals);

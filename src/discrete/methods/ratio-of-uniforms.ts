@@ -27,6 +27,7 @@ import type { Uniform } from '../../core/types.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
 import type { DiscreteSampler } from '../types.js';
 import { discreteDraws } from '../_internals/draws.js';
+import { exp, log } from '../../vendor/math.js';
 
 /** The rectangle of {@link buildRatioRectangle}: logs of u₊ and −u₋. @internal */
 export interface RatioRectangle {
@@ -38,7 +39,7 @@ export interface RatioRectangle {
 
 function sideMax(ev: SetupEvaluator, m: number, F: number, dir: 1 | -1): number {
   const api = ev.api;
-  const phi = (j: number): number => Math.log(j + 0.5) + 0.5 * (ev.h(m + dir * j) - F);
+  const phi = (j: number): number => log(j + 0.5) + 0.5 * (ev.h(m + dir * j) - F);
   // doubling: find j0 < j1 < j2 with phi(j1) >= phi(j0), phi(j1) >= phi(j2)
   let j0 = 0;
   let p0 = phi(0);
@@ -93,8 +94,8 @@ export function ratioSampler(
   maxRejections: number,
 ): DiscreteSampler {
   const { m, F } = rect;
-  const up = Math.exp(rect.logUPlus);
-  const um = -Math.exp(rect.logUMinus);
+  const up = exp(rect.logUPlus);
+  const um = -exp(rect.logUMinus);
   const width = up - um;
   const c = m + 0.5;
   const lower = Math.max(lo, -MAX_DISCRETE_K);
@@ -114,10 +115,10 @@ export function ratioSampler(
       const d = hk - F;
       if (d > DISCRETE_LOG_MARGIN) throw new EnvelopeViolationError(api, k, hk, F + DISCRETE_LOG_MARGIN);
       const j = k - m;
-      const lu = Math.log(Math.abs(j) + 0.5) + 0.5 * d;
+      const lu = log(Math.abs(j) + 0.5) + 0.5 * d;
       const bound = j >= 0 ? lUp : lUm;
-      if (lu > bound) throw new EnvelopeViolationError(api, k, hk, F + 2 * (bound - Math.log(Math.abs(j) + 0.5)));
-      if (v * v <= Math.exp(d)) return k;
+      if (lu > bound) throw new EnvelopeViolationError(api, k, hk, F + 2 * (bound - log(Math.abs(j) + 0.5)));
+      if (v * v <= exp(d)) return k;
     }
     throw new StalledSamplerError(api, maxRejections, counters.samples, counters.proposals);
   };

@@ -27,6 +27,7 @@ import { buildAlias, quantizeWeights } from '../_internals/tables.js';
 import { DISCRETE_LOG_MARGIN, MAX_DISCRETE_K, type SetupEvaluator } from '../_internals/setup.js';
 import type { DiscreteSampler } from '../types.js';
 import { checkDiscreteFillArray, int32RangeError } from '../validate.js';
+import { exp, expm1, log } from '../../vendor/math.js';
 
 /** logPmf drop below the maximum at which the table stops growing (e^-40 ≈ 4e-18). @internal */
 export const TABLE_LOG_DROP = 40;
@@ -101,11 +102,11 @@ export function tableSamplerOf(
   for (let i = 0; i < n; i++) if (logp[i] > max) max = logp[i];
   if (max === -Infinity) throw new InvalidTargetError(`${api}: target.logPmf is -Infinity at every point of [${first}, ${last}]; the target has no mass`);
   const w = new Float64Array(n + 2);
-  for (let i = 0; i < n; i++) w[i] = Math.exp(logp[i] - max);
+  for (let i = 0; i < n; i++) w[i] = exp(logp[i] - max);
   const hR = logp[n - 1] + DISCRETE_LOG_MARGIN;
   const hL = logp[0] + DISCRETE_LOG_MARGIN;
-  if (!Number.isNaN(sR)) w[n] = Math.exp(hR - max + sR) / -Math.expm1(sR);
-  if (!Number.isNaN(sL)) w[n + 1] = Math.exp(hL - max + sL) / -Math.expm1(sL);
+  if (!Number.isNaN(sR)) w[n] = exp(hR - max + sR) / -expm1(sR);
+  if (!Number.isNaN(sL)) w[n + 1] = exp(hL - max + sL) / -expm1(sL);
   const units = quantizeWeights(api, w, (i) => (i < n ? `the weight of ${first + i}` : 'a tail weight'));
   const t = buildAlias(units);
   const K = t.cells;
@@ -116,7 +117,7 @@ export function tableSamplerOf(
     // i = n: right tail, n + 1: left tail; one proposal; NaN when rejected
     const right = i === n;
     const s = right ? sR : sL;
-    const j = 1 + Math.floor(Math.log(1 - u()) / s);
+    const j = 1 + Math.floor(log(1 - u()) / s);
     const k = right ? last + j : first - j;
     const v = 1 - u();
     if (!(k >= lo && k <= hi) || Math.abs(k) > MAX_DISCRETE_K) return NaN;
@@ -125,7 +126,7 @@ export function tableSamplerOf(
     counters.densityEvaluations++;
     checkLogDensity(api, k, hk);
     if (hk > g) throw new EnvelopeViolationError(api, k, hk, g);
-    return v <= Math.exp(hk - g) ? k : NaN;
+    return v <= exp(hk - g) ? k : NaN;
   };
   const draw = (): number => {
     for (let rej = 0; rej < maxRejections; rej++) {

@@ -54,6 +54,7 @@ import {
 } from './interval.js';
 import { addDn, addUp, divDn, divUp, subDn, subUp, widenDn, widenUp } from './rounding.js';
 import { KSTRIDE, Op, type Program } from './program.js';
+import { exp, log } from '../../vendor/math.js';
 
 const NTEMP = 12;
 
@@ -499,13 +500,13 @@ function lseBound(S: Float64Array, args: Int32Array, start: number, count: numbe
     if (t === 0) e = 1;
     else if (t === -Infinity) e = 0;
     else {
-      const ex = Math.exp(t);
+      const ex = exp(t);
       e = up ? widenUp(ex) : widenDn(ex);
       if (e < 0) e = 0;
     }
     s = up ? addUp(s, e) : addDn(s, e);
   }
-  const l = Math.log(s);
+  const l = log(s);
   return up ? addUp(m, widenUp(l)) : addDn(m, widenDn(l));
 }
 
@@ -525,8 +526,8 @@ function softmaxBound(S: Float64Array, args: Int32Array, start: number, count: n
     const ri = 3 * args[start + i];
     const tu = subUp(S[2 * ri + 1], ajlo);
     const td = subDn(S[2 * ri], ajhi);
-    const eu = tu !== tu ? Infinity : tu === -Infinity ? 0 : widenUp(Math.exp(tu));
-    let ed = td !== td ? 0 : td === -Infinity ? 0 : widenDn(Math.exp(td));
+    const eu = tu !== tu ? Infinity : tu === -Infinity ? 0 : widenUp(exp(tu));
+    let ed = td !== td ? 0 : td === -Infinity ? 0 : widenDn(exp(td));
     if (ed < 0) ed = 0;
     denUp = addUp(denUp, eu);
     denDn = addDn(denDn, ed);

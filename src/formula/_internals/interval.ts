@@ -45,11 +45,12 @@ import {
   MAX,
 } from './rounding.js';
 import { digammaValue, trigammaValue, specialMagnitude } from './special.js';
+import { atan, cos, cosh, exp, expm1, log, log1p, pow, sin, sinh, tan, tanh } from '../../vendor/math.js';
 
 const PI = Math.PI;
 const HALF_PI = Math.PI / 2;
 /** Below this magnitude the period index of sin/cos/tan is computed; above it the range is the full period. */
-const PERIOD_LIMIT = 2 ** 40;
+const PERIOD_LIMIT = /* @__PURE__ */ pow(2, 40);
 const TMP = new Float64Array(2);
 
 /** Sets slot `d` to `[lo, hi]`. @internal */
@@ -261,14 +262,14 @@ function monoInc(
 export function expI(S: Float64Array, d: number, a: number): void {
   const lo = S[2 * a];
   if (lo !== lo) return empty(S, d);
-  monoInc(S, d, lo, S[2 * a + 1], Math.exp, 0, Infinity);
+  monoInc(S, d, lo, S[2 * a + 1], exp, 0, Infinity);
 }
 
 /** `expm1(a)`. @internal */
 export function expm1I(S: Float64Array, d: number, a: number): void {
   const lo = S[2 * a];
   if (lo !== lo) return empty(S, d);
-  monoInc(S, d, lo, S[2 * a + 1], Math.expm1, -1, Infinity);
+  monoInc(S, d, lo, S[2 * a + 1], expm1, -1, Infinity);
 }
 
 /** `log(a)` on `[0, Infinity]` (`log(0) = -Infinity`). @internal */
@@ -277,8 +278,8 @@ export function logI(S: Float64Array, d: number, a: number): void {
   const hi = S[2 * a + 1];
   if (lo !== lo || hi < 0) return empty(S, d);
   if (lo < 0) lo = 0;
-  const l = lo === 0 ? -Infinity : lo === Infinity ? Infinity : widenDn(Math.log(lo));
-  const h = hi === 0 ? -Infinity : hi === Infinity ? Infinity : widenUp(Math.log(hi));
+  const l = lo === 0 ? -Infinity : lo === Infinity ? Infinity : widenDn(log(lo));
+  const h = hi === 0 ? -Infinity : hi === Infinity ? Infinity : widenUp(log(hi));
   setI(S, d, l, h);
 }
 
@@ -288,8 +289,8 @@ export function log1pI(S: Float64Array, d: number, a: number): void {
   const hi = S[2 * a + 1];
   if (lo !== lo || hi < -1) return empty(S, d);
   if (lo < -1) lo = -1;
-  const l = lo === -1 ? -Infinity : lo === Infinity ? Infinity : widenDn(Math.log1p(lo));
-  const h = hi === -1 ? -Infinity : hi === Infinity ? Infinity : widenUp(Math.log1p(hi));
+  const l = lo === -1 ? -Infinity : lo === Infinity ? Infinity : widenDn(log1p(lo));
+  const h = hi === -1 ? -Infinity : hi === Infinity ? Infinity : widenUp(log1p(hi));
   setI(S, d, l, h);
 }
 
@@ -320,8 +321,8 @@ export function atanI(S: Float64Array, d: number, a: number): void {
   const lo = S[2 * a];
   if (lo !== lo) return empty(S, d);
   const hi = S[2 * a + 1];
-  const l = widenDn(Math.atan(lo));
-  const h = widenUp(Math.atan(hi));
+  const l = widenDn(atan(lo));
+  const h = widenUp(atan(hi));
   setI(S, d, l, h);
 }
 
@@ -329,14 +330,14 @@ export function atanI(S: Float64Array, d: number, a: number): void {
 export function tanhI(S: Float64Array, d: number, a: number): void {
   const lo = S[2 * a];
   if (lo !== lo) return empty(S, d);
-  monoInc(S, d, lo, S[2 * a + 1], Math.tanh, -1, 1);
+  monoInc(S, d, lo, S[2 * a + 1], tanh, -1, 1);
 }
 
 /** `sinh(a)`. @internal */
 export function sinhI(S: Float64Array, d: number, a: number): void {
   const lo = S[2 * a];
   if (lo !== lo) return empty(S, d);
-  monoInc(S, d, lo, S[2 * a + 1], Math.sinh, -Infinity, Infinity);
+  monoInc(S, d, lo, S[2 * a + 1], sinh, -Infinity, Infinity);
 }
 
 /** `cosh(a)`: decreasing then increasing, minimum 1 at 0. @internal */
@@ -347,14 +348,14 @@ export function coshI(S: Float64Array, d: number, a: number): void {
   let l: number;
   let h: number;
   if (lo >= 0) {
-    l = Math.cosh(lo);
-    h = Math.cosh(hi);
+    l = cosh(lo);
+    h = cosh(hi);
   } else if (hi <= 0) {
-    l = Math.cosh(hi);
-    h = Math.cosh(lo);
+    l = cosh(hi);
+    h = cosh(lo);
   } else {
     l = 1;
-    h = Math.cosh(-lo > hi ? lo : hi);
+    h = cosh(-lo > hi ? lo : hi);
   }
   l = l === Infinity ? MAX : l === 1 ? 1 : widenDn(l);
   if (l < 1) l = 1;
@@ -406,12 +407,12 @@ function trig(S: Float64Array, d: number, a: number, f: (t: number) => number, o
 
 /** `sin(a)`: maxima at π/2 + 2kπ, minima at −π/2 + 2kπ found exactly (with a safe margin). @internal */
 export function sinI(S: Float64Array, d: number, a: number): void {
-  trig(S, d, a, Math.sin, HALF_PI);
+  trig(S, d, a, sin, HALF_PI);
 }
 
 /** `cos(a)`: maxima at 2kπ, minima at (2k+1)π. @internal */
 export function cosI(S: Float64Array, d: number, a: number): void {
-  trig(S, d, a, Math.cos, 0);
+  trig(S, d, a, cos, 0);
 }
 
 /** `tan(a)`: increasing between poles at π/2 + kπ; an interval that may hold a pole gives `[-Infinity, Infinity]`. @internal */
@@ -424,7 +425,7 @@ export function tanI(S: Float64Array, d: number, a: number): void {
     return setI(S, d, -Infinity, Infinity);
   }
   if (lo !== hi && periodPoints(lo, hi, HALF_PI) !== 0) return setI(S, d, -Infinity, Infinity);
-  setI(S, d, widenDn(Math.tan(lo)), widenUp(Math.tan(hi)));
+  setI(S, d, widenDn(tan(lo)), widenUp(tan(hi)));
 }
 
 /** Left end of the increasing branch of lgamma (the double just above the minimum point 1.46163214496836234126…, mpmath). */
@@ -432,7 +433,7 @@ const LGAMMA_INC_FROM = 1.4616321449683625;
 /** Right end of the decreasing branch (the double just below the minimum point). */
 const LGAMMA_DEC_TO = 1.4616321449683622;
 /** A lower bound of min lgamma = −0.12148629053584960809551… (mpmath 1.3.0, 40 digits), widened like every function value. */
-const LGAMMA_MIN = widenDn(-0.12148629053584961);
+const LGAMMA_MIN = /* @__PURE__ */ widenDn(-0.12148629053584961);
 
 /** lgamma point value on the library's domain: `x > 0`, `lgamma(0) = +Infinity`, NaN for `x < 0`. @internal */
 export function lgammaValue(x: number): number {
@@ -514,14 +515,14 @@ export function trigammaI(S: Float64Array, d: number, a: number): void {
 }
 
 function powDn(x: number, k: number): number {
-  const v = Math.pow(x, k);
+  const v = pow(x, k);
   if (x === 0 || x === 1 || x - x !== 0 || k === 0) return v;
   if (v === 0) return (x > 0 || k % 2 === 0) ? 0 : -Number.MIN_VALUE;
   return widenDn(v);
 }
 
 function powUp(x: number, k: number): number {
-  const v = Math.pow(x, k);
+  const v = pow(x, k);
   if (x === 0 || x === 1 || x - x !== 0 || k === 0) return v;
   if (v === 0) return (x > 0 || k % 2 === 0) ? Number.MIN_VALUE : 0;
   return widenUp(v);

@@ -26,6 +26,7 @@ import { CONSTANTS } from './ast.js';
 import { lgammaValue } from './interval.js';
 import { digammaValue, trigammaValue } from './special.js';
 import { mulDn, mulUp, subDn, subUp } from './rounding.js';
+import { atan, cos, cosh, exp, expm1, log, log1p, pow, sin, sinh, tan, tanh } from '../../vendor/math.js';
 
 /** Opcodes. @internal */
 export const enum Op {
@@ -285,22 +286,22 @@ export class PointEvaluator {
         case Op.Sub: r = u - V[b]; break;
         case Op.Mul: r = u * V[b]; break;
         case Op.Div: r = u / (V[b] + 0); break;
-        case Op.PowC: r = Math.pow(u + 0, kdata[b * KSTRIDE]); break;
+        case Op.PowC: r = pow(u + 0, kdata[b * KSTRIDE]); break;
         case Op.PowK:
-        case Op.Pow: r = Math.pow(u + 0, V[b]); break;
-        case Op.Exp: r = Math.exp(u); break;
-        case Op.Log: r = Math.log(u); break;
-        case Op.Log1p: r = Math.log1p(u); break;
-        case Op.Expm1: r = Math.expm1(u); break;
+        case Op.Pow: r = pow(u + 0, V[b]); break;
+        case Op.Exp: r = exp(u); break;
+        case Op.Log: r = log(u); break;
+        case Op.Log1p: r = log1p(u); break;
+        case Op.Expm1: r = expm1(u); break;
         case Op.Sqrt: r = Math.sqrt(u); break;
         case Op.Abs: r = Math.abs(u); break;
-        case Op.Sin: r = Math.sin(u); break;
-        case Op.Cos: r = Math.cos(u); break;
-        case Op.Tan: r = Math.tan(u); break;
-        case Op.Atan: r = Math.atan(u); break;
-        case Op.Tanh: r = Math.tanh(u); break;
-        case Op.Sinh: r = Math.sinh(u); break;
-        case Op.Cosh: r = Math.cosh(u); break;
+        case Op.Sin: r = sin(u); break;
+        case Op.Cos: r = cos(u); break;
+        case Op.Tan: r = tan(u); break;
+        case Op.Atan: r = atan(u); break;
+        case Op.Tanh: r = tanh(u); break;
+        case Op.Sinh: r = sinh(u); break;
+        case Op.Cosh: r = cosh(u); break;
         case Op.Lgamma: r = lgammaValue(u); break;
         case Op.Min: {
           const w = V[b];
@@ -323,8 +324,8 @@ export class PointEvaluator {
           if (mx - mx !== 0) r = mx;
           else {
             let s = 0;
-            for (let j = 0; j < b; j++) s += Math.exp(V[args[a + j]] - mx);
-            r = mx + Math.log(s);
+            for (let j = 0; j < b; j++) s += exp(V[args[a + j]] - mx);
+            r = mx + log(s);
           }
         }
       }
@@ -388,14 +389,14 @@ export class PointEvaluator {
         case Op.PowC: {
           const k = kdata[b * KSTRIDE];
           const base = u + 0;
-          r = Math.pow(base, k);
+          r = pow(base, k);
           if (!c) {
             if (k === 0) { dr = 0; er = 0; }
             else if (k === 1) { dr = du; er = eu; }
             else {
-              const p1 = k * Math.pow(base, kdata[b * KSTRIDE + 1]);
+              const p1 = k * pow(base, kdata[b * KSTRIDE + 1]);
               dr = p1 * du;
-              if (second) er = p1 * eu + kdata[b * KSTRIDE + 3] * Math.pow(base, kdata[b * KSTRIDE + 2]) * (du * du);
+              if (second) er = p1 * eu + kdata[b * KSTRIDE + 3] * pow(base, kdata[b * KSTRIDE + 2]) * (du * du);
             }
           }
           break;
@@ -403,12 +404,12 @@ export class PointEvaluator {
         case Op.PowK: {
           const k = V[b];
           const base = u + 0;
-          r = Math.pow(base, k);
+          r = pow(base, k);
           if (!c) {
             const km1 = k - 1;
-            const p1 = k * Math.pow(base, km1);
+            const p1 = k * pow(base, km1);
             dr = p1 * du;
-            if (second) er = p1 * eu + k * km1 * Math.pow(base, k - 2) * (du * du);
+            if (second) er = p1 * eu + k * km1 * pow(base, k - 2) * (du * du);
           }
           break;
         }
@@ -417,9 +418,9 @@ export class PointEvaluator {
           const w = V[b];
           const dw = D[b];
           const base = u + 0;
-          r = Math.pow(base, w);
+          r = pow(base, w);
           if (!c) {
-            const lu = Math.log(base);
+            const lu = log(base);
             const q = du / base;
             const g1 = dw * lu + w * q;
             dr = r * g1;
@@ -431,11 +432,11 @@ export class PointEvaluator {
           break;
         }
         case Op.Exp:
-          r = Math.exp(u);
+          r = exp(u);
           if (!c) { dr = r * du; if (second) er = r * (eu + du * du); }
           break;
         case Op.Log: {
-          r = Math.log(u);
+          r = log(u);
           if (!c) {
             const w = u + 0;
             const q = du / w;
@@ -445,7 +446,7 @@ export class PointEvaluator {
           break;
         }
         case Op.Log1p: {
-          r = Math.log1p(u);
+          r = log1p(u);
           if (!c) {
             const w = 1 + u + 0;
             const q = du / w;
@@ -455,9 +456,9 @@ export class PointEvaluator {
           break;
         }
         case Op.Expm1: {
-          r = Math.expm1(u);
+          r = expm1(u);
           if (!c) {
-            const x1 = Math.exp(u);
+            const x1 = exp(u);
             dr = x1 * du;
             if (second) er = x1 * (eu + du * du);
           }
@@ -479,25 +480,25 @@ export class PointEvaluator {
           r = r + 0;
           break;
         case Op.Sin: {
-          r = Math.sin(u);
+          r = sin(u);
           if (!c) {
-            const co = Math.cos(u);
+            const co = cos(u);
             dr = co * du;
             if (second) er = co * eu - r * (du * du);
           }
           break;
         }
         case Op.Cos: {
-          r = Math.cos(u);
+          r = cos(u);
           if (!c) {
-            const si = Math.sin(u);
+            const si = sin(u);
             dr = -(si * du);
             if (second) er = -(si * eu) - r * (du * du);
           }
           break;
         }
         case Op.Tan: {
-          r = Math.tan(u);
+          r = tan(u);
           if (!c) {
             const q = 1 + r * r;
             dr = q * du;
@@ -506,7 +507,7 @@ export class PointEvaluator {
           break;
         }
         case Op.Atan: {
-          r = Math.atan(u);
+          r = atan(u);
           if (!c) {
             const q = 1 + u * u;
             dr = du / q;
@@ -515,7 +516,7 @@ export class PointEvaluator {
           break;
         }
         case Op.Tanh: {
-          r = Math.tanh(u);
+          r = tanh(u);
           if (!c) {
             const q = 1 - r * r;
             dr = q * du;
@@ -524,18 +525,18 @@ export class PointEvaluator {
           break;
         }
         case Op.Sinh: {
-          r = Math.sinh(u);
+          r = sinh(u);
           if (!c) {
-            const ch = Math.cosh(u);
+            const ch = cosh(u);
             dr = ch * du;
             if (second) er = ch * eu + r * (du * du);
           }
           break;
         }
         case Op.Cosh: {
-          r = Math.cosh(u);
+          r = cosh(u);
           if (!c) {
-            const sh = Math.sinh(u);
+            const sh = sinh(u);
             dr = sh * du;
             if (second) er = sh * eu + r * (du * du);
           }
@@ -570,14 +571,14 @@ export class PointEvaluator {
           if (mx - mx !== 0) { r = mx; dr = NaN; er = NaN; }
           else {
             let s = 0;
-            for (let j = 0; j < b; j++) s += Math.exp(V[args[a + j]] - mx);
-            r = mx + Math.log(s);
+            for (let j = 0; j < b; j++) s += exp(V[args[a + j]] - mx);
+            r = mx + log(s);
             if (!c) {
               let d1 = 0;
               let d2 = 0;
               for (let j = 0; j < b; j++) {
                 const k = args[a + j];
-                const pj = Math.exp(V[k] - mx) / s;
+                const pj = exp(V[k] - mx) / s;
                 d1 += pj * D[k];
                 if (second) d2 += pj * (E[k] + D[k] * D[k]);
               }

@@ -10,15 +10,16 @@
  * The error bound returned by {@link specialMagnitude} is
  * `2^-40 · (sum of the magnitudes of every term)` plus `2^-1040`: each of
  * the at most ~40 roundings contributes at most 2^-53 of a partial result
- * that never exceeds that sum, and `Math.log` is within a few ulps, so the
+ * that never exceeds that sum, and `log` (src/vendor/math.ts) is within a few ulps, so the
  * bound holds with a margin of about 100.
  *
  * @packageDocumentation
  */
+import { log, pow } from '../../vendor/math.js';
 
 let lastError = 0;
-const ERR = 2 ** -40;
-const ABS = 2 ** -1040;
+const ERR = /* @__PURE__ */ pow(2, -40);
+const ABS = /* @__PURE__ */ pow(2, -1040);
 
 /** Error bound of the last {@link digammaValue} or {@link trigammaValue} call. @internal */
 export function specialMagnitude(): number {
@@ -39,7 +40,7 @@ export function digammaValue(x: number): number {
     lastError = 0;
     return -Infinity;
   }
-  const lx = Math.log(x);
+  const lx = log(x);
   const z = 1 / (x * x);
   // A&S 6.3.18: ln x − 1/(2x) − Σ B_2k / (2k x^2k)
   const series =

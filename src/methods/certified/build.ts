@@ -9,6 +9,7 @@
  */
 import { ImproperDensityError, ShapeViolationError } from '../../core/errors.js';
 import { BoundsOracle, CellStore, addCell, fillCell, logDiffExp, splitCell, splitPoint } from './cells.js';
+import { exp, log } from '../../vendor/math.js';
 
 /** Log-sum-exp of `v[0..n)`. @internal */
 export function logSumExp(v: Float64Array, n: number): number {
@@ -16,8 +17,8 @@ export function logSumExp(v: Float64Array, n: number): number {
   for (let i = 0; i < n; i++) if (v[i] > m) m = v[i];
   if (m === -Infinity || m === Infinity) return m;
   let s = 0;
-  for (let i = 0; i < n; i++) s += Math.exp(v[i] - m);
-  return m + Math.log(s);
+  for (let i = 0; i < n; i++) s += exp(v[i] - m);
+  return m + log(s);
 }
 
 /** Max-heap of cell indices keyed by a Float64 priority (typed arrays, grows by doubling). @internal */
@@ -142,7 +143,7 @@ export function buildCells(spec: BuildSpec, o: BoundsOracle): BuiltCells {
   }
   const heap = new CellHeap(Math.max(16, c.n * 2));
   for (let j = 0; j < c.n; j++) heap.push(j, cellGap(c, j));
-  const logTarget = Math.log(spec.targetAcceptance);
+  const logTarget = log(spec.targetAcceptance);
   let rounds = 0;
   let logE = logSumExp(c.logEnv, c.n);
   let logS = logSumExp(c.logSq, c.n);

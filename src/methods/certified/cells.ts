@@ -5,6 +5,7 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from '../../core/errors.js';
+import { expm1, log } from '../../vendor/math.js';
 
 /** A bounds function of the target: guaranteed `[lo, hi]` over `[a, b]`. @internal */
 export type BoundsFn = (a: number, b: number) => readonly [number, number];
@@ -23,8 +24,8 @@ const FLAT = 1e-12;
 /** log((e^z − 1)/z), stable for every z (0 at z = 0). @internal */
 export function logExprel(z: number): number {
   if (z === 0 || Math.abs(z) < 1e-300) return 0;
-  if (z > 0) return z + Math.log(-Math.expm1(-z)) - Math.log(z);
-  return Math.log(-Math.expm1(z)) - Math.log(-z);
+  if (z > 0) return z + log(-expm1(-z)) - log(z);
+  return log(-expm1(z)) - log(-z);
 }
 
 /** log(e^x − e^y) for x ≥ y (−Infinity when equal). @internal */
@@ -32,7 +33,7 @@ export function logDiffExp(x: number, y: number): number {
   if (x === Infinity) return Infinity;
   if (!(x > y)) return -Infinity;
   if (y === -Infinity) return x;
-  return x + Math.log(-Math.expm1(y - x));
+  return x + log(-expm1(y - x));
 }
 
 /**
@@ -254,14 +255,14 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
     best = -Infinity;
   } else {
     if (w < Infinity && bh < Infinity) {
-      best = bh + Math.log(w);
+      best = bh + log(w);
       bestP = a;
       bestH = bh;
       bestR = 0;
     }
     // from a with slope dh: log f(x) <= aH + dh (x − a)
     if (Number.isFinite(a) && aH < Infinity && Number.isFinite(dh) && (w < Infinity || dh < 0)) {
-      const area = aH === -Infinity ? -Infinity : w === Infinity ? aH - Math.log(-dh) : aH + Math.log(w) + logExprel(dh * w);
+      const area = aH === -Infinity ? -Infinity : w === Infinity ? aH - log(-dh) : aH + log(w) + logExprel(dh * w);
       if (area < best) {
         best = area;
         if (dh <= 0) {
@@ -277,7 +278,7 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
     }
     // from b with slope dl: log f(x) <= zH + dl (x − b)
     if (Number.isFinite(b) && zH < Infinity && Number.isFinite(dl) && (w < Infinity || dl > 0)) {
-      const area = zH === -Infinity ? -Infinity : w === Infinity ? zH - Math.log(dl) : zH + Math.log(w) + logExprel(-dl * w);
+      const area = zH === -Infinity ? -Infinity : w === Infinity ? zH - log(dl) : zH + log(w) + logExprel(-dl * w);
       if (area < best) {
         best = area;
         if (dl >= 0) {
@@ -298,13 +299,13 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
   c.eP[j] = bestP;
   c.eH[j] = eH;
   c.eR[j] = bestR;
-  c.eQ[j] = bestR === 0 ? 0 : w === Infinity ? 1 : -Math.expm1(-bestR * w);
+  c.eQ[j] = bestR === 0 ? 0 : w === Infinity ? 1 : -expm1(-bestR * w);
   // area of the widened envelope
   let logEnv: number;
   if (eH === -Infinity) logEnv = -Infinity;
   else if (eH === Infinity) logEnv = Infinity;
-  else if (w === Infinity) logEnv = bestR > 0 ? eH - Math.log(bestR) : Infinity;
-  else logEnv = eH + Math.log(w) + logExprel(-bestR * w);
+  else if (w === Infinity) logEnv = bestR > 0 ? eH - log(bestR) : Infinity;
+  else logEnv = eH + log(w) + logExprel(-bestR * w);
   if (logEnv !== logEnv) logEnv = Infinity;
   c.logEnv[j] = logEnv;
 
@@ -314,13 +315,13 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
   let sS = 0;
   let sq = -Infinity;
   if (bl > -Infinity && w < Infinity) {
-    sq = bl + Math.log(w);
+    sq = bl + log(w);
     sA = a;
     sH = bl;
     sS = 0;
   }
   if (Number.isFinite(a) && aL > -Infinity && Number.isFinite(dl) && (w < Infinity || dl < 0)) {
-    const area = w === Infinity ? aL - Math.log(-dl) : aL + Math.log(w) + logExprel(dl * w);
+    const area = w === Infinity ? aL - log(-dl) : aL + log(w) + logExprel(dl * w);
     if (area > sq) {
       sq = area;
       sA = a;
@@ -329,7 +330,7 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
     }
   }
   if (Number.isFinite(b) && zL > -Infinity && Number.isFinite(dh) && (w < Infinity || dh > 0)) {
-    const area = w === Infinity ? zL - Math.log(dh) : zL + Math.log(w) + logExprel(-dh * w);
+    const area = w === Infinity ? zL - log(dh) : zL + log(w) + logExprel(-dh * w);
     if (area > sq) {
       sq = area;
       sA = b;
@@ -343,8 +344,8 @@ export function fillCell(api: string, c: CellStore, j: number, o: BoundsOracle):
   c.sS[j] = sHd === -Infinity ? 0 : sS;
   let logSq: number;
   if (sHd === -Infinity) logSq = -Infinity;
-  else if (w === Infinity) logSq = sHd - Math.log(Math.abs(sS));
-  else logSq = sHd + Math.log(w) + logExprel(sA === a ? sS * w : -sS * w);
+  else if (w === Infinity) logSq = sHd - log(Math.abs(sS));
+  else logSq = sHd + log(w) + logExprel(sA === a ? sS * w : -sS * w);
   c.logSq[j] = logSq;
   // consistency: squeeze <= envelope at the finite ends (both are log-linear on the cell)
   if (sHd > -Infinity && eH < Infinity) {

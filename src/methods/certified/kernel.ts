@@ -14,6 +14,7 @@ import { GuideTable } from '../envelope/guide-table.js';
 import { logSumExp } from './build.js';
 import type { BoundsOracle, CellStore } from './cells.js';
 import { splitCell, splitPoint } from './cells.js';
+import { exp, log, log1p } from '../../vendor/math.js';
 
 /** Floats per cell in the kernel's packed table: lo, hi, peak, log height, rate, inversion constant, squeeze anchor, height, slope, and the smallest squeeze/envelope ratio on the cell. @internal */
 export const HOT_STRIDE = 10;
@@ -96,7 +97,7 @@ export class CertifiedState {
     const lin = this.lin;
     const h = this.hot;
     for (let j = 0; j < n; j++) {
-      lin[j] = Math.exp(c.logEnv[j] - logE);
+      lin[j] = exp(c.logEnv[j] - logE);
       const o = j * HOT_STRIDE;
       h[o] = c.lo[j];
       h[o + 1] = c.hi[j];
@@ -112,7 +113,7 @@ export class CertifiedState {
     this.guide.build(lin, n);
     this.pendingCount = 0;
     this.marked.fill(0);
-    this.refining = this.refineOnRejection && n < this.maxCells && this.logSqueezeArea - logE < Math.log(REFINE_UNTIL);
+    this.refining = this.refineOnRejection && n < this.maxCells && this.logSqueezeArea - logE < log(REFINE_UNTIL);
   }
 }
 
@@ -139,7 +140,7 @@ export function minRatio(c: CellStore, j: number): number {
   if (Number.isFinite(b)) m = Math.min(m, d(b));
   else if (ss + r < 0) m = -Infinity;
   if (!(m < Infinity) || m !== m) return 0;
-  const q = Math.exp(m) * (1 - 1e-12);
+  const q = exp(m) * (1 - 1e-12);
   return q > 0 && q < 1 ? q : q >= 1 ? 1 - 1e-12 : 0;
 }
 
@@ -174,7 +175,7 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       if (r === 0) {
         x = a + u2 * (b - a);
       } else {
-        const t = -Math.log1p(-u2 * h[o + 5]) / r;
+        const t = -log1p(-u2 * h[o + 5]) / r;
         x = p === a ? a + t : b - t;
       }
       if (x < a) x = a;
@@ -185,7 +186,7 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       const v = 1 - u(); // in (0, 1]
       cnt.proposals++;
       // v <= the cell's smallest squeeze/envelope ratio: under the squeeze wherever x is (no exp needed)
-      if (v <= h[o + 9] || (ls > -Infinity && v <= Math.exp(ls - lg))) {
+      if (v <= h[o + 9] || (ls > -Infinity && v <= exp(ls - lg))) {
         out[i] = x;
         cnt.samples++;
         break;
@@ -195,7 +196,7 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       checkLogDensity(s.api, x, lf);
       if (lf > lg) throw new EnvelopeViolationError(s.api, x, lf, lg);
       if (lf < ls) throw new EnvelopeViolationError(s.api, x, lf, ls, 'squeeze');
-      if (v <= Math.exp(lf - lg)) {
+      if (v <= exp(lf - lg)) {
         out[i] = x;
         cnt.samples++;
         break;

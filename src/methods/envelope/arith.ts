@@ -3,6 +3,7 @@
  *
  * @packageDocumentation
  */
+import { exp, log } from '../../vendor/math.js';
 
 /** log(Σ e^v) over an array (−Infinity for an empty one or all −Infinity; +Infinity if any is). @internal */
 export function logSumExp(v: ArrayLike<number>): number {
@@ -10,8 +11,8 @@ export function logSumExp(v: ArrayLike<number>): number {
   for (let i = 0; i < v.length; i++) if (v[i] > m) m = v[i];
   if (m === -Infinity || m === Infinity) return m;
   let s = 0;
-  for (let i = 0; i < v.length; i++) s += Math.exp(v[i] - m);
-  return m + Math.log(s);
+  for (let i = 0; i < v.length; i++) s += exp(v[i] - m);
+  return m + log(s);
 }
 
 /**

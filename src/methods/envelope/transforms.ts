@@ -40,6 +40,7 @@
  *
  * @packageDocumentation
  */
+import { exp, expm1, log, log1p } from '../../vendor/math.js';
 
 /** Names of the transforms. */
 export type TransformName = 'log' | 'inverse-sqrt';
@@ -58,7 +59,7 @@ export const FLAT_LIMIT = 1e-15;
  * @internal
  */
 export function transformValue(kind: number, lr: number): number {
-  return kind === T_LOG ? lr : -Math.exp(-0.5 * lr);
+  return kind === T_LOG ? lr : -exp(-0.5 * lr);
 }
 
 /**
@@ -79,7 +80,7 @@ export function transformSlope(kind: number, y: number, g: number): number {
  */
 export function logHeight(kind: number, t: number): number {
   if (kind === T_LOG) return t;
-  return t < 0 ? -2 * Math.log(-t) : Infinity;
+  return t < 0 ? -2 * log(-t) : Infinity;
 }
 
 /**
@@ -92,7 +93,7 @@ export function pieceConstant(kind: number, tH: number, sig: number, w: number):
   if (kind === T_LOG) {
     const z = sig * w;
     if (!(z >= FLAT_LIMIT)) return 0;
-    return w === Infinity ? 1 : -Math.expm1(-z);
+    return w === Infinity ? 1 : -expm1(-z);
   }
   return sig / -tH;
 }
@@ -107,15 +108,15 @@ export function pieceLogArea(kind: number, tH: number, sig: number, w: number): 
   if (kind === T_LOG) {
     if (tH === -Infinity) return -Infinity;
     const z = sig * w;
-    if (w === Infinity) return sig > 0 ? tH - Math.log(sig) : Infinity;
-    if (!(z >= FLAT_LIMIT)) return tH + Math.log(w);
-    return tH + Math.log(-Math.expm1(-z)) - Math.log(sig);
+    if (w === Infinity) return sig > 0 ? tH - log(sig) : Infinity;
+    if (!(z >= FLAT_LIMIT)) return tH + log(w);
+    return tH + log(-expm1(-z)) - log(sig);
   }
   if (!(tH < 0)) return Infinity;
   const a = -tH;
   const r = sig / a;
-  if (w === Infinity) return r > 0 ? -Math.log(r) - 2 * Math.log(a) : Infinity;
-  return Math.log(w) - 2 * Math.log(a) - Math.log1p(r * w);
+  if (w === Infinity) return r > 0 ? -log(r) - 2 * log(a) : Infinity;
+  return log(w) - 2 * log(a) - log1p(r * w);
 }
 
 /**
@@ -128,7 +129,7 @@ export function pieceLogArea(kind: number, tH: number, sig: number, w: number): 
 export function invertPiece(kind: number, q: number, sig: number, w: number, u: number): number {
   let d: number;
   if (kind === T_LOG) {
-    d = q === 0 ? u * w : -Math.log1p(-u * q) / sig;
+    d = q === 0 ? u * w : -log1p(-u * q) / sig;
   } else {
     d = w === Infinity ? u / ((1 - u) * q) : (u * w) / (1 + (1 - u) * q * w);
   }
@@ -145,5 +146,5 @@ export function invertPiece(kind: number, q: number, sig: number, w: number, u: 
  * @internal
  */
 export function pieceLogEnvelopeAt(kind: number, href: number, sig: number, dd: number): number {
-  return kind === T_LOG ? href - sig * dd : href - 2 * Math.log1p(sig * dd);
+  return kind === T_LOG ? href - sig * dd : href - 2 * log1p(sig * dd);
 }

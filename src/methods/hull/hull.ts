@@ -13,6 +13,7 @@ import { GuideTable } from '../envelope/guide-table.js';
 import type { HullView } from '../envelope/hull-view.js';
 import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
+import { exp } from '../../vendor/math.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -320,7 +321,7 @@ export class Hull implements HullView {
     this.highValue[j] = th;
     this.inversion[j] = th === Infinity ? NaN : pieceConstant(this.kind, th, s, w);
     this.logArea[j] = la;
-    this.area[j] = Math.exp(la);
+    this.area[j] = exp(la);
   }
 
   private setInvalid(j: number, lo: number, hi: number): void {

@@ -12,6 +12,7 @@ import { T_LOG, invertPiece } from '../envelope/transforms.js';
 import { checkBeyondZero } from '../envelope/gaps.js';
 import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
+import { exp, log } from '../../vendor/math.js';
 
 /**
  * Fills `out[0..n)` with draws from the target under the hull `h`.
@@ -81,7 +82,7 @@ export function hullFill(
       let lenv: number;
       let lsq: number;
       if (isLog) {
-        if (u3 < Math.exp(c - t)) {
+        if (u3 < exp(c - t)) {
           out[i] = x;
           break;
         }
@@ -93,8 +94,8 @@ export function hullFill(
           out[i] = x;
           break;
         }
-        lenv = -2 * Math.log(-t);
-        lsq = c === -Infinity ? -Infinity : -2 * Math.log(-c);
+        lenv = -2 * log(-t);
+        lsq = c === -Infinity ? -Infinity : -2 * log(-c);
       }
       const raw = logf(x);
       counters.densityEvaluations++;
@@ -112,7 +113,7 @@ export function hullFill(
       if (lf === -Infinity) beyondCut(h, counters, x);
       // updating step (Gilks & Wild 1992): every evaluated candidate becomes a touch point
       adapt(h, x, lf);
-      if (u3 < Math.exp(lr - lenv)) {
+      if (u3 < exp(lr - lenv)) {
         out[i] = x;
         break;
       }

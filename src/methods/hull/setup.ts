@@ -7,6 +7,7 @@
  */
 import { Counters } from '../../core/counters.js';
 import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
+import { InvalidOptionError } from '../../core/errors.js';
 import type { SamplerOptions, Target, Uniform } from '../../core/types.js';
 import type { TransformName } from '../envelope/transforms.js';
 import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, resolveMaxRejections } from '../../core/validate.js';
@@ -94,7 +95,7 @@ export function resolveHullOptions(api: string, target: Target, options: HullOpt
   const opts: HullOptionsInput = options ?? {};
   const transform = opts.transform ?? 'log';
   if (transform !== 'log' && transform !== 'inverse-sqrt') {
-    throw new InvalidTargetError(`${api}: options.transform must be 'log' or 'inverse-sqrt', got ${String(transform)}`);
+    throw new InvalidOptionError(`${api}: options.transform must be 'log' or 'inverse-sqrt', got ${String(transform)}`);
   }
   const derivativeFree = resolveBoolean(api, 'options.derivativeFree', opts.derivativeFree, false);
   const maxPieces = opts.maxPieces === undefined ? DEFAULT_MAX_PIECES : checkInteger(api, 'options.maxPieces', opts.maxPieces, 2, 1_000_000);
@@ -217,23 +218,23 @@ export function buildHull(api: string, o: ResolvedHullOptions): HullSetup {
 
 function checkStartPoints(api: string, pts: readonly number[], lower: number, upper: number): number[] {
   if (!Array.isArray(pts)) {
-    throw new InvalidTargetError(`${api}: options.startPoints must be an array of numbers, got ${String(pts)}`);
+    throw new InvalidOptionError(`${api}: options.startPoints must be an array of numbers, got ${String(pts)}`);
   }
-  if (pts.length === 0) throw new InvalidTargetError(`${api}: options.startPoints must not be empty`);
+  if (pts.length === 0) throw new InvalidOptionError(`${api}: options.startPoints must not be empty`);
   const out: number[] = [];
   for (let i = 0; i < pts.length; i++) {
     const x = pts[i] as unknown;
     if (typeof x !== 'number' || !Number.isFinite(x)) {
-      throw new InvalidTargetError(`${api}: options.startPoints[${i}] must be a finite number, got ${String(x)}`);
+      throw new InvalidOptionError(`${api}: options.startPoints[${i}] must be a finite number, got ${String(x)}`);
     }
     if (x < lower || x > upper) {
-      throw new InvalidTargetError(`${api}: options.startPoints[${i}] = ${x} lies outside the support [${lower}, ${upper}]`);
+      throw new InvalidOptionError(`${api}: options.startPoints[${i}] = ${x} lies outside the support [${lower}, ${upper}]`);
     }
     out.push(x);
   }
   out.sort((a, b) => a - b);
   for (let i = 1; i < out.length; i++) {
-    if (out[i] === out[i - 1]) throw new InvalidTargetError(`${api}: options.startPoints contains ${out[i]} twice`);
+    if (out[i] === out[i - 1]) throw new InvalidOptionError(`${api}: options.startPoints contains ${out[i]} twice`);
   }
   return out;
 }

@@ -5,6 +5,7 @@
  *
  * @packageDocumentation
  */
+import { pow } from '../../vendor/math.js';
 
 /** Cell classes (see the module remarks). @internal */
 export const CELL_CONCAVE = 1;
@@ -55,7 +56,7 @@ export const NEGLIGIBLE_DROP = 1500;
  * PIECEWISE_NOISE; // 64 * 2 ** -52 ≈ 1.4e-14
  * ```
  */
-export const PIECEWISE_NOISE = 64 * Math.pow(2, -52);
+export const PIECEWISE_NOISE = /* @__PURE__ */ (() => 64 * pow(2, -52))();
 
 /**
  * Secant construction: largest deviation (absolute part, in log space) that

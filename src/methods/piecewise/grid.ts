@@ -43,6 +43,7 @@ import {
 import type { CellView, Tail } from './cells.js';
 import { buildTables } from './pieces.js';
 import type { ScanPoint } from './scan.js';
+import { exp, log, log1p } from '../../vendor/math.js';
 
 /**
  * The evaluated grid and everything derived from it. All state changes go
@@ -433,7 +434,7 @@ export class Grid implements CellView {
     const out = o * slope; // rate of change of log f moving outwards
     if ((cls === CELL_CONCAVE || cls === CELL_LINEAR || cls === CELL_NEGLIGIBLE) && out < 0) return { kind: TAIL_LOG, x: xk, l: lk, sig: -out };
     // T(f) = −1/√f relative to f(x_k): T = −e^{−(l − l_k)/2}, so T(x_k) = −1 and T' = −T·l'/2.
-    const T1 = -Math.exp(-0.5 * (this.l[k1] - lk));
+    const T1 = -exp(-0.5 * (this.l[k1] - lk));
     const w1 = Math.abs(xk - this.x[k1]);
     const tChordOut = (o * (-1 - T1)) / w1; // dT/dx on the outer cell
     let tConcave = false;
@@ -447,7 +448,7 @@ export class Grid implements CellView {
       tConcave = tl - tChordOut >= -e && tChordOut - tr >= -e;
       tSlope = tk;
     } else if (k2 >= 0 && k2 < n && this.l[k2] > -Infinity) {
-      const T2 = -Math.exp(-0.5 * (this.l[k2] - lk));
+      const T2 = -exp(-0.5 * (this.l[k2] - lk));
       const w2 = Math.abs(this.x[k1] - this.x[k2]);
       const tChordIn = (o > 0 ? T1 - T2 : T2 - T1) / w2;
       const cl = o > 0 ? tChordIn : tChordOut;
@@ -463,8 +464,8 @@ export class Grid implements CellView {
         `${api}: no decay found in the ${side} tail: at the outermost scanned point x = ${xk} logDensity is ${lk} and its slope outwards is ${out} (not negative); the mass may be infinite`,
       );
     }
-    const r0 = Math.log(Math.abs(this.x[k1] - this.centre));
-    const r1 = Math.log(Math.abs(xk - this.centre));
+    const r0 = log(Math.abs(this.x[k1] - this.centre));
+    const r1 = log(Math.abs(xk - this.centre));
     const alpha = r1 > r0 ? -(lk - this.l[k1]) / (r1 - r0) : NaN;
     if (alpha <= 1) {
       throw new ImproperDensityError(
@@ -491,7 +492,7 @@ export class Grid implements CellView {
    */
   refine(ratio: number, maxPieces: number, maxRounds: number): Tables {
     let t = this.tables();
-    const logRatio = Math.log(ratio);
+    const logRatio = log(ratio);
     for (let round = 0; round < maxRounds; round++) {
       if (t.logEnvelopeArea - t.logSqueezeArea <= logRatio || t.n >= maxPieces) break;
       const top = t.logEnvelopeArea - t.ref;
@@ -501,7 +502,7 @@ export class Grid implements CellView {
       let upGap = 0;
       let maxGap = 0;
       for (let j = 0; j < t.n; j++) {
-        const gap = Math.exp(t.logAreas[j] - top) - Math.exp(t.logSqueezeAreas[j] - top);
+        const gap = exp(t.logAreas[j] - top) - exp(t.logSqueezeAreas[j] - top);
         const lo = t.lo[j];
         if (lo === -Infinity) lowGap += gap;
         else if (t.hi[j] === Infinity) upGap += gap;
@@ -550,7 +551,7 @@ export class Grid implements CellView {
     if (!Number.isFinite(xn) || xn === t.x) return;
     const ln = this.ev.logDensity(xn);
     const gn = this.tangent ? this.ev.derivative(xn, ln) : NaN;
-    const envAt = t.kind === TAIL_LOG ? t.l - t.sig * d : t.l - 2 * Math.log1p(t.sig * d);
+    const envAt = t.kind === TAIL_LOG ? t.l - t.sig * d : t.l - 2 * log1p(t.sig * d);
     if (ln > envAt + HULL_LOG_TOLERANCE_ABSOLUTE + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(ln)) this.surprises++;
     if (o > 0) {
       this.x.push(xn);

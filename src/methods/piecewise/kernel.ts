@@ -11,6 +11,7 @@ import type { GuideTable } from '../envelope/guide-table.js';
 import type { Tables } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { invertPiece, pieceLogEnvelopeAt } from '../envelope/transforms.js';
+import { exp } from '../../vendor/math.js';
 
 /**
  * Mutable state the kernel reads (tables are replaced after a repair). The
@@ -94,7 +95,7 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
         const env = pieceLogEnvelopeAt(kj, href[j], sg, dir[j] > 0 ? x - h : h - x);
         const sv = sqv[j];
         const sq = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqa[j]);
-        if (u3 < Math.exp(sq - env)) {
+        if (u3 < exp(sq - env)) {
           out[i] = x;
           break;
         }
@@ -115,7 +116,7 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
           }
           throw new EnvelopeViolationError(api, x, lf, bound, what);
         }
-        if (u3 < Math.exp(lr - env)) {
+        if (u3 < exp(lr - env)) {
           out[i] = x;
           break;
         }

@@ -11,6 +11,7 @@ import type { Tables } from '../envelope/piece-tables.js';
 import { T_INV_SQRT, T_LOG, pieceConstant, pieceLogArea } from '../envelope/transforms.js';
 import { CELL_ATOMIC, CELL_BOUNDARY, CELL_CONCAVE, CELL_CONVEX, CELL_LINEAR, CELL_MONOTONE, CELL_NEGLIGIBLE, CELL_ZERO, CLASS_NAMES, TAIL_LOG, TAIL_NONE } from './cells.js';
 import type { CellView, Tail } from './cells.js';
+import { exp } from '../../vendor/math.js';
 
 /** Growable piece lists (setup only). */
 class PieceLists {
@@ -126,7 +127,7 @@ export function buildTables(g: CellView): Tables {
   let top = -Infinity;
   for (let j = 0; j < m; j++) if (t.logAreas[j] > top) top = t.logAreas[j];
   if (!(top > -Infinity)) throw new ShapeViolationError(`${g.api}: the envelope has no piece of positive area`);
-  for (let j = 0; j < m; j++) t.area[j] = Math.exp(t.logAreas[j] - top);
+  for (let j = 0; j < m; j++) t.area[j] = exp(t.logAreas[j] - top);
   t.logEnvelopeArea = logSumExp(t.logAreas) + ref;
   t.logSqueezeArea = logSumExp(t.logSqueezeAreas) + ref;
   return t;

@@ -8,6 +8,7 @@ import { maximizeLog } from '../../bounds/maximize.js';
 import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
 import type { Evaluator } from '../../core/evaluate.js';
 import type { CheckedTarget } from '../../core/validate.js';
+import { pow } from '../../vendor/math.js';
 
 /** A scanned point. @internal */
 export interface ScanPoint {
@@ -98,8 +99,8 @@ export function scanTarget(
   const centre = c;
   const all: ScanPoint[] = [{ x: centre, l: lc, g: NaN }];
   let logMax = lc;
-  let unit = Math.pow(2, -40) * Math.max(1, Math.abs(centre));
-  if (Number.isFinite(lower) && Number.isFinite(upper)) unit = Math.min(unit, (upper - lower) * Math.pow(2, -40));
+  let unit = pow(2, -40) * Math.max(1, Math.abs(centre));
+  if (Number.isFinite(lower) && Number.isFinite(upper)) unit = Math.min(unit, (upper - lower) * pow(2, -40));
   if (!(unit > 0)) unit = Number.MIN_VALUE;
 
   const rayUp = ray(+1);
@@ -114,7 +115,7 @@ export function scanTarget(
     let zeros = 0;
     let stopped = false;
     for (let k = 0; k <= RAY_HARD_STEPS * RAY_PER_OCTAVE; k++) {
-      const x = centre + dir * unit * Math.pow(2, k / RAY_PER_OCTAVE);
+      const x = centre + dir * unit * pow(2, k / RAY_PER_OCTAVE);
       if (!Number.isFinite(x)) break;
       if (dir > 0 ? x >= end : x <= end) break;
       if (x === prevX) continue;
@@ -138,7 +139,7 @@ export function scanTarget(
       let last = out.length > 0 ? out[out.length - 1].l : lc;
       let lastX = base;
       for (let k = 1; k <= APPROACH_STEPS && span > 0; k++) {
-        const x = end - dir * span * Math.pow(2, -k);
+        const x = end - dir * span * pow(2, -k);
         if (x === end || x === lastX) break;
         const l = ev.logDensity(x);
         out.push({ x, l, g: NaN });
@@ -255,10 +256,10 @@ function checkBeyondZeros(api: string, ev: Evaluator, kept: readonly ScanPoint[]
     const edge = dir > 0 ? hi : lo;
     const bound = dir > 0 ? upper : lower;
     const delta = Math.abs(end.x - edge);
-    const reach = Math.pow(2, ZERO_GAP_OCTAVES) * Math.max(width, delta);
+    const reach = pow(2, ZERO_GAP_OCTAVES) * Math.max(width, delta);
     let zeroAt = end.x;
     for (let k = 0; k < 2 * ZERO_GAP_MAX_PROBES; k++) {
-      const d = delta * Math.pow(2, k / 2);
+      const d = delta * pow(2, k / 2);
       const x = end.x + dir * d;
       if (!Number.isFinite(x) || d > reach || (dir > 0 ? x > bound : x < bound)) break;
       const l = ev.logDensity(x);
@@ -294,7 +295,7 @@ function checkBeyondZeros(api: string, ev: Evaluator, kept: readonly ScanPoint[]
 
 /** Spacing of the doubles at x (2^−52·|x|, at least the smallest normal). */
 function ulp(x: number): number {
-  return Math.max(Math.abs(x) * Math.pow(2, -52), Math.pow(2, -1022));
+  return Math.max(Math.abs(x) * pow(2, -52), pow(2, -1022));
 }
 
 /**

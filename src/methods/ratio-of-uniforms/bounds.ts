@@ -7,6 +7,7 @@ import { maximizeLog } from '../../bounds/maximize.js';
 import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { CheckedTarget } from '../../core/validate.js';
+import { exp, log, log1p, pow } from '../../vendor/math.js';
 
 /**
  * Absolute part of the safety margin of every bound, in log space. Each
@@ -171,13 +172,13 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const hp = (x: number): number => {
       if (!(x > s)) return -Infinity;
       const v = lf(x);
-      return v === -Infinity ? -Infinity : Math.log(x - s) + k * (v - LM);
+      return v === -Infinity ? -Infinity : log(x - s) + k * (v - LM);
     };
     const r = sideSup(api, hp, a, upper, s + scale, scale);
     if (r !== undefined) {
       if (r.rising && upper === Infinity) throw tailError(api, lf, power, s, scale, 1);
       logVMax = r.value + margin(r.value) + cellWidening(cell, r.x, s);
-      if (Number.isFinite(upper)) logVMax = Math.min(logVMax, Math.log(upper - s));
+      if (Number.isFinite(upper)) logVMax = Math.min(logVMax, log(upper - s));
     }
   }
   let logVMinAbs = -Infinity;
@@ -186,13 +187,13 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const hm = (x: number): number => {
       if (!(x < s)) return -Infinity;
       const v = lf(x);
-      return v === -Infinity ? -Infinity : Math.log(s - x) + k * (v - LM);
+      return v === -Infinity ? -Infinity : log(s - x) + k * (v - LM);
     };
     const r = sideSup(api, hm, lower, b, s - scale, scale);
     if (r !== undefined) {
       if (r.rising && lower === -Infinity) throw tailError(api, lf, power, s, scale, -1);
       logVMinAbs = r.value + margin(r.value) + cellWidening(cell, r.x, s);
-      if (Number.isFinite(lower)) logVMinAbs = Math.min(logVMinAbs, Math.log(s - lower));
+      if (Number.isFinite(lower)) logVMinAbs = Math.min(logVMinAbs, log(s - lower));
     }
   }
   if (logVMax === -Infinity && logVMinAbs === -Infinity) {
@@ -203,8 +204,8 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     logDensityMax: L,
     logDensityBound: LM,
     argmax,
-    vMax: Math.exp(logVMax),
-    vMin: logVMinAbs === -Infinity ? 0 : -Math.exp(logVMinAbs),
+    vMax: exp(logVMax),
+    vMin: logVMinAbs === -Infinity ? 0 : -exp(logVMinAbs),
     logVMax,
     logVMinAbs,
     evaluations,
@@ -216,7 +217,7 @@ function cellWidening(cell: ((x: number) => number) | undefined, x: number, s: n
   if (cell === undefined) return 0;
   const d = Math.abs(x - s);
   const w = cell(x);
-  return d > 0 && w > 0 ? Math.log1p((2 * w) / d) : 0;
+  return d > 0 && w > 0 ? log1p((2 * w) / d) : 0;
 }
 
 /**
@@ -270,7 +271,7 @@ function probeEnd(
   let last = -Infinity;
   let lastRise = NaN;
   let prevRise = NaN;
-  let d = Math.min(width / 4, Math.max(1, Math.abs(e) * 2 ** -20));
+  let d = Math.min(width / 4, Math.max(1, Math.abs(e) * pow(2, -20)));
   for (let j = 0; j < 200 && d >= 1e-300; j++, d /= 256) {
     const x = e + dir * d;
     if (x === e) break;
@@ -340,9 +341,9 @@ function halfWidth(lf: (x: number) => number, x0: number, L: number, lower: numb
  * exponent α (f ~ |x|^(−α)) to say which power would bound it.
  */
 function tailError(api: string, lf: (x: number) => number, power: number, s: number, scale: number, dir: 1 | -1): Error {
-  const x1 = s + dir * scale * 2 ** 30;
-  const x2 = s + dir * scale * 2 ** 40;
-  const alpha = -(lf(x2) - lf(x1)) / (Math.log(Math.abs(x2 - s)) - Math.log(Math.abs(x1 - s)));
+  const x1 = s + dir * scale * pow(2, 30);
+  const x2 = s + dir * scale * pow(2, 40);
+  const alpha = -(lf(x2) - lf(x1)) / (log(Math.abs(x2 - s)) - log(Math.abs(x1 - s)));
   const side = dir > 0 ? 'x > shift' : 'x < shift';
   const fn = dir > 0 ? '(x − shift)' : '(shift − x)';
   const lim = dir > 0 ? '+Infinity' : '-Infinity';
@@ -365,7 +366,7 @@ function tailError(api: string, lf: (x: number) => number, power: number, s: num
  * before {@link checkMassBeyondDoubles} refuses the target: 2^−53, the
  * resolution of the uniforms (a lower bound of the share is compared with it). @internal
  */
-export const MAX_MASS_BEYOND_DOUBLES = Math.pow(2, -53);
+export const MAX_MASS_BEYOND_DOUBLES = /* @__PURE__ */ pow(2, -53);
 
 /**
  * Mass beyond the largest double (issue 17): the exact draw, rounded to
@@ -387,9 +388,9 @@ export const MAX_MASS_BEYOND_DOUBLES = Math.pow(2, -53);
  */
 export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rectangle, power: number): number {
   const M = Number.MAX_VALUE;
-  const logM = Math.log(M);
+  const logM = log(M);
   let evaluations = 0;
-  const logArea = Math.log(power + 1) + Math.log(rect.vMax - rect.vMin);
+  const logArea = log(power + 1) + log(rect.vMax - rect.vMin);
   for (const dir of [1, -1] as const) {
     if (dir > 0 ? t.upper < M : t.lower > -M) continue;
     // a value that is not a finite number or −Infinity out there (e.g. NaN from Infinity − Infinity in
@@ -406,10 +407,10 @@ export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rect
         `${api}: the density does not decay towards ${dir > 0 ? '+' : '-'}1.8e308 (logDensity ${lHalf} at ${dir * 0.5 * M}, ${lM} at ${dir * M}): the mass beyond the largest double is infinite`,
       );
     }
-    const logShare = logM + lM - rect.logDensityBound - Math.log(alpha) - logArea;
-    if (logShare > Math.log(MAX_MASS_BEYOND_DOUBLES)) {
+    const logShare = logM + lM - rect.logDensityBound - log(alpha) - logArea;
+    if (logShare > log(MAX_MASS_BEYOND_DOUBLES)) {
       throw new InvalidTargetError(
-        `${api}: at least about ${Math.exp(logShare).toPrecision(2)} of the mass lies beyond ${dir > 0 ? '+' : '-'}1.8e308 (the largest double; local tail f ~ |x|^(−${(1 + alpha).toPrecision(4)}) there): such draws would be ${dir > 0 ? '+' : '-'}Infinity, and candidates there cannot be tested, so exactdraw refuses the target rather than drop that mass; sample log|x| instead, or truncate the support`,
+        `${api}: at least about ${exp(logShare).toPrecision(2)} of the mass lies beyond ${dir > 0 ? '+' : '-'}1.8e308 (the largest double; local tail f ~ |x|^(−${(1 + alpha).toPrecision(4)}) there): such draws would be ${dir > 0 ? '+' : '-'}Infinity, and candidates there cannot be tested, so exactdraw refuses the target rather than drop that mass; sample log|x| instead, or truncate the support`,
       );
     }
   }

@@ -67,6 +67,7 @@ import type { HullView } from '../envelope/hull-view.js';
 import { T_LOG, logHeight, pieceConstant, pieceLogArea } from '../envelope/transforms.js';
 import { stripRegions } from './strip-table.js';
 import type { StripTable, TailPiece } from './strip-table.js';
+import { exp, log, log1p } from '../../vendor/math.js';
 
 /** Number of quantiles of the hull's envelope in the coarse grid. @internal */
 export const COARSE_POINTS = 81;
@@ -90,8 +91,8 @@ function expLinearMass(A: number, B: number, w: number, p: number): number {
   else if (B === -Infinity) B = A - 30;
   const a = p * A;
   const d = p * (B - A);
-  if (Math.abs(d) < 1e-9) return w * Math.exp(a + 0.5 * d);
-  return (w * (Math.exp(a + d) - Math.exp(a))) / d;
+  if (Math.abs(d) < 1e-9) return w * exp(a + 0.5 * d);
+  return (w * (exp(a + d) - exp(a))) / d;
 }
 
 /** The s in [0, w] where ∫_0^s exp(p·(A + (B − A)·t/w)) dt = m (the inverse of {@link expLinearMass}). */
@@ -101,8 +102,8 @@ function expLinearInverse(A: number, B: number, w: number, p: number, m: number)
   const a = p * A;
   const d = p * (B - A);
   let s: number;
-  if (Math.abs(d) < 1e-9) s = m / Math.exp(a + 0.5 * d);
-  else s = (w / d) * Math.log1p((m * d) / (w * Math.exp(a)));
+  if (Math.abs(d) < 1e-9) s = m / exp(a + 0.5 * d);
+  else s = (w / d) * log1p((m * d) / (w * exp(a)));
   if (!(s >= 0)) s = s !== s ? 0.5 * w : 0;
   return s > w ? w : s;
 }
@@ -142,8 +143,8 @@ export function buildStripTable(inp: StripTableInput): StripTable {
 
   // ----- coarse model ---------------------------------------------------------
   const ps: number[] = [];
-  const S = Math.log((1 - COARSE_EDGE) / COARSE_EDGE);
-  for (let i = 0; i < COARSE_POINTS; i++) ps.push(1 / (1 + Math.exp(S - (2 * S * i) / (COARSE_POINTS - 1))));
+  const S = log((1 - COARSE_EDGE) / COARSE_EDGE);
+  for (let i = 0; i < COARSE_POINTS; i++) ps.push(1 / (1 + exp(S - (2 * S * i) / (COARSE_POINTS - 1))));
   const pts = new Map<number, number>();
   for (let i = 0; i < h.touchPointCount(); i++) pts.set(h.touchPointX(i), h.touchPointLogDensity(i));
   const qs = h.envelopeQuantiles(ps);
@@ -178,7 +179,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
     return from[from.length - 1];
   };
   const eps = inp.tailMass;
-  const negligible = Math.log(eps);
+  const negligible = log(eps);
   let L = locate(eps * F, 1, cx, rel);
   let R: number;
   {
@@ -243,7 +244,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
       const d = p * (B - A);
       ga[g] = av;
       gd[g] = d;
-      gmass[g] = Math.abs(d) < 1e-9 ? w * Math.exp(av + 0.5 * d) : (w * (Math.exp(av + d) - Math.exp(av))) / d;
+      gmass[g] = Math.abs(d) < 1e-9 ? w * exp(av + 0.5 * d) : (w * (exp(av + d) - exp(av))) / d;
       G += gmass[g];
     }
     let g = 0;
@@ -254,7 +255,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
       const w = nx[g + 1] - nx[g];
       const d = gd[g];
       const rem = m - acc;
-      let sx = Math.abs(d) < 1e-9 ? rem / Math.exp(ga[g] + 0.5 * d) : (w / d) * Math.log1p((rem * d) / (w * Math.exp(ga[g])));
+      let sx = Math.abs(d) < 1e-9 ? rem / exp(ga[g] + 0.5 * d) : (w / d) * log1p((rem * d) / (w * exp(ga[g])));
       if (!(sx >= 0)) sx = sx !== sx ? 0.5 * w : 0;
       const x = nx[g] + (sx > w ? w : sx);
       if (x > L && x < R) out.push(x);
@@ -309,10 +310,10 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   const isLog = kind === T_LOG;
   for (let i = 0; i <= n; i++) {
     const d = l[i] - ref;
-    const ei = Math.exp(d);
+    const ei = exp(d);
     e[i] = ei;
     // transformValue inlined: log: d; inverse-sqrt: −e^(−d/2) = −1/√(e^d)
-    y[i] = isLog ? d : -Math.exp(-0.5 * d);
+    y[i] = isLog ? d : -exp(-0.5 * d);
   }
   const c = new Float64Array(n);
   for (let i = 0; i < n; i++) c[i] = l[i] > -Infinity && l[i + 1] > -Infinity ? (y[i + 1] - y[i]) / (x[i + 1] - x[i]) : NaN;
@@ -385,7 +386,7 @@ export function buildStripTable(inp: StripTableInput): StripTable {
       }
     }
     logUp[i] = u;
-    up[i] = ue === ue ? ue : Math.exp(u - ref);
+    up[i] = ue === ue ? ue : exp(u - ref);
   }
 
   // ----- tails --------------------------------------------------------------------------
@@ -407,8 +408,8 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   }
 
   // ----- regions ------------------------------------------------------------------------
-  const leftArea = left === null ? 0 : Math.exp(left.logArea);
-  const rightArea = right === null ? 0 : Math.exp(right.logArea);
+  const leftArea = left === null ? 0 : exp(left.logArea);
+  const rightArea = right === null ? 0 : exp(right.logArea);
   const regions = stripRegions(n, x, logUp, up, lo, leftArea, rightArea);
   const total = regions.sureArea + regions.capArea + regions.tailArea;
   if (!(total > 0 && total < Infinity)) {

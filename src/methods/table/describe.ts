@@ -7,6 +7,7 @@ import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description
 import { T_LOG, pieceLogArea, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
 import type { StripTable, TailPiece } from './strip-table.js';
+import { exp, log } from '../../vendor/math.js';
 
 /**
  * The strip table of a {@link TableSampler}: the body cut into strips, each
@@ -49,7 +50,7 @@ export interface TableDescription {
 
 /** Describes a strip table. @internal */
 export function describeTable(t: StripTable, cells: AliasCells): TableDescription {
-  const lg = (a: number): number => Math.log(a) + t.ref;
+  const lg = (a: number): number => log(a) + t.ref;
   return {
     strips: t.n,
     cells: cells.K,
@@ -101,9 +102,9 @@ export function describeTableEnvelope(t: StripTable, derivativeEvaluations: numb
       squeezeAnchor: hiEnd,
       squeezeValue: hasSq ? hiY : -Infinity,
       squeezeSlope: hasSq ? ci : 0,
-      logArea: w > 0 ? Math.log(w) + t.logUp[i] : -Infinity,
+      logArea: w > 0 ? log(w) + t.logUp[i] : -Infinity,
     });
-    if (hasSq && w > 0) sq += Math.exp(pieceLogArea(kind, hiY, Math.abs(ci), w));
+    if (hasSq && w > 0) sq += exp(pieceLogArea(kind, hiY, Math.abs(ci), w));
   }
   pieces.push(tailPiece(t, t.right, t.x[t.n]));
   return {
@@ -114,8 +115,8 @@ export function describeTableEnvelope(t: StripTable, derivativeEvaluations: numb
     touchPoints: Array.from(t.x),
     touchLogDensities: Array.from(t.l),
     pieces,
-    logEnvelopeArea: Math.log(t.sureArea + t.capArea + t.tailArea) + t.ref,
-    logSqueezeArea: Math.log(sq) + t.ref,
+    logEnvelopeArea: log(t.sureArea + t.capArea + t.tailArea) + t.ref,
+    logSqueezeArea: log(sq) + t.ref,
     derivativeEvaluations,
   };
 }

@@ -15,6 +15,7 @@ import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
 import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL } from './strip-table.js';
 import type { PiecewiseStrips, StripTable, TailPiece } from './strip-table.js';
+import { exp, log } from '../../vendor/math.js';
 
 /** The largest double below 1. */
 const BELOW_ONE = 0.9999999999999999;
@@ -151,7 +152,7 @@ function hullTailCandidate(st: TableState, counters: Counters, type: number, pos
   const lf = evaluate(st, counters, x);
   if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
   const u = blk.next();
-  st.accepted = u < Math.exp(lf - ref - lenv);
+  st.accepted = u < exp(lf - ref - lenv);
   return x;
 }
 
@@ -162,7 +163,7 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
   const ref = tb.ref;
   const a = tb.x[i];
   const bb = tb.x[i + 1];
-  const th = kind === T_LOG ? Math.log(hv) : -1 / Math.sqrt(hv);
+  const th = kind === T_LOG ? log(hv) : -1 / Math.sqrt(hv);
   // chord squeeze, anchored at its higher end
   const y = tb.y;
   const ci = tb.chordSlope[i];
@@ -213,13 +214,13 @@ function piecewiseTailCandidate(st: TableState, counters: Counters, pw: Piecewis
   }
   const env = pieceLogEnvelope(t, j, x);
   const sq = pieceLogSqueeze(t, j, x);
-  if (u3 < Math.exp(sq - env)) {
+  if (u3 < exp(sq - env)) {
     st.accepted = true;
     return x;
   }
   const lf = evaluate(st, counters, x);
   checkPiecewise(st.table.api, x, lf, ref, env, sq);
-  st.accepted = u3 < Math.exp(lf - ref - env);
+  st.accepted = u3 < exp(lf - ref - env);
   return x;
 }
 
@@ -230,7 +231,7 @@ function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i
   let j = pw.first[i];
   const jEnd = pw.last[i];
   while (j < jEnd && t.hi[j] < x) j++;
-  const th = Math.log(hv);
+  const th = log(hv);
   const sq = pieceLogSqueeze(t, j, x);
   if (th < sq) {
     st.accepted = true;

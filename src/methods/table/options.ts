@@ -6,8 +6,8 @@
  *
  * @packageDocumentation
  */
-import { InvalidTargetError } from '../../core/errors.js';
-import { checkInteger } from '../../core/validate.js';
+import { InvalidOptionError } from '../../core/errors.js';
+import { checkInteger, showValue } from '../../core/validate.js';
 
 /**
  * Default of {@link TableSamplerOptions.strips}.
@@ -64,7 +64,7 @@ export function resolveTableOptions(api: string, options: { readonly strips?: un
   const strips = options?.strips === undefined ? DEFAULT_TABLE_STRIPS : checkInteger(api, 'options.strips', options.strips, 2, MAX_TABLE_STRIPS);
   const tailMass = options?.tailMass ?? DEFAULT_TABLE_TAIL_MASS;
   if (typeof tailMass !== 'number' || !(tailMass > 0 && tailMass <= 0.01)) {
-    throw new InvalidTargetError(`${api}: options.tailMass must be a number in (0, 0.01], got ${String(tailMass)}`);
+    throw new InvalidOptionError(`${api}: options.tailMass must be a number in (0, 0.01], got ${showValue(tailMass)}`);
   }
   return { strips, tailMass };
 }

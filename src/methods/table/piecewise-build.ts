@@ -45,6 +45,7 @@ import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG } from '../envelope/transforms.js';
 import { stripRegions } from './strip-table.js';
 import type { PiecewiseStrips, StripTable } from './strip-table.js';
+import { exp } from '../../vendor/math.js';
 
 /** Strips per unit of log-envelope variation inside a piece (at most 0.1 per strip in massive pieces). @internal */
 const STRIPS_PER_LOG_UNIT = 10;
@@ -86,7 +87,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
   const area = new Float64Array(m);
   let total = 0;
   for (let j = 0; j < m; j++) {
-    area[j] = Math.exp(t.logAreas[j]);
+    area[j] = exp(t.logAreas[j]);
     total += area[j];
   }
   if (!(total > 0 && total < Infinity)) throw new InvalidTargetError(`${api}: the piecewise envelope has area ${total} (relative to e^${ref})`);
@@ -210,8 +211,8 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
     if (q > M) q = M;
     logUp[i] = M + ref;
     logLo[i] = q + ref;
-    up[i] = Math.exp(M);
-    lo[i] = Math.exp(q);
+    up[i] = exp(M);
+    lo[i] = exp(q);
   }
 
   // ----- tails and regions -------------------------------------------------------------------------------

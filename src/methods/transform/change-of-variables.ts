@@ -8,6 +8,7 @@ import { InvalidOptionError, InvalidTargetError } from '../../core/errors.js';
 import type { Target } from '../../core/types.js';
 import { checkTarget } from '../../core/validate.js';
 import type { PoleSide, PoleTarget } from '../../targets/end-distance.js';
+import { exp, log, log1p, pow } from '../../vendor/math.js';
 
 /**
  * The smallest distance to an end that the change of variables represents:
@@ -19,7 +20,7 @@ import type { PoleSide, PoleTarget } from '../../targets/end-distance.js';
  * poleTransform(gammaTarget(0.5), 'lower').minDistanceLower === MIN_POLE_DISTANCE; // true: the end is 0
  * ```
  */
-export const MIN_POLE_DISTANCE = Math.pow(2, -1022);
+export const MIN_POLE_DISTANCE = /* @__PURE__ */ pow(2, -1022);
 
 /**
  * Without a distance form (`logDensityFromLower`/`logDensityFromUpper`), at
@@ -33,7 +34,7 @@ export const MIN_POLE_DISTANCE = Math.pow(2, -1022);
  * poleTransform({ logDensity: (x) => -0.5 * Math.log(x - 2), support: [2, 3] }, 'lower').minDistanceLower;
  * ```
  */
-export const POLE_ULPS_WITHOUT_DISTANCE_FORM = Math.pow(2, 30);
+export const POLE_ULPS_WITHOUT_DISTANCE_FORM = /* @__PURE__ */ pow(2, 30);
 
 /**
  * Which map a {@link PoleTransform} uses.
@@ -167,21 +168,21 @@ export function buildPoleTransform(api: string, target: PoleTarget, side: PoleSi
   if (side === 'lower') {
     const out = logDistanceTarget(lfLo, hasD ? dLo : undefined, 1, minLo, b - a);
     return freeze('log-lower', side, `Y = log(X − ${fmt(a)})`, out, a, b, minLo, NaN, (y: number): number => {
-      const x = a + Math.exp(y);
+      const x = a + exp(y);
       return x > a ? (x <= b ? x : b) : insideLo;
     });
   }
   if (side === 'upper') {
     const out = logDistanceTarget(lfHi, hasD ? dHi : undefined, -1, minHi, b - a);
     return freeze('log-upper', side, `Y = log(${fmt(b)} − X)`, out, a, b, NaN, minHi, (y: number): number => {
-      const x = b - Math.exp(y);
+      const x = b - exp(y);
       return x < b ? (x >= a ? x : a) : insideHi;
     });
   }
   // both: logit of (x − a)/w
   const w = b - a;
   if (!(w < Infinity)) throw new InvalidTargetError(`${api}: the logit map needs b − a finite, got [${a}, ${b}]`);
-  const logW = Math.log(w);
+  const logW = log(w);
   // σ(y) ≥ d_min/w ⇔ y ≥ log(d_min/w) − log1p(−d_min/w); symmetric at the upper end
   const yLo = logit(minLo / w);
   const yHi = -logit(minHi / w);
@@ -189,25 +190,25 @@ export function buildPoleTransform(api: string, target: PoleTarget, side: PoleSi
     logDensity(y: number): number {
       if (!(y >= yLo && y <= yHi)) return y !== y ? NaN : -Infinity;
       if (y <= 0) {
-        const e = Math.exp(y);
+        const e = exp(y);
         const l = lfLo((w * e) / (1 + e));
-        return l === -Infinity ? l : l + logW + y - 2 * Math.log1p(e);
+        return l === -Infinity ? l : l + logW + y - 2 * log1p(e);
       }
-      const e = Math.exp(-y);
+      const e = exp(-y);
       const l = lfHi((w * e) / (1 + e));
-      return l === -Infinity ? l : l + logW - y - 2 * Math.log1p(e);
+      return l === -Infinity ? l : l + logW - y - 2 * log1p(e);
     },
     support: [yLo, yHi],
   };
   if (hasD && dLo !== undefined && dHi !== undefined) {
     out.dLogDensity = (y: number): number => {
       if (y <= 0) {
-        const e = Math.exp(y);
+        const e = exp(y);
         const s = e / (1 + e); // σ(y)
         const c = 1 / (1 + e); // σ(−y)
         return dLo(w * s) * w * s * c + (c - s);
       }
-      const e = Math.exp(-y);
+      const e = exp(-y);
       const c = e / (1 + e); // σ(−y)
       const s = 1 / (1 + e); // σ(y)
       return dHi(w * c) * w * s * c + (c - s);
@@ -215,11 +216,11 @@ export function buildPoleTransform(api: string, target: PoleTarget, side: PoleSi
   }
   return freeze('logit', side, `Y = logit((X − ${fmt(a)})/${fmt(w)})`, out, a, b, minLo, minHi, (y: number): number => {
     if (y <= 0) {
-      const e = Math.exp(y);
+      const e = exp(y);
       const x = a + (w * e) / (1 + e);
       return x > a ? x : insideLo;
     }
-    const e = Math.exp(-y);
+    const e = exp(-y);
     const x = b - (w * e) / (1 + e);
     return x < b ? x : insideHi;
   });
@@ -238,12 +239,12 @@ function logDistanceTarget(
   minDistance: number,
   width: number,
 ): { -readonly [K in keyof Target]: Target[K] } {
-  const yLo = Math.log(minDistance);
-  const yHi = Math.log(width); // +Infinity when the far end is infinite
+  const yLo = log(minDistance);
+  const yHi = log(width); // +Infinity when the far end is infinite
   const out: { -readonly [K in keyof Target]: Target[K] } = {
     logDensity(y: number): number {
       if (!(y >= yLo && y <= yHi)) return y !== y ? NaN : -Infinity;
-      const d = Math.exp(y);
+      const d = exp(y);
       if (!(d < Infinity) || d > width) return -Infinity;
       const l = lf(d);
       return l === -Infinity ? l : l + y;
@@ -252,7 +253,7 @@ function logDistanceTarget(
   };
   if (dl !== undefined) {
     out.dLogDensity = (y: number): number => {
-      const d = Math.exp(y);
+      const d = exp(y);
       return sign * dl(d) * d + 1;
     };
   }
@@ -275,7 +276,7 @@ function freeze(
 
 /** log(p/(1 − p)) for small p, without cancellation. */
 function logit(p: number): number {
-  return Math.log(p) - Math.log1p(-p);
+  return log(p) - log1p(-p);
 }
 
 /** The smallest distance represented at the end e. */

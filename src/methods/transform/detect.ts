@@ -10,6 +10,7 @@ import type { CheckedTarget } from '../../core/validate.js';
 import type { PoleSide, PoleTarget } from '../../targets/end-distance.js';
 import { MIN_POLE_DISTANCE } from './change-of-variables.js';
 import type { PoleTransform } from './change-of-variables.js';
+import { exp } from '../../vendor/math.js';
 
 /** Factor between consecutive probe distances towards an end. */
 const PROBE_FACTOR = 256;
@@ -161,7 +162,7 @@ export function checkRepresentable(api: string, tr: PoleTransform): { evaluation
         `${api}: near the ${name} end ${e} the density grows like |x − ${e}|^(−1) or faster (after ${tr.description} the density does not decay towards the end: logDensity ${l0} at distance ${dmin}, ${l1} at e^${dir}·${dmin}), so its mass is infinite`,
       );
     }
-    const lost = Math.exp(l0 - lmax) / slope;
+    const lost = exp(l0 - lmax) / slope;
     if (lost > MAX_UNREPRESENTED_MASS) {
       throw new InvalidTargetError(
         `${api}: about ${lost.toPrecision(3)} of the mass (estimated) lies within ${dmin} of the ${name} end ${e}, closer than the change of variables ${tr.description} represents; such draws cannot be returned as distinct doubles` +

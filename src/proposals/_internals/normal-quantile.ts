@@ -4,6 +4,7 @@
  *
  * @packageDocumentation
  */
+import { log } from '../../vendor/math.js';
 
 // Coefficients of AS 241 PPND16 (Wichura 1988, Applied Statistics 37(3),
 // 477–484), quoted from memory; the tests check the quantile against
@@ -75,7 +76,7 @@ export function ppnd16(q: number, r: number): number {
       (((((((B7 * s + B6) * s + B5) * s + B4) * s + B3) * s + B2) * s + B1) * s + 1)
     );
   }
-  let t = Math.sqrt(-Math.log(r));
+  let t = Math.sqrt(-log(r));
   let z: number;
   if (t <= SPLIT2) {
     t -= CONST2;

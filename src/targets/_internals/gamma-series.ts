@@ -9,6 +9,7 @@
  * @packageDocumentation
  */
 import { gammaln } from '../../vendor/stdlib.js';
+import { exp, log } from '../../vendor/math.js';
 
 const EPS = 2.220446049250313e-16;
 /** Smallest magnitude kept by the modified Lentz recurrence (common practice). */
@@ -48,7 +49,7 @@ function seriesP(a: number, x: number): number {
     }
   }
   if (!converged) return NaN;
-  return Math.exp(a * Math.log(x) - x - gammaln(a + 1) + Math.log(sum));
+  return exp(a * log(x) - x - gammaln(a + 1) + log(sum));
 }
 
 /**
@@ -80,7 +81,7 @@ function continuedFractionQ(a: number, x: number): number {
     }
   }
   if (!converged) return NaN;
-  return Math.exp(a * Math.log(x) - x - gammaln(a) + Math.log(h));
+  return exp(a * log(x) - x - gammaln(a) + log(h));
 }
 
 /**

@@ -5,6 +5,7 @@
  * @packageDocumentation
  */
 import { InvalidTargetError } from '../../core/errors.js';
+import { asinh, exp, log, log1p, pow, sinh } from '../../vendor/math.js';
 
 /** Nodes of 8-point Gauss–Legendre on [−1, 1] (positive half; Abramowitz & Stegun, Table 25.4). */
 const GL_X = [0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363] as const;
@@ -27,12 +28,12 @@ const CDF_MAX_CELLS = 200_000;
  */
 export function logBesselK(api: string, nu: number, z: number): number {
   const v = Math.abs(nu);
-  const h = 0.2 * Math.min(1, Math.pow(z * z + v * v, -0.25));
-  const t0 = Math.asinh(v / z);
+  const h = 0.2 * Math.min(1, pow(z * z + v * v, -0.25));
+  const t0 = asinh(v / z);
   // φ(t) = −z(cosh t − 1) + log cosh(νt), summed as exp(φ − m) with a running max m
   const phi = (t: number): number => {
-    const s = Math.sinh(t / 2);
-    return -2 * z * s * s + v * t + Math.log1p(Math.exp(-2 * v * t)) - Math.LN2;
+    const s = sinh(t / 2);
+    return -2 * z * s * s + v * t + log1p(exp(-2 * v * t)) - Math.LN2;
   };
   let m = phi(0);
   let sum = 0.5;
@@ -40,12 +41,12 @@ export function logBesselK(api: string, nu: number, z: number): number {
     const t = k * h;
     const f = phi(t);
     if (f > m) {
-      sum = sum * Math.exp(m - f) + 1;
+      sum = sum * exp(m - f) + 1;
       m = f;
     } else {
-      sum += Math.exp(f - m);
+      sum += exp(f - m);
     }
-    if (t > t0 && f < m - BESSEL_DROP) return -z + m + Math.log(sum * h);
+    if (t > t0 && f < m - BESSEL_DROP) return -z + m + log(sum * h);
   }
   throw new InvalidTargetError(`${api}: the Bessel normalizer K_p(√(ab)) needed more than ${BESSEL_MAX_TERMS} terms (p = ${nu}, √(ab) = ${z}); use a smaller |p|`);
 }
@@ -70,7 +71,7 @@ export class QuadratureCdf {
     private readonly logC: number,
   ) {
     const r = Math.sqrt(p * p + a * b);
-    const peak = Math.log(p >= 0 ? (p + r) / a : b / (r - p));
+    const peak = log(p >= 0 ? (p + r) / a : b / (r - p));
     this.psiMax = this.psi(peak);
     const up = this.walk(api, peak, +1);
     const down = this.walk(api, peak, -1);
@@ -93,7 +94,7 @@ export class QuadratureCdf {
 
   /** The total mass of the table, relative to the peak of the integrand (so not 1). */
   get mass(): number {
-    return this.total * Math.exp(this.psiMax);
+    return this.total * exp(this.psiMax);
   }
 
   /** P(X ≤ e^u). */
@@ -118,7 +119,7 @@ export class QuadratureCdf {
 
   /** log of the integrand in u: log f(e^u) + u. */
   private psi(u: number): number {
-    return this.logC + this.p * u - 0.5 * (this.a * Math.exp(u) + this.b * Math.exp(-u));
+    return this.logC + this.p * u - 0.5 * (this.a * exp(u) + this.b * exp(-u));
   }
 
   /** Cell edges from the peak outwards in direction dir, until the integrand has dropped by CDF_DROP. */
@@ -126,7 +127,7 @@ export class QuadratureCdf {
     const out = [start];
     let u = start;
     for (let k = 0; k < CDF_MAX_CELLS; k++) {
-      const eu = Math.exp(u);
+      const eu = exp(u);
       const d1 = Math.abs(this.p - 0.5 * (this.a * eu - this.b / eu));
       const d2 = 0.5 * (this.a * eu + this.b / eu);
       const w = Math.min(1, 1 / Math.max(d1, Math.sqrt(d2), 1e-300));
@@ -144,7 +145,7 @@ export class QuadratureCdf {
     let s = 0;
     for (let j = 0; j < 4; j++) {
       const dx = h * GL_X[j];
-      s += GL_W[j] * (Math.exp(this.psi(c - dx) - this.psiMax) + Math.exp(this.psi(c + dx) - this.psiMax));
+      s += GL_W[j] * (exp(this.psi(c - dx) - this.psiMax) + exp(this.psi(c + dx) - this.psiMax));
     }
     return s * h;
   }

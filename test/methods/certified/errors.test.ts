@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import {
   EnvelopeViolationError,
   ImproperDensityError,
+  InvalidOptionError,
   InvalidTargetError,
   NonFiniteDensityError,
   ShapeViolationError,
@@ -22,13 +23,15 @@ describe('certifiedSampler refuses bad targets and options', () => {
     expect(() => certifiedSampler(normalTarget(0, 1))).toThrow(/certifiedSampler: target\.logDensityBounds must be a function/);
   });
 
-  it('certifiedSampler refuses unknown options and bad option values with InvalidTargetError naming the option', () => {
-    expect(() => certifiedSampler(normal01, { maxCell: 10 } as never)).toThrow(/certifiedSampler: unknown option 'maxCell'/);
+  it('certifiedSampler refuses unknown options and bad option values with InvalidOptionError naming the option', () => {
+    expect(() => certifiedSampler(normal01, { maxCell: 10 } as never)).toThrow(/certifiedSampler: unknown option 'maxCell' \(known: /);
+    expect(() => certifiedSampler(normal01, { maxCell: 10 } as never)).toThrow(InvalidOptionError);
     expect(() => certifiedSampler(normal01, { targetAcceptance: 1 })).toThrow(/options\.targetAcceptance/);
-    expect(() => certifiedSampler(normal01, { targetAcceptance: Number.NaN })).toThrow(InvalidTargetError);
+    expect(() => certifiedSampler(normal01, { targetAcceptance: Number.NaN })).toThrow(InvalidOptionError);
     expect(() => certifiedSampler(normal01, { maxCells: 1 })).toThrow(/options\.maxCells/);
-    expect(() => certifiedSampler(normal01, { refine: 'yes' as never })).toThrow(/options\.refine/);
-    expect(() => certifiedSampler(normal01, { seed: 1, uniform: Math.random })).toThrow(InvalidTargetError);
+    expect(() => certifiedSampler(normal01, { refine: 'yes' as never })).toThrow(/options\.refine must be a boolean, got 'yes'/);
+    expect(() => certifiedSampler(normal01, { refine: 'yes' as never })).toThrow(InvalidOptionError);
+    expect(() => certifiedSampler(normal01, { seed: 1, uniform: Math.random })).toThrow(InvalidOptionError);
   });
 
   it('certifiedSampler throws InvalidTargetError when logDensityBounds returns a non-pair, NaN, or lo > hi (the call is named)', () => {

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import {
   EnvelopeViolationError,
   ImproperDensityError,
+  InvalidOptionError,
   InvalidTargetError,
   NonFiniteDensityError,
   ShapeViolationError,
@@ -164,14 +165,15 @@ describe('adaptiveRejectionSampler bad inputs', () => {
     ['seed and uniform', { seed: 1, uniform: () => 0.5 }],
   ];
   for (const [label, opts] of bad) {
-    it(`adaptiveRejectionSampler rejects ${label} with InvalidTargetError naming the API`, () => {
+    it(`adaptiveRejectionSampler rejects ${label} with InvalidOptionError (code INVALID_OPTION) naming the API`, () => {
       let err: unknown;
       try {
         adaptiveRejectionSampler(n01, opts as AdaptiveRejectionOptions);
       } catch (e) {
         err = e;
       }
-      expect(err).toBeInstanceOf(InvalidTargetError);
+      expect(err).toBeInstanceOf(InvalidOptionError);
+      expect((err as InvalidOptionError).code).toBe('INVALID_OPTION');
       expect((err as Error).message).toMatch(/^adaptiveRejectionSampler: /);
     });
   }

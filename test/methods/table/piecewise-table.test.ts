@@ -11,6 +11,7 @@ import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { EnvelopeViolationError, InvalidTargetError } from '../../../src/core/errors.js';
+import { InvalidOptionError } from '../../../src/core/errors.js';
 import type { Target } from '../../../src/core/types.js';
 import { exactSampler } from '../../../src/methods/auto.js';
 import { piecewiseSampler } from '../../../src/methods/piecewise.js';
@@ -156,7 +157,7 @@ describe('piecewiseSampler({ fast: true })', () => {
     const t = multimodalTruncated();
     expect(() => piecewiseSampler(t, { fast: true, adapt: true })).toThrow(/piecewiseSampler: options.fast and options.adapt cannot both be true/);
     expect(() => piecewiseSampler(t, { strips: 100 })).toThrow(/apply only with options.fast: true/);
-    expect(() => piecewiseSampler(t, { tailMass: 1e-4 })).toThrow(InvalidTargetError);
+    expect(() => piecewiseSampler(t, { tailMass: 1e-4 })).toThrow(InvalidOptionError);
     expect(() => piecewiseSampler(t, { fast: true, strips: 1 })).toThrow(/options.strips/);
     expect(() => piecewiseSampler(t, { fast: true, tailMass: 0.5 })).toThrow(/options.tailMass must be a number in \(0, 0.01\], got 0.5/);
     expect(() => piecewiseSampler(t, { fast: 'yes' as unknown as boolean })).toThrow(/options.fast must be a boolean/);

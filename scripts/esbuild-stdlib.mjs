@@ -1,0 +1,83 @@
+// esbuild plugins for the vendored @stdlib packages (used by scripts/build.mjs).
+import { readFileSync } from 'node:fs';
+
+/**
+ * The vendored @stdlib packages are CommonJS without a `sideEffects` field; declaring them
+ * side-effect free lets esbuild drop a wrapper module whose export nothing uses.
+ */
+export const stdlibPure = {
+  name: 'stdlib-pure',
+  setup(b) {
+    b.onResolve({ filter: /^@stdlib\// }, async (args) => {
+      if (args.pluginData === 'stdlib-pure') return undefined;
+      const r = await b.resolve(args.path, { kind: args.kind, resolveDir: args.resolveDir, importer: args.importer, pluginData: 'stdlib-pure' });
+      return r.errors.length > 0 ? r : { ...r, sideEffects: false };
+    });
+  },
+};
+
+/**
+ * Environment-support glue of the vendored @stdlib packages, replaced by the built-ins it
+ * detects or wraps (every engine that runs ES2022 has them): typed-array constructors, the
+ * feature checks for them, property definition and the message formatter of argument errors
+ * (which the library never triggers: it validates before calling). Numerics are untouched.
+ * The replaced packages are listed as such in dist/THIRD_PARTY_LICENSES.md.
+ */
+const TYPED = { float32: 'Float32Array', float64: 'Float64Array', int8: 'Int8Array', int16: 'Int16Array', int32: 'Int32Array', uint8: 'Uint8Array', uint8c: 'Uint8ClampedArray', uint16: 'Uint16Array', uint32: 'Uint32Array' };
+const GLUE = {
+  '@stdlib/string-format': "export default function format(s) { var a = arguments, i = 1; return String(s).replace(/%[a-z]/g, function () { return String(a[i++]); }); }",
+  '@stdlib/utils-define-property': 'export default Object.defineProperty;',
+  '@stdlib/utils-define-nonenumerable-read-only-property': 'export default function (o, p, v) { Object.defineProperty(o, p, { configurable: false, enumerable: false, writable: false, value: v }); }',
+  '@stdlib/utils-native-class': 'export default function (v) { return Object.prototype.toString.call(v); }',
+  '@stdlib/assert-has-symbol-support': 'export default function () { return true; }',
+  '@stdlib/assert-has-tostringtag-support': 'export default function () { return true; }',
+};
+for (const [k, ctor] of Object.entries(TYPED)) {
+  GLUE[`@stdlib/array-${k}`] = `export default ${ctor};`;
+  GLUE[`@stdlib/assert-has-${k === 'uint8c' ? 'uint8clamped' : k}array-support`] = 'export default function () { return true; }';
+}
+/** Packages whose glue was replaced at least once (for the license file). */
+export const replaced = new Set();
+export const stdlibGlue = {
+  name: 'stdlib-glue',
+  setup(b) {
+    b.onResolve({ filter: /^@stdlib\/[a-z0-9-]+$/ }, (args) => {
+      if (!(args.path in GLUE)) return undefined;
+      replaced.add(args.path);
+      return { path: args.path, namespace: 'stdlib-glue', sideEffects: false };
+    });
+    b.onLoad({ filter: /.*/, namespace: 'stdlib-glue' }, (args) => ({ contents: GLUE[args.path], loader: 'js' }));
+  },
+};
+
+/**
+ * The vendored @stdlib packages are CommonJS, which a bundler wraps module by module and
+ * cannot tree-shake. Their files are written in one regular style (top-level
+ * `var x = require( 'p' )[.prop];` lines and one `module.exports = x;`), which this plugin
+ * rewrites, line for line, to `import` / `export default`, so that the bundles hold them as
+ * ES modules (no wrappers; unused modules dropped). A file in another style is left as it is;
+ * since a CommonJS file requiring a rewritten one would get its namespace object, the
+ * requires of such a file are given the default export.
+ */
+export function esmify(src) {
+  let out = src.replace(/^var (\w+) = require\( ?('[^']+') ?\)(\.\w+)?;[ \t]*(\/\/.*)?$/gm, (m, name, spec, prop) =>
+    prop ? `import ${name}$ns from ${spec};\nvar ${name} = ${name}$ns${prop};` : `import ${name} from ${spec};`,
+  );
+  out = out.replace(/^module\.exports = (\w+);[ \t]*(\/\/.*)?$/m, 'export default $1;');
+  const code = out.replace(/\/\*[\s\S]*?\*\//g, '').replace(/\/\/.*$/gm, '');
+  if (/\brequire\s*\(|\bmodule\.exports\b|\bexports\b/.test(code) || !/^export default/m.test(out)) return null;
+  return out;
+}
+export const stdlibEsm = {
+  name: 'stdlib-esm',
+  setup(b) {
+    b.onLoad({ filter: /node_modules[\\/]@stdlib[\\/].*\.js$/ }, (args) => {
+      const src = readFileSync(args.path, 'utf8');
+      const esm = esmify(src);
+      if (esm !== null) return { contents: esm, loader: 'js' };
+      const dflt = 'var __dflt = function (m) { return m && m.__esModule ? m.default : m; };\n';
+      return { contents: dflt + src.replace(/\brequire\(\s*('[^']+')\s*\)/g, '__dflt(require($1))'), loader: 'js' };
+    });
+  },
+};
+

@@ -1,0 +1,5 @@
+/** Exponential(rate) cdf at x. (`@stdlib/stats-base-dists-exponential-cdf`, bundled). @internal @packageDocumentation */
+import impl from '@stdlib/stats-base-dists-exponential-cdf';
+
+/** Exponential(rate) cdf at x. @internal */
+export const exponentialCdf: (x: number, rate: number) => number = impl;

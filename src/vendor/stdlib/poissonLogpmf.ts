@@ -1,0 +1,5 @@
+/** Poisson(λ) log-pmf at k. (`@stdlib/stats-base-dists-poisson-logpmf`, bundled). @internal @packageDocumentation */
+import impl from '@stdlib/stats-base-dists-poisson-logpmf';
+
+/** Poisson(λ) log-pmf at k. @internal */
+export const poissonLogpmf: (k: number, lambda: number) => number = impl;
