@@ -15,7 +15,7 @@ import { checkMassBeyondDoubles, computeRectangle } from './ratio-of-uniforms/bo
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
 import { areaX, pointX } from './transform/standardise.js';
 import type { Forward, Standardisation } from './transform/standardise.js';
-import { cellWidthOf, isStandardised, samplerStandardised } from './transform/standardise.js';
+import { cellWidthOf, isStandardised, markFinal, samplerStandardised, sourceOf, standardisationOf } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 import { log, pow } from '../vendor/math.js';
 
@@ -234,7 +234,10 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   } catch (e) {
     throw explainPole(api, target, e);
   }
-  rect.evaluations += checkMassBeyondDoubles(api, t, rect, power);
+  // the mass beyond the largest double is judged in x, also for a rectangle built in z
+  const map = standardisationOf(target);
+  const source = sourceOf(target);
+  rect.evaluations += map !== undefined && source !== undefined ? checkMassBeyondDoubles(api, source, rect, power, map, markFinal) : checkMassBeyondDoubles(api, t, rect, power);
   return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, uniform);
 }
 

@@ -369,49 +369,72 @@ function tailError(api: string, lf: (x: number) => number, power: number, s: num
 export const MAX_MASS_BEYOND_DOUBLES = /* @__PURE__ */ pow(2, -53);
 
 /**
+ * The map z = (x − loc)/2^k of a rectangle built for a standardised target
+ * (src/methods/transform/standardise.ts), as {@link checkMassBeyondDoubles}
+ * needs it. @internal
+ */
+export interface CoordinateMap {
+  readonly loc: number;
+  readonly scale: number;
+  readonly log2Scale: number;
+  readonly description: string;
+}
+
+/**
  * Mass beyond the largest double (issue 17): the exact draw, rounded to
  * nearest, would be ±Infinity with the probability the target puts beyond
  * ±1.8e308, but no candidate there can be tested against the density (x
  * overflows), so such candidates would be rejected and that mass silently
- * dropped. Where the support reaches ±Number.MAX_VALUE, log f at M = MAX_VALUE
- * and at M/2 give the local tail exponent f ∝ |x|^−(1+α) (α = (l(M/2) −
- * l(M))/log 2 − 1) and the tail mass T ≈ M·f(M)/α beyond M. The region's area
- * bounds the total mass from above (∫f/f̃max ≤ (r+1)(vMax − vMin)), so
- * T/((r+1)(vMax − vMin)) is a lower bound of the share beyond M (power-law
- * extrapolation at M). When it exceeds {@link MAX_MASS_BEYOND_DOUBLES} the
- * target is refused with {@link InvalidTargetError}; α ≤ 0 there (no decay at
- * the end of the doubles) is an {@link ImproperDensityError}. A value at
- * either probe that is not finite (−Infinity, NaN, +Infinity) skips the
- * check on that side: the probes serve this check only.
+ * dropped. Where the support reaches the edge E (±Number.MAX_VALUE; for a
+ * rectangle built in a standardised coordinate, the x of z = ±MAX_VALUE when
+ * that is nearer), log f at E and at the midpoint of loc and E give the local
+ * tail exponent f ∝ |x − loc|^−(1+α) and the tail mass T ≈ |E − loc|·f(E)/α
+ * beyond E. The region's area bounds the total mass from above (∫f/f̃max ≤
+ * (r+1)(vMax − vMin), times 2^k in x for a standardised rectangle), so their
+ * ratio is a lower bound of the share beyond E (power-law extrapolation at
+ * E). When it exceeds {@link MAX_MASS_BEYOND_DOUBLES} the target is refused
+ * with {@link InvalidTargetError}; α ≤ 0 there (no decay) is an
+ * {@link ImproperDensityError}. A value at either probe that is not finite
+ * (−Infinity, NaN, +Infinity) skips the check on that side: the probes serve
+ * this check only. `t` is the target in x. `onRefusalInX` is called with the
+ * error before it is thrown when the edge is ±MAX_VALUE in x itself (a refusal
+ * that building in another coordinate cannot lift).
  * @returns the evaluations spent
  * @internal
  */
-export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rectangle, power: number): number {
+export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rectangle, power: number, map?: CoordinateMap, onRefusalInX?: (e: Error) => void): number {
   const M = Number.MAX_VALUE;
-  const logM = log(M);
+  const loc = map === undefined ? 0 : map.loc;
   let evaluations = 0;
-  const logArea = log(power + 1) + log(rect.vMax - rect.vMin);
+  const logArea = log(power + 1) + log(rect.vMax - rect.vMin) + (map === undefined ? 0 : map.log2Scale * Math.LN2);
   for (const dir of [1, -1] as const) {
-    if (dir > 0 ? t.upper < M : t.lower > -M) continue;
+    // the edge of what the rectangle's candidates can reach: ±MAX_VALUE in x, or x(±MAX_VALUE) in z
+    const reach = map === undefined ? dir * M : loc + dir * map.scale * M;
+    const E = dir > 0 ? Math.min(M, reach) : Math.max(-M, reach);
+    if (dir > 0 ? t.upper < E : t.lower > E) continue;
+    const half = loc + 0.5 * (E - loc);
     // a value that is not a finite number or −Infinity out there (e.g. NaN from Infinity − Infinity in
     // the user's formula) is read as "no information": these two points are probed for this check only
-    const lM = t.logDensity(dir * M);
+    const lE = t.logDensity(E);
     evaluations++;
-    if (typeof lM !== 'number' || !(lM > -Infinity && lM < Infinity)) continue;
-    const lHalf = t.logDensity(dir * 0.5 * M);
+    if (typeof lE !== 'number' || !(lE > -Infinity && lE < Infinity)) continue;
+    const lHalf = t.logDensity(half);
     evaluations++;
     if (typeof lHalf !== 'number' || !(lHalf > -Infinity && lHalf < Infinity)) continue;
-    const alpha = (lHalf - lM) / Math.LN2 - 1;
+    const alpha = (lHalf - lE) / Math.LN2 - 1;
+    const where = Math.abs(E) === M ? `${dir > 0 ? '+' : '-'}1.8e308 (the largest double` : `x = ${E} (z = ${dir > 0 ? '+' : '-'}1.8e308, the largest double, in the standardised coordinate ${map === undefined ? '' : map.description}`;
     if (!(alpha > 0)) {
-      throw new ImproperDensityError(
-        `${api}: the density does not decay towards ${dir > 0 ? '+' : '-'}1.8e308 (logDensity ${lHalf} at ${dir * 0.5 * M}, ${lM} at ${dir * M}): the mass beyond the largest double is infinite`,
-      );
+      const e = new ImproperDensityError(`${api}: the density does not decay towards ${where}; logDensity ${lHalf} at ${half}, ${lE} at ${E}): the mass beyond it is infinite`);
+      if (Math.abs(E) === M) onRefusalInX?.(e);
+      throw e;
     }
-    const logShare = logM + lM - rect.logDensityBound - log(alpha) - logArea;
+    const logShare = log(0.5 * Math.abs(E - loc)) + Math.LN2 + lE - rect.logDensityBound - log(alpha) - logArea;
     if (logShare > log(MAX_MASS_BEYOND_DOUBLES)) {
-      throw new InvalidTargetError(
-        `${api}: at least about ${exp(logShare).toPrecision(2)} of the mass lies beyond ${dir > 0 ? '+' : '-'}1.8e308 (the largest double; local tail f ~ |x|^(−${(1 + alpha).toPrecision(4)}) there): such draws would be ${dir > 0 ? '+' : '-'}Infinity, and candidates there cannot be tested, so exactdraw refuses the target rather than drop that mass; sample log|x| instead, or truncate the support`,
+      const e = new InvalidTargetError(
+        `${api}: at least about ${exp(logShare).toPrecision(2)} of the mass lies beyond ${where}; local tail f ~ |x|^(−${(1 + alpha).toPrecision(4)}) there): such draws would be ${Math.abs(E) === M ? `${dir > 0 ? '+' : '-'}Infinity` : 'out of reach'}, and candidates there cannot be tested, so exactdraw refuses the target rather than drop that mass; sample log|x| instead, or truncate the support`,
       );
+      if (Math.abs(E) === M) onRefusalInX?.(e);
+      throw e;
     }
   }
   return evaluations;

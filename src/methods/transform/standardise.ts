@@ -241,7 +241,16 @@ export function standardisedTarget(st: Standardisation, t: CheckedTarget, target
   const { loc, scale } = st;
   cells.set(out, (z: number): number => ulpOf(loc + scale * z) / scale);
   maps.set(out, st);
+  sources.set(out, t);
   return out;
+}
+
+/** The targets in x the standardised targets were built from. */
+const sources = new WeakMap<object, CheckedTarget>();
+
+/** The target in x a target built by {@link standardisedTarget} came from (undefined for any other target). @internal */
+export function sourceOf(target: object): CheckedTarget | undefined {
+  return sources.get(target);
 }
 
 /** The maps of the standardised targets. */
@@ -265,10 +274,14 @@ export function cellWidthOf(target: object): ((z: number) => number) | undefined
   return cells.get(target);
 }
 
-/** Gives `to` (a wrapper of `from` with the same logDensity values) the cell widths of `from`. @internal */
+/** Gives `to` (a wrapper of `from` with the same logDensity values) the cell widths, the map and the target in x of `from`. @internal */
 export function inheritCells(from: object, to: object): void {
   const c = cells.get(from);
   if (c !== undefined) cells.set(to, c);
+  const m = maps.get(from);
+  if (m !== undefined) maps.set(to, m);
+  const x = sources.get(from);
+  if (x !== undefined) sources.set(to, x);
 }
 
 /** Spacing of the doubles at x (at least the smallest subnormal). */
@@ -410,8 +423,21 @@ export function clampX(st: Standardisation, x: number): number {
   return x < st.lower ? st.lower : x > st.upper ? st.upper : x;
 }
 
+/** Errors that building in the other coordinate cannot lift (see {@link markFinal}). */
+const final = new WeakSet<object>();
+
+/**
+ * Marks a refusal as final: {@link retryable} is then false for it, so a
+ * factory does not retry in x what was refused in z (e.g. mass beyond
+ * ±1.8e308 in x, judged in x by a method built in z). @internal
+ */
+export function markFinal(e: Error): void {
+  final.add(e);
+}
+
 /** Errors of a construction that a retry in the other coordinate may avoid. @internal */
 export function retryable(e: unknown): boolean {
+  if (typeof e === 'object' && e !== null && final.has(e)) return false;
   return e instanceof InvalidTargetError || e instanceof ImproperDensityError || e instanceof ShapeViolationError || e instanceof EnvelopeViolationError;
 }
 

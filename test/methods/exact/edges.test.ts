@@ -167,6 +167,37 @@ describe('mass beyond the largest double (issue 17 item 3): refused', () => {
     // biased twin: the law truncated at 1e200 instead (what dropping the 0.9 % of mass beyond it would give)
     expectRejects(ys, cdfCut(Math.log1p(1e200)), 'truncated at 1e200');
   });
+
+  // the same law on the scale c, f(x) ∝ (1 + |x|/c)^−1.01: P(|X| > y) = (1 + y/c)^−0.01 (by hand, as
+  // above); per side beyond 1.8e308: c = 1e10, (1.8e298)^−0.01/2 = 5.2e-4; c = 1e100, (1.8e208)^−0.01/2 = 4.1e-3.
+  // These are built in the standardised coordinate z = x/2^k (2^k ≈ c), where z = 1.8e308/2^k is the
+  // largest double of x: the check is made in x (it was made in z, and the mass was dropped: with
+  // c = 1e10, P(|X| > 1e300) was 1.8e-4 instead of (1e290)^−0.01 = 1.26e-3).
+  const scaled = (c: number): Target => ({ logDensity: (x: number) => -1.01 * Math.log1p(Math.abs(x / c)) });
+
+  it('on a scale far from 1 (c = 1e10, 1e100: the standardised coordinate), exactSampler and ratio-of-uniforms refuse it the same way', () => {
+    for (const [c, perSide] of [[1e10, 5.2e-4], [1e100, 4.1e-3]] as const) {
+      for (const make of [() => exactSampler(scaled(c), { seed: 1 }), () => ratioOfUniformsSampler(scaled(c), { seed: 1, power: 110 })]) {
+        const e = thrown(make);
+        expect(e, `c = ${c}`).toBeInstanceOf(InvalidTargetError);
+        const m = /at least about ([0-9.e-]+) of the mass lies beyond [+-]1\.8e308/.exec(e.message);
+        expect(m, e.message).not.toBeNull();
+        const share = Number((m as RegExpExecArray)[1]);
+        expect(share).toBeGreaterThan(0.25 * perSide);
+        expect(share).toBeLessThanOrEqual(perSide);
+      }
+    }
+  });
+
+  it('truncated to [−1e300, 1e300] on the scale c = 1e10, ratio-of-uniforms (built in z) samples it exactly (KS/AD on log(1 + |x|/c)), with a biased twin', () => {
+    const c = 1e10;
+    const cut: Target = { ...scaled(c), support: [-1e300, 1e300] };
+    const ys = draw(ratioOfUniformsSampler(cut, { seed: 4, power: 110 }), 50_000).map((x) => Math.log1p(Math.abs(x / c)));
+    // P(log(1 + |X|/c) ≤ y | |X| ≤ 1e300) = (1 − e^(−0.01 y)) / (1 − (1 + 1e300/c)^(−0.01)), by hand as above
+    const cdfCut = (top: number) => (y: number): number => (y <= 0 ? 0 : y >= top ? 1 : -Math.expm1(-0.01 * y) / -Math.expm1(-0.01 * top));
+    expectFits(ys, cdfCut(Math.log1p(1e300 / c)), 'scaled, truncated at 1e300');
+    expectRejects(ys, cdfCut(Math.log1p(1e200 / c)), 'scaled, truncated at 1e200');
+  });
 });
 
 describe('granularity of the doubles (issue 17 item 4): the draw is the exact draw rounded to nearest', () => {
