@@ -4,8 +4,8 @@
  * @packageDocumentation
  */
 import { wrapDraws } from '../core/draws.js';
-import { InvalidOptionError } from '../core/errors.js';
-import { resolveBoolean, showValue } from '../core/validate.js';
+import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
+import { checkTarget, resolveBoolean, showValue } from '../core/validate.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { describeHull } from './hull/describe.js';
 import type { EnvelopeDescription } from './envelope/description.js';
@@ -16,6 +16,8 @@ import { createTableSampler } from './table-sampler.js';
 import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { UniformBlock } from '../random/uniform-block.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import { HULL_FORWARD } from './standardised-forward.js';
+import { FINE_GRAIN, isStandardised, ordinaryTouchPoints, samplerStandardised } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
@@ -151,7 +153,7 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  * @param options - start points, piece cap, construction, transform, uniform source
  * @returns the sampler, with its `envelope` description
  * @throws {@link InvalidTargetError} for a malformed target; {@link InvalidOptionError} for an unknown option or a bad option value
- * @throws {@link ShapeViolationError} when setup (or, later, adaptation) proves the target not T-concave
+ * @throws {@link ShapeViolationError} when setup (or, later, adaptation) proves the target not T-concave, or finds its support not an interval (log f = −Infinity on a gap between parts of positive density; the message names the gap)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity (or dLogDensity NaN)
  * @throws {@link EnvelopeViolationError} at draw time, when the target is found above the envelope or below the squeeze without a shape explanation
@@ -174,6 +176,11 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   if (pole !== undefined) {
     if (options?.startPoints !== undefined) throw new InvalidOptionError(`${api}: options.startPoints (points in x) cannot be combined with options.poleAt = '${pole}' (the hull is built in the transformed variable)`);
     return samplerAcrossPole(api, target, pole, options ?? {}, adaptiveRejectionSampler, ['envelope']);
+  }
+  if (options?.startPoints === undefined && !isStandardised(target)) {
+    // The hull is built in the standardised coordinate (src/methods/transform/standardise.ts).
+    const t = checkTarget(api, target);
+    return samplerStandardised(api, target, t, (z) => adaptiveRejectionSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN, ordinary: (s: AdaptiveRejectionSampler) => ordinaryTouchPoints(s.envelope.touchPoints) });
   }
   let setup: ReturnType<typeof setupHull>;
   try {

@@ -22,6 +22,11 @@ import { exactWithBounds } from './auto/with-bounds.js';
 import type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 export type { ExactSamplerOptions, ExactMethod, ShapeScan, ShapeProof, RefusedMethod, ExactChoice, ExactSampler } from './auto/types.js';
 import { exactAcrossPoles } from './transform/exact.js';
+import { FINE_GRAIN, findStandardisation, inheritCells, isStandardised, retryable, standardisationOf, mapStandardised, markStandardised, noteCoordinate, standardisedTarget } from './transform/standardise.js';
+import type { Standardisation } from './transform/standardise.js';
+import { HULL_FORWARD, POLE_FORWARD } from './standardised-forward.js';
+import { PIECEWISE_FORWARD } from './piecewise.js';
+import { RATIO_FORWARD } from './ratio-of-uniforms.js';
 import { exp, log } from '../vendor/math.js';
 
 /** Scan points of the shape scan's uniform grids (the rays come on top). */
@@ -170,6 +175,26 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   const acrossPole = (e: unknown, spent: number): ExactSampler | undefined => exactAcrossPoles(api, target, { ...t, logDensity: wrapped.logDensity }, e, (y) => exactSampler(y, options), spent);
   const declaredPole = acrossPole(undefined, 0);
   if (declaredPole !== undefined) return declaredPole;
+  // Scan and methods work in the standardised coordinate z = (x − loc)/2^k (transform/standardise.ts);
+  // ordinary targets get the identity and are sampled as before.
+  let standardising = 0;
+  if (!isStandardised(target)) {
+    const st = findStandardisation(api, t);
+    standardising = st.evaluations;
+    if (!st.identity) {
+      try {
+        return exactStandardised(st, standardisedTarget(st, t, target), options);
+      } catch (e) {
+        if (!retryable(e)) throw e; // else: the scan and methods in x, as for an ordinary target
+      }
+    }
+  }
+  // Where the doubles of x are coarse in z (more than 2^-40 of a scale unit apart), logDensity of Z is a
+  // staircase that the hulls and the piecewise cells would see as a shape violation: ratio-of-uniforms only.
+  const coarse = standardisationOf(target);
+  const staircase = coarse !== undefined && coarse.grain > FINE_GRAIN;
+  markStandardised(wrapped);
+  inheritCells(target, wrapped);
   const ev = new Evaluator(api, logf, undefined, SHAPE_SCAN_BUDGET);
   let scanResult: ReturnType<typeof scanTarget>;
   try {
@@ -247,14 +272,20 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
     reason: `not log-concave (${convexWhere}) and not T-concave (${tConvexWhere}), e.g. multimodal: piecewise envelopes on cells of constant curvature${fastNote}`,
     build: () => (fast ? piecewiseSampler(wrapped, clean({ ...pass, fast: true as const })) : piecewiseSampler(wrapped, clean(pass))),
   };
-  if (heavy) plans.push(rouPlan, pwPlan);
+  if (staircase) {
+    plans.length = 0;
+    plans.push({
+      ...rouPlan,
+      reason: `the doubles of x are ${coarse.grain.toPrecision(3)} scale units apart near ${coarse.loc}, so logDensity in the standardised coordinate is a staircase, which no hull or piecewise cell bounds within its tolerance; ratio-of-uniforms needs only the bound of each step (its rectangle is widened by the step width)`,
+    });
+  } else if (heavy) plans.push(rouPlan, pwPlan);
   else plans.push(pwPlan, rouPlan);
 
   for (const p of plans) {
     const before = counted;
     const s = tryBuild(p.transform === undefined ? p.method : `${p.method} (${p.transform})`, p.build);
     if (s === undefined) continue;
-    const setupOther = scan.evaluations + before; // scan + refused attempts; the chosen method counts its own setup
+    const setupOther = standardising + scan.evaluations + before; // finding the scale + scan + refused attempts; the chosen method counts its own setup
     const reason = rejected.length === 0 ? p.reason : `${p.reason}; tried first: ${rejected.map((r) => r.method).join(', ')}`;
     const choice: ExactChoice = Object.freeze({
       method: p.method,
@@ -284,6 +315,34 @@ export function exactSampler(target: Target, options?: ExactSamplerOptions): Exa
   throw new ShapeViolationError(
     `${api}: no method can serve this target: ${rejected.map((r) => `${r.method}: ${r.error}`).join(' | ')}`,
   );
+}
+
+
+/** exactSampler of the standardised target, its draws mapped back to x and its choice saying so. */
+function exactStandardised(st: Standardisation, z: Target, options: ExactSamplerOptions | undefined): ExactSampler {
+  let inner: ExactSampler;
+  try {
+    inner = exactSampler(z, options);
+  } catch (e) {
+    throw noteCoordinate(e, st);
+  }
+  const outer = mapStandardised(inner, st, st.evaluations, {});
+  const c = inner.choice;
+  const forward = 'transform' in inner.sampler ? POLE_FORWARD : c.method === 'piecewise' ? PIECEWISE_FORWARD : c.method === 'ratio-of-uniforms' ? RATIO_FORWARD : HULL_FORWARD;
+  const sampler = mapStandardised(inner.sampler, st, 0, forward);
+  const choice: ExactChoice = Object.freeze({
+    ...c,
+    reason: `sampled in the standardised coordinate ${st.description} (scale = the power of two over which logDensity changes by 1/2 next to loc; draws mapped back by x = ${st.loc === 0 ? '' : `${st.loc} + `}2^${st.log2Scale}·z, the scan and descriptions are in z); for z: ${c.reason}`,
+  });
+  return {
+    choice,
+    sampler,
+    sample: outer.sample,
+    fill: outer.fill,
+    get stats(): SamplerStats {
+      return outer.stats;
+    },
+  };
 }
 
 function fmt(x: number): string {

@@ -31,6 +31,10 @@ import { tableDraws } from './table/draws.js';
 import { MAX_TABLE_STRIPS, resolveTableOptions } from './table/options.js';
 import type { TableSamplerOptions } from './table-sampler.js';
 import type { ScanPoint } from './piecewise/scan.js';
+import { tableInX } from './standardised-forward.js';
+import { areaX, clampX, pointX } from './transform/standardise.js';
+import type { Forward, Standardisation } from './transform/standardise.js';
+import { FINE_GRAIN, isStandardised, samplerStandardised } from './transform/standardise.js';
 import { exp } from '../vendor/math.js';
 
 /**
@@ -355,6 +359,10 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   }
   const { strips, tailMass } = resolveTableOptions(api, opts);
   const uniform = resolveUniform(api, opts);
+  if (opts.breakpoints === undefined && !isStandardised(target)) {
+    // Scan and cells in the standardised coordinate (src/methods/transform/standardise.ts).
+    return samplerStandardised(api, target, t, (z) => piecewiseSampler(z, opts), PIECEWISE_FORWARD, { order: 'z-first', maxGrain: FINE_GRAIN });
+  }
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
 
   const ev = new Evaluator(api, t.logDensity, tangent ? t.dLogDensity : undefined, PIECEWISE_SETUP_BUDGET + scanPoints);
@@ -641,3 +649,20 @@ function checkRatio(api: string, v: unknown): number {
   return v;
 }
 
+/** A piecewise envelope described in z, in x. */
+function piecewiseInX(e: PiecewiseEnvelope, st: Standardisation): PiecewiseEnvelope {
+  const px = (z: number): number => pointX(st, z);
+  return {
+    ...e,
+    support: [clampX(st, px(e.support[0])), clampX(st, px(e.support[1]))],
+    pieces: e.pieces.map((p) => ({ ...p, lower: px(p.lower), upper: px(p.upper), logArea: areaX(st, p.logArea), logSqueezeArea: areaX(st, p.logSqueezeArea) })),
+    gridPoints: e.gridPoints.map(px),
+    logEnvelopeArea: areaX(st, e.logEnvelopeArea),
+    logSqueezeArea: areaX(st, e.logSqueezeArea),
+    inflections: e.inflections.map(px),
+    extrema: e.extrema.map(px),
+  };
+}
+
+/** Forwarded members of the piecewise samplers built in the standardised coordinate. @internal */
+export const PIECEWISE_FORWARD: Readonly<Record<string, Forward>> = { envelope: piecewiseInX, table: tableInX, logEnvelope: 'point', logSqueeze: 'point' };

@@ -11,8 +11,11 @@ import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
-import { computeRectangle } from './ratio-of-uniforms/bounds.js';
+import { checkMassBeyondDoubles, computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
+import { areaX, pointX } from './transform/standardise.js';
+import type { Forward, Standardisation } from './transform/standardise.js';
+import { cellWidthOf, isStandardised, markFinal, samplerStandardised, sourceOf, standardisationOf } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 import { log, pow } from '../vendor/math.js';
 
@@ -185,7 +188,9 @@ const KNOWN = ['power', 'shift', 'squeeze', 'maxRejections', 'seed', 'stream', '
  * @param options - power, shift, optional squeeze and uniform source
  * @returns the sampler, with its `region` description
  * @throws {@link InvalidTargetError} for bad inputs, an unbounded density, a
- *   tail too heavy for the power, or a mode hint that is not a mode
+ *   tail too heavy for the power, a mode hint that is not a mode, or more than
+ *   2^−53 of the mass beyond ±1.8e308 (such draws would be ±Infinity and cannot be
+ *   tested; the message gives the share — truncate the support or sample log|x|)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
  * @throws {@link EnvelopeViolationError} at draw time when the rectangle is proven too small
@@ -219,12 +224,20 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const maxRejections = resolveMaxRejections(api, options.maxRejections);
   const uniform = resolveUniform(api, options);
   const t = checkTarget(api, target);
+  if (shift === undefined && squeeze === undefined && !isStandardised(target)) {
+    // Build the rectangle in the standardised coordinate (src/methods/transform/standardise.ts).
+    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), RATIO_FORWARD, { order: 'z-first', maxGrain: Infinity });
+  }
   let rect: ReturnType<typeof computeRectangle>;
   try {
-    rect = computeRectangle(api, t, power, shift);
+    rect = computeRectangle(api, t, power, shift, cellWidthOf(target));
   } catch (e) {
     throw explainPole(api, target, e);
   }
+  // the mass beyond the largest double is judged in x, also for a rectangle built in z
+  const map = standardisationOf(target);
+  const source = sourceOf(target);
+  rect.evaluations += map !== undefined && source !== undefined ? checkMassBeyondDoubles(api, source, rect, power, map, markFinal) : checkMassBeyondDoubles(api, t, rect, power);
   return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, uniform);
 }
 
@@ -335,8 +348,12 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
         const u = 1 - uniform();
         const v = vMin + vWidth * uniform();
         c.proposals++;
-        const x = unitPower ? s + v / u : s + v / pow(u, r);
-        if (x >= lower && x <= upper && x > -Infinity && x < Infinity) {
+        const q = unitPower ? v / u : v / pow(u, r);
+        const x = s + q;
+        // x is s + q rounded to nearest: at a finite end, keep it only when s + q itself lies inside
+        // (its rounding error, Knuth's TwoSum, has the sign of s + q − x); else the exact draws just
+        // beyond the end, rounded onto it, would double the end's probability
+        if (x >= lower && x <= upper && x > -Infinity && x < Infinity && ((x !== upper && x !== lower) || insideAtEnd(s, q, x, lower, upper))) {
           const lhs = r1 * log(u);
           let q = -Infinity;
           if (squeeze !== undefined) {
@@ -370,4 +387,35 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
       }
     }
   }
+}
+
+/** A ratio-of-uniforms region described in z, in x (v scales with 2^k; u does not). */
+function regionInX(r: RatioOfUniformsRegion, st: Standardisation): RatioOfUniformsRegion {
+  return {
+    ...r,
+    shift: pointX(st, r.shift),
+    argmax: pointX(st, r.argmax),
+    logVMax: areaX(st, r.logVMax),
+    logVMinAbs: areaX(st, r.logVMinAbs),
+    scaledVMin: r.scaledVMin * st.scale,
+    scaledVMax: r.scaledVMax * st.scale,
+    logRectangleArea: areaX(st, r.logRectangleArea),
+    logRegionAreaEstimate: areaX(st, r.logRegionAreaEstimate),
+  };
+}
+
+/** Forwarded members of the ratio-of-uniforms sampler built in the standardised coordinate. @internal */
+export const RATIO_FORWARD: Readonly<Record<string, Forward>> = { region: regionInX, logEnvelope: 'point' };
+
+/**
+ * Whether s + q (exactly) lies in [lower, upper], given x = s + q rounded to
+ * nearest equals one of the ends: the rounding error of the sum (Knuth's
+ * TwoSum, exact) says on which side of x the exact sum lies.
+ */
+function insideAtEnd(s: number, q: number, x: number, lower: number, upper: number): boolean {
+  const bv = x - s;
+  const e = s - (x - bv) + (q - bv);
+  if (x === upper && e > 0) return false;
+  if (x === lower && e < 0) return false;
+  return true;
 }

@@ -15,6 +15,9 @@ import { describeTable, describeTableEnvelope } from './table/describe.js';
 import type { TableDescription } from './table/describe.js';
 import { tableDraws } from './table/draws.js';
 import { resolveTableOptions } from './table/options.js';
+import { checkTarget } from '../core/validate.js';
+import { HULL_FORWARD } from './standardised-forward.js';
+import { FINE_GRAIN, isStandardised, ordinaryTouchPoints, samplerStandardised } from './transform/standardise.js';
 
 export { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './table/options.js';
 
@@ -103,7 +106,7 @@ const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 's
  * @param options - hull options, `strips`, `tailMass`, uniform source
  * @returns the sampler, with `envelope` and `table` descriptions
  * @throws {@link InvalidTargetError} for a malformed target or bad options
- * @throws {@link ShapeViolationError} when setup (or a later evaluation) proves the target not T-concave
+ * @throws {@link ShapeViolationError} when setup (or a later evaluation) proves the target not T-concave, or finds its support not an interval (the message names the gap)
  * @throws {@link ImproperDensityError} when a tail does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity
  * @throws {@link EnvelopeViolationError} at draw time, when the target is found above an envelope or below a squeeze without a shape explanation
@@ -117,6 +120,10 @@ const KNOWN = ['startPoints', 'derivativeFree', 'transform', 'maxRejections', 's
  */
 export function tableSampler(target: Target, options?: TableSamplerOptions): TableSampler {
   const api = 'tableSampler';
+  if (options?.startPoints === undefined && !isStandardised(target)) {
+    // The hull and its table are built in the standardised coordinate (src/methods/transform/standardise.ts).
+    return samplerStandardised(api, target, checkTarget(api, target), (z) => tableSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN, ordinary: (s: TableSampler) => ordinaryTouchPoints(s.envelope.touchPoints) });
+  }
   const setup = setupHull(api, target, options, KNOWN);
   return createTableSampler(api, setup, options);
 }

@@ -293,7 +293,7 @@ describe('piecewiseSampler: errors name the problem', () => {
     // Without the check the scan stopped at the zeros next to the maximum at x = −1 and the
     // sampler drew from [−2, −1] only (found 2026-12-02): a silent loss of half the mass.
     const gap = { logDensity: (x: number) => (Math.abs(x) >= 1 && Math.abs(x) <= 2 ? -0.5 * x * x : -Infinity) };
-    expect(() => piecewiseSampler(gap, { seed: 1 })).toThrow(/piecewiseSampler: logDensity is -Infinity at x = .* but finite again at x = .*the support is not an interval/);
+    expect(() => piecewiseSampler(gap, { seed: 1 })).toThrow(/piecewiseSampler: logDensity is -Infinity on about \[-0\.99999\d*, 0\.99999\d*\] but finite on both sides .*the support is not an interval/);
     expect(() => piecewiseSampler(gap, { seed: 1, fast: true })).toThrow(InvalidTargetError);
     expect(() => exactSampler(gap, { seed: 1 })).toThrow(/not an interval/);
     // twin: the same density on [1, 2] only, zero elsewhere and no support given, is accepted and fits

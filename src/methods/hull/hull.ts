@@ -6,6 +6,8 @@
  * @packageDocumentation
  */
 import { ImproperDensityError, NonFiniteDensityError } from '../../core/errors.js';
+import { checkLogDensity } from '../../core/evaluate.js';
+import { gapError } from '../envelope/gaps.js';
 import { belowChord, shapeError, shapeName, transformedTolerance } from '../envelope/concavity.js';
 import { GuideTable } from '../envelope/guide-table.js';
 import type { HullView } from '../envelope/hull-view.js';
@@ -535,6 +537,16 @@ export class Hull implements HullView {
   }
 
   /**
+   * A zero of the density at x between the touch points a < x < b: locates
+   * the gap by bisection (error path only) and throws
+   * {@link ShapeViolationError} naming it, with what was being done.
+   */
+  private gapBetween(a: number, x: number, b: number, lb: number): never {
+    const logf = this.target.logDensity;
+    return gapError(this.api, (y: number) => checkLogDensity(this.api, y, logf(y)), a, x, b, lb);
+  }
+
+  /**
    * Tangent construction, points a < b: each tangent must lie above the
    * other point (equivalently the chord slope lies between the tangent
    * slopes, which therefore do not increase).
@@ -587,9 +599,7 @@ export class Hull implements HullView {
     this.context = context;
     try {
       if (l === -Infinity) {
-        if (p >= 1 && p < k) {
-          this.shapeError(`logDensity(${x}) is -Infinity between touch points of finite log-density, so the support is not an interval`, tx[p - 1], tx[p]);
-        }
+        if (p >= 1 && p < k) this.gapBetween(tx[p - 1], x, tx[p], tl[p]);
         return;
       }
       const y = transformValue(this.kind, l - this.ref);
@@ -654,7 +664,7 @@ export class Hull implements HullView {
       // density 0 between two points of positive density
       let i = 0;
       while (i + 1 < k && tx[i + 1] < x) i++;
-      this.shapeError(`logDensity(${x}) is -Infinity between touch points of finite log-density, so the support is not an interval`, tx[i], tx[i + 1]);
+      this.gapBetween(tx[i], x, tx[i + 1], this.touchLogDensity[i + 1]);
     }
     if (this.kind !== T_LOG && l - this.ref < INV_SQRT_MIN_RELATIVE_LOG_HEIGHT) return false;
     // position: first index with tx[p] > x

@@ -9,6 +9,7 @@ import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece } from '../envelope/transforms.js';
+import { checkBeyondZero } from '../envelope/gaps.js';
 import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
 import { exp, log } from '../../vendor/math.js';
@@ -119,6 +120,7 @@ export function hullFill(
           h.explainViolation(x, lf, `target is below the squeeze at x = ${x} (log target ${lf}, log squeeze ${lsq + ref})`);
           throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
         }
+        if (lf === -Infinity) beyondCut(h, counters, x);
         // updating step (Gilks & Wild 1992): every evaluated candidate becomes a touch point
         adapt(h, x, lf);
         if (u3 < exp(lr - lenv)) {
@@ -145,6 +147,29 @@ function next(blk: UniformBlock): number {
   }
   blk.pos = p + 1;
   return blk.buf[p];
+}
+
+/**
+ * A candidate of density 0 beyond the outermost touch point is about to cut
+ * the support: first look beyond it ({@link checkBeyondZero}, counted as
+ * density evaluations), so that a positive part further out is a
+ * {@link ShapeViolationError} rather than silently dropped. Rare path: runs
+ * once per cut.
+ */
+function beyondCut(h: Hull, counters: Counters, x: number): void {
+  const k = h.k;
+  if (k === 0) return;
+  const tx = h.touchX;
+  const below = x < tx[0] && x > h.lower;
+  const above = x > tx[k - 1] && x < h.upper;
+  if (!below && !above) return;
+  const api = h.api;
+  const logf = h.target.logDensity;
+  const evaluate = (y: number): number => {
+    counters.densityEvaluations++;
+    return checkLogDensity(api, y, logf(y));
+  };
+  checkBeyondZero(api, evaluate, x, below ? tx[0] : tx[k - 1], below ? h.lower : h.upper, tx[k - 1] - tx[0]);
 }
 
 /** Inserts an evaluated candidate as a touch point (evaluating the derivative when the hull uses tangents). */

@@ -14,6 +14,7 @@ import { checkInteger, checkOptionKeys, checkTarget, evalLog, resolveBoolean, re
 import type { CheckedTarget } from '../../core/validate.js';
 import { resolveUniform } from '../../random/resolve.js';
 import { Hull, nonFiniteDerivative } from './hull.js';
+import { checkBeyondZero } from '../envelope/gaps.js';
 import { SetupProbes } from './setup-probes.js';
 import { automaticStartPoints } from './start.js';
 import type { Probe, StartResult, StartSearch } from './start.js';
@@ -193,6 +194,23 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
   for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true, false);
   hull.rebuildAll();
   for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
+  // a zero that cuts the support: look beyond it (issue 17: never a one-sided sample)
+  let checkedLower = t.lower;
+  let checkedUpper = t.upper;
+  const checkCuts = (): void => {
+    const k = hull.k;
+    if (k === 0) return;
+    const span = hull.touchX[k - 1] - hull.touchX[0];
+    if (hull.lower > checkedLower) {
+      checkBeyondZero(api, evaluate, hull.lower, hull.touchX[0], checkedLower, span);
+      checkedLower = hull.lower;
+    }
+    if (hull.upper < checkedUpper) {
+      checkBeyondZero(api, evaluate, hull.upper, hull.touchX[k - 1], checkedUpper, span);
+      checkedUpper = hull.upper;
+    }
+  };
+  checkCuts();
   let stuck = 0;
   let refinements = 0;
   for (;;) {
@@ -210,6 +228,7 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
     }
     if (!hull.insert(p.x, p.l, p.g, true) && ++stuck > 20) break;
   }
+  checkCuts();
   const top = hull.maxRelativeHeight();
   // a warm start skips the second build where the log hull's top is near its reference (the kernel works
   // with relative values; the reference only keeps the areas in range)

@@ -223,17 +223,22 @@ export function scanTarget(
 
 /**
  * Octaves of the probes beyond an end where the scan found the density to
- * be 0: up to 2^20 times the width of the positive part from its edge.
+ * be 0: up to 2^20 times the larger of the width of the positive part and
+ * the distance from it to the zero.
  */
 const ZERO_GAP_OCTAVES = 20;
+/** Cap on the probes beyond one zero, and on the bisection steps locating a gap's ends. */
+const ZERO_GAP_MAX_PROBES = 80;
 
 /**
  * Where the scan cut the support at a zero of the density, probes further
- * out (geometrically, two per octave of distance, up to 2^20 times the
- * width of the part where the density was found positive, within the
- * support): a positive density there means the support is not an interval
+ * out: from the zero, at distances δ·2^(k/2) (δ its distance from the
+ * nearest point of positive density, two probes per octave, up to 2^20
+ * times the larger of δ and the width of the positive part, within the
+ * support). A positive density there means the support is not an interval
  * and the scan would have dropped a component, so the target is refused
- * with {@link InvalidTargetError} instead of being sampled without it.
+ * with {@link InvalidTargetError} naming the gap (located by bisection)
+ * instead of being sampled without it.
  */
 function checkBeyondZeros(api: string, ev: Evaluator, kept: readonly ScanPoint[], lower: number, upper: number): void {
   let lo = Infinity;
@@ -250,18 +255,39 @@ function checkBeyondZeros(api: string, ev: Evaluator, kept: readonly ScanPoint[]
     if (end.l !== -Infinity) continue; // not cut at a zero
     const edge = dir > 0 ? hi : lo;
     const bound = dir > 0 ? upper : lower;
+    const delta = Math.abs(end.x - edge);
+    const reach = pow(2, ZERO_GAP_OCTAVES) * Math.max(width, delta);
     let zeroAt = end.x;
-    for (let k = 0; k <= 2 * ZERO_GAP_OCTAVES; k++) {
-      const x = edge + dir * width * pow(2, k / 2);
-      if (!Number.isFinite(x) || (dir > 0 ? x > bound : x < bound)) break;
-      if (dir > 0 ? x <= end.x : x >= end.x) continue;
+    for (let k = 0; k < 2 * ZERO_GAP_MAX_PROBES; k++) {
+      const d = delta * pow(2, k / 2);
+      const x = end.x + dir * d;
+      if (!Number.isFinite(x) || d > reach || (dir > 0 ? x > bound : x < bound)) break;
       const l = ev.logDensity(x);
       if (l === -Infinity) {
         zeroAt = x;
         continue;
       }
+      // locate the gap's ends by bisection (error path only)
+      let a = edge;
+      let b = end.x;
+      for (let i = 0; i < ZERO_GAP_MAX_PROBES; i++) {
+        const m = a + 0.5 * (b - a);
+        if (m === a || m === b) break;
+        if (ev.logDensity(m) > -Infinity) a = m;
+        else b = m;
+      }
+      let c = zeroAt;
+      let e = x;
+      for (let i = 0; i < ZERO_GAP_MAX_PROBES; i++) {
+        const m = c + 0.5 * (e - c);
+        if (m === c || m === e) break;
+        if (ev.logDensity(m) > -Infinity) e = m;
+        else c = m;
+      }
+      const g0 = Math.min(b, c);
+      const g1 = Math.max(b, c);
       throw new InvalidTargetError(
-        `${api}: logDensity is -Infinity at x = ${zeroAt} but finite again at x = ${x} (logDensity ${l}): the support is not an interval, and the envelope would leave out the part beyond x = ${end.x}; sample each interval with its own support and mix the draws by their masses`,
+        `${api}: logDensity is -Infinity on about [${g0}, ${g1}] but finite on both sides (at x = ${edge} and at x = ${x}, logDensity ${l}): the support is not an interval, and the envelope would leave out the part beyond the gap; sample each interval with its own support and mix the draws by their masses`,
       );
     }
   }

@@ -7,7 +7,7 @@ import { maximizeLog } from '../../bounds/maximize.js';
 import { ImproperDensityError, InvalidTargetError, NonFiniteDensityError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { CheckedTarget } from '../../core/validate.js';
-import { exp, log, pow } from '../../vendor/math.js';
+import { exp, log, log1p, pow } from '../../vendor/math.js';
 
 /**
  * Absolute part of the safety margin of every bound, in log space. Each
@@ -73,13 +73,19 @@ export function margin(b: number): number {
  * @param t - the checked target
  * @param power - r > 0
  * @param shiftOption - user-given shift, or undefined for the mode
+ * @param cell - for a target whose logDensity is constant on cells wider
+ *   than the doubles of its coordinate (a standardised target: logDensity(z)
+ *   is f at the double nearest loc + 2^k·z), the width of the cell at a
+ *   point: the v-bound at the located supremum z* is widened by a factor
+ *   1 + 2·cell(z*)/|z* − s|, because within a cell (z − s) grows while f
+ *   stays the same
  * @throws {@link InvalidTargetError} when a bound is infinite (density unbounded at an end,
  *   tails too heavy for this power) or when the mode hint is not a mode
  * @throws {@link ImproperDensityError} when a tail of the density does not decay
  * @throws {@link NonFiniteDensityError} when logDensity returns NaN or +Infinity (inside the support)
  * @internal
  */
-export function computeRectangle(api: string, t: CheckedTarget, power: number, shiftOption: number | undefined): Rectangle {
+export function computeRectangle(api: string, t: CheckedTarget, power: number, shiftOption: number | undefined, cell?: (x: number) => number): Rectangle {
   const { lower, upper } = t;
   const logDensity = t.logDensity;
   let evaluations = 0;
@@ -171,7 +177,7 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const r = sideSup(api, hp, a, upper, s + scale, scale);
     if (r !== undefined) {
       if (r.rising && upper === Infinity) throw tailError(api, lf, power, s, scale, 1);
-      logVMax = r.value + margin(r.value);
+      logVMax = r.value + margin(r.value) + cellWidening(cell, r.x, s);
       if (Number.isFinite(upper)) logVMax = Math.min(logVMax, log(upper - s));
     }
   }
@@ -186,7 +192,7 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
     const r = sideSup(api, hm, lower, b, s - scale, scale);
     if (r !== undefined) {
       if (r.rising && lower === -Infinity) throw tailError(api, lf, power, s, scale, -1);
-      logVMinAbs = r.value + margin(r.value);
+      logVMinAbs = r.value + margin(r.value) + cellWidening(cell, r.x, s);
       if (Number.isFinite(lower)) logVMinAbs = Math.min(logVMinAbs, log(s - lower));
     }
   }
@@ -206,6 +212,14 @@ export function computeRectangle(api: string, t: CheckedTarget, power: number, s
   };
 }
 
+/** log(1 + 2·cell(x)/|x − s|): the widening of a v-bound located at x for a density constant on cells (0 without cells). */
+function cellWidening(cell: ((x: number) => number) | undefined, x: number, s: number): number {
+  if (cell === undefined) return 0;
+  const d = Math.abs(x - s);
+  const w = cell(x);
+  return d > 0 && w > 0 ? log1p((2 * w) / d) : 0;
+}
+
 /**
  * Sup of a v-side function over [a, b]; undefined when every probe is
  * −Infinity (no mass on that side of the shift: the side is empty).
@@ -217,7 +231,7 @@ function sideSup(
   b: number,
   hint: number,
   scale: number,
-): { value: number; rising: boolean } | undefined {
+): { value: number; x: number; rising: boolean } | undefined {
   let finiteSeen = false;
   const hh = (x: number): number => {
     const v = h(x);
@@ -229,7 +243,7 @@ function sideSup(
     const r = maximizeLog(api, hh, a, b, { hint: c, scale });
     const risingEnd = r.risingTail === undefined ? undefined : r.risingTail === 'upper' ? b : a;
     const p = polish(hh, r.x, r.value, a, b);
-    return { value: p.value, rising: risingEnd !== undefined && !Number.isFinite(risingEnd) };
+    return { value: p.value, x: p.x, rising: risingEnd !== undefined && !Number.isFinite(risingEnd) };
   } catch (e) {
     if (e instanceof InvalidTargetError && !finiteSeen) return undefined;
     throw e;
@@ -345,4 +359,83 @@ function tailError(api: string, lf: (x: number) => number, power: number, s: num
     `${head}, but power r bounds only tails decaying at least like |x|^(−(r+1)/r) = |x|^(−${((power + 1) / power).toPrecision(3)}); ` +
       `choose power >= 1/(α − 1) ≈ ${need.toPrecision(3)} (a larger power bounds heavier tails)`,
   );
+}
+
+/**
+ * Largest share of the target's mass that may lie beyond ±Number.MAX_VALUE
+ * before {@link checkMassBeyondDoubles} refuses the target: 2^−53, the
+ * resolution of the uniforms (a lower bound of the share is compared with it). @internal
+ */
+export const MAX_MASS_BEYOND_DOUBLES = /* @__PURE__ */ pow(2, -53);
+
+/**
+ * The map z = (x − loc)/2^k of a rectangle built for a standardised target
+ * (src/methods/transform/standardise.ts), as {@link checkMassBeyondDoubles}
+ * needs it. @internal
+ */
+export interface CoordinateMap {
+  readonly loc: number;
+  readonly scale: number;
+  readonly log2Scale: number;
+  readonly description: string;
+}
+
+/**
+ * Mass beyond the largest double (issue 17): the exact draw, rounded to
+ * nearest, would be ±Infinity with the probability the target puts beyond
+ * ±1.8e308, but no candidate there can be tested against the density (x
+ * overflows), so such candidates would be rejected and that mass silently
+ * dropped. Where the support reaches the edge E (±Number.MAX_VALUE; for a
+ * rectangle built in a standardised coordinate, the x of z = ±MAX_VALUE when
+ * that is nearer), log f at E and at the midpoint of loc and E give the local
+ * tail exponent f ∝ |x − loc|^−(1+α) and the tail mass T ≈ |E − loc|·f(E)/α
+ * beyond E. The region's area bounds the total mass from above (∫f/f̃max ≤
+ * (r+1)(vMax − vMin), times 2^k in x for a standardised rectangle), so their
+ * ratio is a lower bound of the share beyond E (power-law extrapolation at
+ * E). When it exceeds {@link MAX_MASS_BEYOND_DOUBLES} the target is refused
+ * with {@link InvalidTargetError}; α ≤ 0 there (no decay) is an
+ * {@link ImproperDensityError}. A value at either probe that is not finite
+ * (−Infinity, NaN, +Infinity) skips the check on that side: the probes serve
+ * this check only. `t` is the target in x. `onRefusalInX` is called with the
+ * error before it is thrown when the edge is ±MAX_VALUE in x itself (a refusal
+ * that building in another coordinate cannot lift).
+ * @returns the evaluations spent
+ * @internal
+ */
+export function checkMassBeyondDoubles(api: string, t: CheckedTarget, rect: Rectangle, power: number, map?: CoordinateMap, onRefusalInX?: (e: Error) => void): number {
+  const M = Number.MAX_VALUE;
+  const loc = map === undefined ? 0 : map.loc;
+  let evaluations = 0;
+  const logArea = log(power + 1) + log(rect.vMax - rect.vMin) + (map === undefined ? 0 : map.log2Scale * Math.LN2);
+  for (const dir of [1, -1] as const) {
+    // the edge of what the rectangle's candidates can reach: ±MAX_VALUE in x, or x(±MAX_VALUE) in z
+    const reach = map === undefined ? dir * M : loc + dir * map.scale * M;
+    const E = dir > 0 ? Math.min(M, reach) : Math.max(-M, reach);
+    if (dir > 0 ? t.upper < E : t.lower > E) continue;
+    const half = loc + 0.5 * (E - loc);
+    // a value that is not a finite number or −Infinity out there (e.g. NaN from Infinity − Infinity in
+    // the user's formula) is read as "no information": these two points are probed for this check only
+    const lE = t.logDensity(E);
+    evaluations++;
+    if (typeof lE !== 'number' || !(lE > -Infinity && lE < Infinity)) continue;
+    const lHalf = t.logDensity(half);
+    evaluations++;
+    if (typeof lHalf !== 'number' || !(lHalf > -Infinity && lHalf < Infinity)) continue;
+    const alpha = (lHalf - lE) / Math.LN2 - 1;
+    const where = Math.abs(E) === M ? `${dir > 0 ? '+' : '-'}1.8e308 (the largest double` : `x = ${E} (z = ${dir > 0 ? '+' : '-'}1.8e308, the largest double, in the standardised coordinate ${map === undefined ? '' : map.description}`;
+    if (!(alpha > 0)) {
+      const e = new ImproperDensityError(`${api}: the density does not decay towards ${where}; logDensity ${lHalf} at ${half}, ${lE} at ${E}): the mass beyond it is infinite`);
+      if (Math.abs(E) === M) onRefusalInX?.(e);
+      throw e;
+    }
+    const logShare = log(0.5 * Math.abs(E - loc)) + Math.LN2 + lE - rect.logDensityBound - log(alpha) - logArea;
+    if (logShare > log(MAX_MASS_BEYOND_DOUBLES)) {
+      const e = new InvalidTargetError(
+        `${api}: at least about ${exp(logShare).toPrecision(2)} of the mass lies beyond ${where}; local tail f ~ |x|^(−${(1 + alpha).toPrecision(4)}) there): such draws would be ${Math.abs(E) === M ? `${dir > 0 ? '+' : '-'}Infinity` : 'out of reach'}, and candidates there cannot be tested, so exactdraw refuses the target rather than drop that mass; sample log|x| instead, or truncate the support`,
+      );
+      if (Math.abs(E) === M) onRefusalInX?.(e);
+      throw e;
+    }
+  }
+  return evaluations;
 }

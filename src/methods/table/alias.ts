@@ -28,7 +28,9 @@
  * [a, a + w] the kernel computes the draw in one step, x = B + v·S with
  * B = a + w·(o − v0)/T_r and S = w/T_r > 0. For the other regions it
  * stores B = (o − v0)/T_r (the position offset) and S = −(r + 1) < 0,
- * which both marks the slow path and names the region.
+ * which both marks the slow path and names the region; so does a sure
+ * strip narrower than {@link FAST_STRIP_MIN_ULPS} spacings of the doubles
+ * at its ends, where the rounding of B would show (issue 17).
  *
  * With MT19937 through `@stdlib/random-base-mt19937` (`normalized()`),
  * k = (o₁ ≫ 5)·2^26 + (o₂ ≫ 6) for two consecutive 32-bit outputs o₁, o₂,
@@ -43,6 +45,23 @@
  */
 import type { StripTable } from './strip-table.js';
 import { R_SURE } from './strip-table.js';
+
+/**
+ * Narrowest sure strip, in units of the spacing of the doubles at its ends,
+ * that the one-step formula x = B + v·S draws from: B is rounded to a double,
+ * which shifts the part of the strip a cell maps to by up to half a spacing,
+ * so the doubles at the ends of each part get up to ±50 % of their rounded
+ * probability wrong — invisible in a strip of millions of doubles, but not
+ * in one of a few (normal(1, 1e-13) has strips of tens of doubles). A
+ * narrower strip is drawn on the slow path, x = a + w·pos rounded once,
+ * which is the exact draw rounded to nearest up to the resolution of pos. @internal
+ */
+export const FAST_STRIP_MIN_ULPS = 65536;
+
+/** Spacing of the doubles at |x| (2^−52·|x|, at least the smallest subnormal step). */
+function spacing(x: number): number {
+  return Math.max(x * 2.220446049250313e-16, 5e-324);
+}
 
 /** Doubles per cell: P, B0, S0, B1, S1. @internal */
 export const CELL_STRIDE = 5;
@@ -141,7 +160,8 @@ export function buildAliasCells(t: StripTable): AliasCells {
         const a = xs[i];
         const w = xs[i + 1] - a;
         const S = w * invT[r];
-        if (S > 0) {
+        // a strip narrower than FAST_STRIP_MIN_ULPS doubles takes the slow path (see the remarks)
+        if (S > 0 && w >= FAST_STRIP_MIN_ULPS * spacing(Math.max(Math.abs(a), Math.abs(xs[i + 1])))) {
           tab[at] = a + w * pos0;
           tab[at + 1] = S;
           continue;

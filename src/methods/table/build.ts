@@ -62,6 +62,7 @@ import type { Counters } from '../../core/counters.js';
 import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
 import { notConcave, shapeError } from '../envelope/concavity.js';
+import { gapError } from '../envelope/gaps.js';
 import type { HullView } from '../envelope/hull-view.js';
 import { T_LOG, logHeight, pieceConstant, pieceLogArea } from '../envelope/transforms.js';
 import { stripRegions } from './strip-table.js';
@@ -298,7 +299,10 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   while (l[f1] === -Infinity) f1--;
   for (let i = f0; i <= f1; i++) {
     if (l[i] === -Infinity) {
-      throw shapeError(api, kind, `logDensity(${x[i]}) is -Infinity between points of finite log-density, so the support is not an interval`, x[i - 1], x[i + 1]);
+      // locate the gap around x_i (between the nearest boundaries of finite log-density) and name it
+      let j = i + 1;
+      while (l[j] === -Infinity) j++;
+      gapError(api, (z: number) => checkLogDensity(api, z, logDensity(z)), x[i - 1], x[i], x[j], l[j]);
     }
   }
   const y = new Float64Array(n + 1);
