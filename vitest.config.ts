@@ -3,7 +3,7 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
-    // timing-sensitive: run alone after this suite by `npm run test:gate` (vitest.gate.config.ts)
+    // timing-sensitive and opt-in: run alone by `npm run test:gate` (vitest.gate.config.ts)
     exclude: ['test/cli/bench-gate.test.ts', '**/node_modules/**'],
     testTimeout: 120_000,
     hookTimeout: 120_000,
