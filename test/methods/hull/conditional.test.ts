@@ -143,6 +143,16 @@ describe('conditionalSampler: same draws as fresh samplers where promised', () =
     expect(run(11)).toEqual(run(11));
     expect(run(12)).not.toEqual(run(11));
   });
+
+  it('conditionalSampler (warm start), seed 1, gamma(2 + 0.5 i, 1 + 0.25 i) for i = 0..5: golden draws', () => {
+    // Stream-stability snapshot recorded from this implementation on 2026-12-03 (a regression guard, not a
+    // correctness reference): a change here changes users' Gibbs streams and must be noted in CHANGELOG.md
+    // (DEVELOPERS.md, "Stream-stability policy").
+    const s = conditionalSampler({ seed: 1 });
+    const out: number[] = [];
+    for (let i = 0; i < 6; i++) out.push(s.draw(gammaTarget(2 + 0.5 * i, 1 + 0.25 * i)));
+    expect(out).toEqual([1.6366177890013396, 0.6935514085362124, 1.0636009853355815, 1.4562700416193612, 0.9904503843007375, 3.0623144558922917]);
+  });
 });
 
 describe('conditionalSampler: evaluations per one-draw step (counts, not times)', () => {
