@@ -20,6 +20,7 @@ import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import {
   InvalidOptionError,
   InvalidTargetError,
+  NonFiniteDensityError,
   ShapeViolationError,
   adaptiveRejectionSampler,
   conditionalSampler,
@@ -142,6 +143,37 @@ describe('conditionalSampler: same draws as fresh samplers where promised', () =
     };
     expect(run(11)).toEqual(run(11));
     expect(run(12)).not.toEqual(run(11));
+  });
+
+  it('a failure found while drawing (a NaN density) is thrown again by every later draw until the next retarget', () => {
+    let broken = false;
+    // invented target: a standard normal whose logDensity returns NaN above 0.5 once broken is set
+    const t: Target = { logDensity: (x) => (broken && x > 0.5 ? NaN : -0.5 * x * x), dLogDensity: (x) => -x, mode: 0 };
+    const s = conditionalSampler({ seed: 3 });
+    s.retarget(t);
+    broken = true;
+    let first: unknown;
+    for (let i = 0; i < 100_000 && first === undefined; i++) {
+      try {
+        s.sample();
+      } catch (e) {
+        first = e;
+      }
+    }
+    expect(first).toBeInstanceOf(NonFiniteDensityError);
+    broken = false; // the target is fine again, but the sampler has seen it fail on this hull
+    for (let k = 0; k < 3; k++) {
+      let again: unknown;
+      try {
+        s.sample();
+      } catch (e) {
+        again = e;
+      }
+      expect(again).toBe(first);
+    }
+    // twin: after the next retarget the sampler draws again
+    s.retarget(t);
+    expect(Number.isFinite(s.sample())).toBe(true);
   });
 
   it('conditionalSampler (warm start), seed 1, gamma(2 + 0.5 i, 1 + 0.25 i) for i = 0..5: golden draws', () => {
