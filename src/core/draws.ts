@@ -14,6 +14,10 @@ export type FillKernel = (out: Float64Array, n: number) => void;
 export interface Draws {
   sample(): number;
   fill(out: Float64Array): Float64Array;
+  /** True once the kernel threw an error after which the sampler is unusable. */
+  failed(): boolean;
+  /** Forgets that error: for a sampler whose target is replaced (`conditionalSampler.retarget`). */
+  clearFailure(): void;
 }
 
 /**
@@ -63,6 +67,10 @@ export function wrapDraws(api: string, kernel: FillKernel): Draws {
       checkFillArray(api, out);
       run(out, out.length);
       return out;
+    },
+    failed: () => failure !== undefined,
+    clearFailure(): void {
+      failure = undefined;
     },
   };
 }

@@ -5,10 +5,10 @@
  * @packageDocumentation
  */
 import { Counters } from '../core/counters.js';
-import { leavesSamplerUsable } from '../core/draws.js';
+import { wrapDraws } from '../core/draws.js';
 import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkFillArray, checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections, showValue } from '../core/validate.js';
+import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections, showValue } from '../core/validate.js';
 import type { EnvelopeDescription } from './envelope/description.js';
 import { T_INV_SQRT, T_LOG } from './envelope/transforms.js';
 import type { TransformName } from './envelope/transforms.js';
@@ -161,33 +161,25 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
   const nothing = (): number => NaN;
   const hull = new Hull(API, kind, false, { logDensity: nothing, dLogDensity: undefined }, -Infinity, Infinity, 0, Math.floor(maxPieces / 2) + 4);
   let hasTarget = false;
-  let failure: unknown;
   let targets = 0;
   let derivatives = 0;
   let centre: WarmCentre | undefined;
   const warmStart: HullReuse['start'] = (search, lower, upper, mode) => warmStartPoints(search, lower, upper, mode, centre as WarmCentre);
   const reuseCold: HullReuse = { hull, counters, start: undefined };
   const reuseWarm: HullReuse = { hull, counters, start: warmStart };
-  const scratch = new Float64Array(1);
-
-  const run = (out: Float64Array, n: number): void => {
-    if (failure !== undefined) throw failure;
+  // the one sample/fill wrapper (core/draws.ts); retarget forgets a failure of the previous target
+  const draws = wrapDraws(API, (out, n) => {
     if (!hasTarget) throw new InvalidTargetError(`${API}: no target to draw from: call retarget(target) first (or the last retarget threw)`);
-    try {
-      hullFill(hull, out, n, counters, blk, maxRejections);
-    } catch (e) {
-      if (!leavesSamplerUsable(e)) failure = e;
-      throw e;
-    }
-  };
+    hullFill(hull, out, n, counters, blk, maxRejections);
+  });
 
   const sampler: ConditionalSampler = {
     retarget(target: Target): ConditionalSampler {
       // what the previous target's hull tells about the next one; nothing for the first target or after a failure
-      centre = warm && hasTarget && failure === undefined ? hullCentre(hull, centre ?? { centre: 0, scale: 1 }) : undefined;
+      centre = warm && hasTarget && !draws.failed() ? hullCentre(hull, centre ?? { centre: 0, scale: 1 }) : undefined;
       if (hasTarget) derivatives += hull.derivativeEvaluations;
       hasTarget = false;
-      failure = undefined;
+      draws.clearFailure();
       const t = checkTarget(API, target);
       const o: ResolvedHullOptions = {
         target: t,
@@ -206,18 +198,10 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
     },
     draw(target: Target): number {
       sampler.retarget(target);
-      run(scratch, 1);
-      return scratch[0];
+      return draws.sample();
     },
-    sample(): number {
-      run(scratch, 1);
-      return scratch[0];
-    },
-    fill(out: Float64Array): Float64Array {
-      checkFillArray(API, out);
-      run(out, out.length);
-      return out;
-    },
+    sample: draws.sample,
+    fill: draws.fill,
     get stats(): ConditionalSamplerStats {
       const s = counters.snapshot();
       return { ...s, targets, derivativeEvaluations: derivatives + (hasTarget ? hull.derivativeEvaluations : 0) };

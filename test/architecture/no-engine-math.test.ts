@@ -15,6 +15,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
+import { segments } from '../../scripts/source-segments.mjs';
 
 const SRC = join(process.cwd(), 'src');
 const EXCLUDED = [join(SRC, 'cli') + sep, join(SRC, 'node') + sep];
@@ -32,94 +33,14 @@ function files(dir: string): string[] {
 }
 
 /**
- * Source with comments and the text of string and template literals blanked (template ${…}
- * parts kept, and templates nested inside them handled: a stack of the brace depth inside
- * each open `${`); regular-expression literals blanked too (a `/` where an operand is expected).
+ * Source with comments, string literals, template-literal text and regular-expression literals
+ * each replaced by `""` (newlines kept), code untouched: the splitter the rewrite script uses
+ * (scripts/source-segments.mjs), so the scan and the rewrite agree on what is code. The twin
+ * below checks the splitter on every form that once hid a call.
  */
-function regexAllowed(src: string, i: number): boolean {
-  let j = i - 1;
-  while (j >= 0 && /\s/.test(src[j])) j--;
-  if (j < 0) return true;
-  if ('(,=:[!&|?{};~^%*+-<>'.includes(src[j])) return true;
-  return /(?:^|[^\w$])(return|typeof|case|void|in|of)$/.test(src.slice(Math.max(0, j - 7), j + 1));
-}
-
-/** Index just after the regular-expression literal that starts at `i` (flags included). */
-function regexEnd(src: string, i: number): number {
-  let k = i + 1;
-  let cls = false;
-  while (k < src.length && src[k] !== '\n') {
-    const c = src[k];
-    if (c === '\\') k += 2;
-    else if (cls) {
-      if (c === ']') cls = false;
-      k++;
-    } else if (c === '[') {
-      cls = true;
-      k++;
-    } else if (c === '/') break;
-    else k++;
-  }
-  k++;
-  while (k < src.length && /[a-z]/.test(src[k])) k++;
-  return k;
-}
-
 function codeOnly(src: string): string {
   let out = '';
-  let i = 0;
-  const depth: number[] = [];
-  let inTemplate = false;
-  while (i < src.length) {
-    const c = src[i];
-    if (!inTemplate && c === '/' && src[i + 1] !== '/' && src[i + 1] !== '*' && regexAllowed(src, i)) {
-      i = regexEnd(src, i);
-      out += '/r/';
-    } else if (inTemplate) {
-      if (c === '\\') i += 2;
-      else if (c === '`') {
-        i++;
-        out += '`';
-        inTemplate = false;
-      } else if (c === '$' && src[i + 1] === '{') {
-        i += 2;
-        out += '${';
-        depth.push(0);
-        inTemplate = false;
-      } else {
-        if (c === '\n') out += '\n';
-        i++;
-      }
-    } else if (c === '/' && src[i + 1] === '/') {
-      while (i < src.length && src[i] !== '\n') i++;
-    } else if (c === '/' && src[i + 1] === '*') {
-      const e = src.indexOf('*/', i + 2);
-      i = e < 0 ? src.length : e + 2;
-      out += ' ';
-    } else if (c === "'" || c === '"') {
-      i++;
-      while (i < src.length && src[i] !== c) i += src[i] === '\\' ? 2 : 1;
-      i++;
-      out += '""';
-    } else if (c === '`') {
-      i++;
-      out += '`';
-      inTemplate = true;
-    } else if (c === '{' && depth.length > 0) {
-      depth[depth.length - 1]++;
-      out += c;
-      i++;
-    } else if (c === '}' && depth.length > 0 && depth[depth.length - 1] === 0) {
-      depth.pop();
-      out += '}';
-      i++;
-      inTemplate = true;
-    } else {
-      if (c === '}' && depth.length > 0) depth[depth.length - 1]--;
-      out += c;
-      i++;
-    }
-  }
+  for (const s of segments(src)) out += s.code ? s.text : `""${s.text.replace(/[^\n]/g, '')}`;
   return out;
 }
 
