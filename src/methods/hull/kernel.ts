@@ -92,7 +92,9 @@ export function hullFill(
         let lenv: number;
         let lsq: number;
         if (isLog) {
-          if (u3 < exp(c - t)) {
+          // the squeeze test u3 < exp(y), decided without exp where the screen suffices (same decisions)
+          const y = c - t;
+          if (u3 < expScreen(y) || u3 < exp(y)) {
             out[i] = x;
             break;
           }
@@ -136,6 +138,24 @@ export function hullFill(
     counters.samples += i;
     counters.proposals += proposals;
   }
+}
+
+const SIXTH = 1 / 6;
+
+/**
+ * A lower bound of exp(y) without a transcendental call, for screening the
+ * squeeze test: 1 + y + y²/2 + y³/6 − 1e-15. For every real y the cubic is at
+ * most exp(y) (the Taylor remainder y⁴·e^ξ/24 is not negative), and the
+ * margin 1e-15 exceeds the rounding of the cubic and of the vendored exp near
+ * 1 (a few ulps of 1, 2.2e-16 each), so `u < expScreen(y)` implies
+ * `u < exp(y)`: the kernel takes the same decisions, and gives the same draws,
+ * as with exp alone, and calls exp only when the screen fails (about y⁴/24 of
+ * the squeeze passes, plus the rejections of the screen). Checked against
+ * the vendored exp in test/methods/hull/kernel-screen.test.ts.
+ * @internal
+ */
+export function expScreen(y: number): number {
+  return 1 + y * (1 + y * (0.5 + y * SIXTH)) - 1e-15;
 }
 
 /** The next uniform of the block (inlined by the engine: a bounds test and a load). */
