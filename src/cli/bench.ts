@@ -228,7 +228,7 @@ export async function runBench(cases: BenchCase[], opts: BenchOptions, only: str
     }
     const rows: BenchRow[] = cases.map((c, k) => {
       const d = done[k];
-      const toGate = gateIndex >= 0 ? roundRatios(roundsNs[k], roundsNs[gateIndex]) : null;
+      const toGate = gateIndex >= 0 ? roundRatios(roundsNs[k], roundsNs[gateIndex], P) : null;
       const refIndex = c.reference === null ? -1 : cases.findIndex((x) => x.name === c.reference);
       return {
         name: c.name,
@@ -247,7 +247,7 @@ export async function runBench(cases: BenchCase[], opts: BenchOptions, only: str
         setupEvaluations: d.setupEvaluations,
         setupMs: ready[k],
         reference: c.reference,
-        ratioToReference: refIndex >= 0 ? roundRatios(roundsNs[k], roundsNs[refIndex]).ratio : null,
+        ratioToReference: refIndex >= 0 ? roundRatios(roundsNs[k], roundsNs[refIndex], P).ratio : null,
       };
     });
     return {
@@ -270,7 +270,7 @@ export async function runBench(cases: BenchCase[], opts: BenchOptions, only: str
 }
 
 /** Processes per case (rounds rotate over them). */
-export const REPLICAS = 3;
+export const REPLICAS = 6;
 
 /** Name of the raw uniform row (the default gate reference, always run). */
 export const RAW_UNIFORM = 'mt19937 uniform (raw)';

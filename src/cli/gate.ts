@@ -30,13 +30,33 @@ export interface RatioSummary {
  * Summarises the per-round ratios `caseNs[k] / refNs[k]` of a case to a
  * reference timed in the same rounds (adjacent in time, so that the load of
  * the machine mostly cancels).
+ *
+ * @remarks
+ * With `processes` = P > 1, round k was timed in process k mod P of the case
+ * (and of the reference): the level of a process can differ from another's
+ * by tens of per cent (JIT decisions, placement on the cores), more than the
+ * rounds within one process show, so the rounds are not independent. The
+ * ratio is then the median of the P process levels (each the median of its
+ * own rounds' log ratios), and the noise is the larger of the rounds' robust
+ * standard error and the standard error of that median from the spread of
+ * the levels (1.2533 · sd(levels) / √P; common practice for a median of
+ * normal data): a row whose processes disagree is reported as noisy instead
+ * of passing or failing by the luck of which processes it got.
  */
-export function roundRatios(caseNs: readonly number[], refNs: readonly number[]): RatioSummary {
+export function roundRatios(caseNs: readonly number[], refNs: readonly number[], processes = 1): RatioSummary {
   if (caseNs.length !== refNs.length || caseNs.length === 0) throw new Error(`roundRatios: ${caseNs.length} case rounds vs ${refNs.length} reference rounds`);
   const logs = caseNs.map((c, k) => Math.log(c / refNs[k]));
   const m = median(logs);
   const mad = median(logs.map((l) => Math.abs(l - m)));
-  return { ratio: Math.exp(m), logNoise: (1.2533 * 1.4826 * mad) / Math.sqrt(logs.length) };
+  const withinNoise = (1.2533 * 1.4826 * mad) / Math.sqrt(logs.length);
+  const P = Math.min(Math.max(1, Math.floor(processes)), logs.length);
+  if (P < 2) return { ratio: Math.exp(m), logNoise: withinNoise };
+  const levels: number[] = [];
+  for (let p = 0; p < P; p++) levels.push(median(logs.filter((_, k) => k % P === p)));
+  const lm = median(levels);
+  const mean = levels.reduce((a, b) => a + b, 0) / P;
+  const sd = Math.sqrt(levels.reduce((a, b) => a + (b - mean) * (b - mean), 0) / (P - 1));
+  return { ratio: Math.exp(lm), logNoise: Math.max(withinNoise, (1.2533 * sd) / Math.sqrt(P)) };
 }
 
 /** How many standard errors of the combined noise a regression must exceed to be told apart from noise. */

@@ -19,6 +19,7 @@
 export { exp } from './math/exp.js';
 export { log } from './math/log.js';
 export { log1p } from './math/log1p.js';
+export { log1pFast } from './math/log1p-fast.js';
 export { expm1 } from './math/expm1.js';
 export { pow } from './math/pow.js';
 export { sin } from './math/sin.js';

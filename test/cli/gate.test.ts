@@ -42,6 +42,33 @@ describe('per-round ratios', () => {
   });
 });
 
+describe('per-round ratios from several processes per case', () => {
+  it('rounds timed in processes of different levels: the ratio is the median level and the noise sees the spread of the levels', () => {
+    // 6 processes (round k in process k mod 6), each steady within itself, levels 2·e^{±0.15}
+    // alternating (hand computation: levels ±0.15 around log 2, sd = 0.15·√(6/5), SE = 1.2533·sd/√6)
+    const P = 6;
+    const ref = new Array(12).fill(1);
+    const cas = ref.map((_, k) => 2 * Math.exp((k % P) % 2 === 0 ? 0.15 : -0.15));
+    const r = roundRatios(cas, ref, P);
+    expect(r.ratio).toBeCloseTo(2, 12);
+    expect(r.logNoise).toBeCloseTo((1.2533 * 0.15 * Math.sqrt(6 / 5)) / Math.sqrt(6), 12);
+    // twin: read as independent rounds, the same timings report a noise that hides the disagreement of the processes
+    const one = roundRatios(cas, ref, 1);
+    expect(one.logNoise).toBeCloseTo((1.2533 * 1.4826 * 0.15) / Math.sqrt(12), 12);
+    expect(one.logNoise).toBeLessThan(r.logNoise);
+  });
+
+  it('processes that agree keep the rounds\' own noise (the larger of the two estimates)', () => {
+    const P = 3;
+    const ref = [1, 1, 1, 1, 1, 1];
+    // round noise ±0.1 inside every process, identical levels
+    const cas = [2 * Math.exp(0.1), 2 * Math.exp(0.1), 2 * Math.exp(0.1), 2 * Math.exp(-0.1), 2 * Math.exp(-0.1), 2 * Math.exp(-0.1)];
+    const r = roundRatios(cas, ref, P);
+    expect(r.ratio).toBeCloseTo(2, 12);
+    expect(r.logNoise).toBeCloseTo((1.2533 * 1.4826 * 0.1) / Math.sqrt(6), 12);
+  });
+});
+
 describe('the regression gate', () => {
   it('passes unchanged ratios, fails a 1.5x slowdown, and the limit is the tolerance', () => {
     const base = [row('ref', 1, 0), row('a', 3, 0.01), row('b', 5, 0.01)];

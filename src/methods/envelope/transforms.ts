@@ -40,7 +40,7 @@
  *
  * @packageDocumentation
  */
-import { exp, expm1, log, log1p } from '../../vendor/math.js';
+import { exp, expm1, log, log1p, log1pFast } from '../../vendor/math.js';
 
 /** Names of the transforms. */
 export type TransformName = 'log' | 'inverse-sqrt';
@@ -129,7 +129,7 @@ export function pieceLogArea(kind: number, tH: number, sig: number, w: number): 
 export function invertPiece(kind: number, q: number, sig: number, w: number, u: number): number {
   let d: number;
   if (kind === T_LOG) {
-    d = q === 0 ? u * w : -log1p(-u * q) / sig;
+    d = q === 0 ? u * w : -log1pFast(-u * q) / sig;
   } else {
     d = w === Infinity ? u / ((1 - u) * q) : (u * w) / (1 + (1 - u) * q * w);
   }

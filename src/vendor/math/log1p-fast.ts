@@ -1,0 +1,34 @@
+/**
+ * ln(1 + x) with the common middle range inlinable: the same bits as
+ * {@link log1p} (`@stdlib/math-base-special-log1p`, FDLIBM's s_log1p.c)
+ * for every x. @internal @packageDocumentation
+ */
+import { log1p } from './log1p.js';
+
+/**
+ * ln(1 + x), bit for bit FDLIBM's log1p, with the branch that needs no
+ * argument reduction written out so that an engine can inline it into a
+ * sampling kernel.
+ *
+ * @remarks
+ * For 2^-29 ≤ |x| and −0.2929 < x < √2 − 1 FDLIBM takes k = 0 and f = x
+ * exactly, and returns f − (f²/2 − s·(f²/2 + R)) with s = f/(2 + f) and
+ * R = z·P(z), z = s², P its degree-6 polynomial; this function evaluates
+ * exactly those operations in the same order (so the same bits), and
+ * calls {@link log1p} for every other x (argument reduction, tiny |x|,
+ * NaN and the ends). Why: the full function is too large for V8 to inline,
+ * and a call that returns a double allocates a box for it; the hull kernel
+ * spent a quarter of its time in log1p calls. Checked bit for bit against
+ * the vendored function in test/vendor/log1p-fast.test.ts.
+ * @internal
+ */
+export function log1pFast(x: number): number {
+  if (x > -2.928932188134524755992e-1 && x < 4.142135623730950488017e-1 && (x >= 1.862645149230957e-9 || x <= -1.862645149230957e-9)) {
+    const hfsq = 0.5 * x * x;
+    const s = x / (2.0 + x);
+    const z = s * s;
+    const R = z * (0.6666666666666735 + z * (0.3999999999940942 + z * (0.2857142874366239 + z * (0.22222198432149784 + z * (0.1818357216161805 + z * (0.15313837699209373 + z * 0.14798198605116586))))));
+    return x - (hfsq - s * (hfsq + R));
+  }
+  return log1p(x);
+}
