@@ -67,20 +67,24 @@ export function tableFill(st: TableState, out: Float64Array, n: number, counters
       // the two are about equally likely in many cells, so a branch would be mispredicted
       const k = o + 1 + 2 * +(v >= tab[o]);
       const s = tab[k + 1];
-      let x = tab[k] + v * s;
+      const x = tab[k] + v * s;
       if (s > 0) {
         // a sure rectangle; the clamp keeps a draw rounded past a finite end of the support inside it
-        out[i++] = x < lower ? lower : x > upper ? upper : x;
+        // (three stores, not one store of a conditional expression: V8 merged the tagged ends with x
+        // and boxed x, allocating a heap number per draw)
+        if (x < lower) out[i++] = lower;
+        else if (x > upper) out[i++] = upper;
+        else out[i++] = x;
         continue;
       }
       inFlight = 1;
       blk.pos = pos;
-      x = slowCandidate(st, counters, j, v, blk);
+      const y = slowCandidate(st, counters, j, v, blk);
       pos = blk.pos;
       len = blk.len;
       inFlight = 0;
       if (st.accepted) {
-        out[i++] = x;
+        out[i++] = y;
         streak = 0;
         continue;
       }
