@@ -52,11 +52,13 @@ export interface SuiteError {
 }
 
 /** One method on one target under the shared suite. */
-export interface MethodSuiteCase {
+export interface MethodSuiteCase<S extends Sampler = Sampler> {
   /** Label (method, target and options), used in test names and messages. */
   readonly name: string;
   /** The sampler under test, seeded. */
-  readonly make: (seed: number) => Sampler;
+  readonly make: (seed: number) => S;
+  /** Further checks on the fit test's sampler after its n draws (acceptance rate, envelope, …). */
+  readonly afterFit?: (sampler: S) => void;
   /** The deliberately biased twin (the same method on a slightly wrong target, or a wrong generator), seeded. */
   readonly biased: (seed: number) => Fills;
   /** The target's normalized cdf: an independent reference, source named by the caller. */
@@ -89,13 +91,15 @@ function fillN(source: Fills, n: number): Float64Array {
 }
 
 /** Registers the shared checks for one method on one target. */
-export function methodSuite(c: MethodSuiteCase): void {
+export function methodSuite<S extends Sampler>(c: MethodSuiteCase<S>): void {
   describe(`${c.name} (method suite)`, () => {
     it(`fits at n = ${c.n} (seed ${c.seed}); its biased twin is rejected at the same n`, () => {
-      let xs = draw(c.make(c.seed), c.n);
+      const sampler = c.make(c.seed);
+      let xs = draw(sampler, c.n);
       if (c.support !== undefined) expectInSupport(xs, c.support[0], c.support[1]);
       if (c.map !== undefined) xs = xs.map(c.map);
       expectFits(xs, c.cdf, c.name);
+      if (c.afterFit !== undefined) c.afterFit(sampler);
       let ys = fillN(c.biased(c.twinSeed ?? c.seed), c.n);
       if (c.map !== undefined) ys = ys.map(c.map);
       expectRejects(ys, c.twinCdf ?? c.cdf, `${c.name} (biased twin)`);
@@ -148,7 +152,7 @@ export function methodSuite(c: MethodSuiteCase): void {
 }
 
 /** Registers {@link methodSuite} for each case under one heading. */
-export function methodSuites(title: string, cases: readonly MethodSuiteCase[]): void {
+export function methodSuites<S extends Sampler>(title: string, cases: readonly MethodSuiteCase<S>[]): void {
   describe(title, () => {
     for (const c of cases) methodSuite(c);
   });
