@@ -71,7 +71,7 @@ export interface MethodSuiteCase<S extends Sampler = Sampler> {
   readonly twinSeed?: number;
   /** The cdf the twin's draws are tested against (default: `cdf`). */
   readonly twinCdf?: (x: number) => number;
-  /** Every fit draw must lie in this closed interval. */
+  /** Every fit draw (after `map`) must lie in this closed interval. */
   readonly support?: readonly [number, number];
   /** Transform of the draws before the fit test (e.g. exp of draws made on a log scale). */
   readonly map?: (x: number) => number;
@@ -96,8 +96,8 @@ export function methodSuite<S extends Sampler>(c: MethodSuiteCase<S>): void {
     it(`fits at n = ${c.n} (seed ${c.seed}); its biased twin is rejected at the same n`, () => {
       const sampler = c.make(c.seed);
       let xs = draw(sampler, c.n);
-      if (c.support !== undefined) expectInSupport(xs, c.support[0], c.support[1]);
       if (c.map !== undefined) xs = xs.map(c.map);
+      if (c.support !== undefined) expectInSupport(xs, c.support[0], c.support[1]);
       expectFits(xs, c.cdf, c.name);
       if (c.afterFit !== undefined) c.afterFit(sampler);
       let ys = fillN(c.biased(c.twinSeed ?? c.seed), c.n);
