@@ -57,8 +57,10 @@ export interface MethodSuiteCase<S extends Sampler = Sampler> {
   readonly name: string;
   /** The sampler under test, seeded. */
   readonly make: (seed: number) => S;
-  /** Further checks on the fit test's sampler after its n draws (acceptance rate, envelope, …). */
-  readonly afterFit?: (sampler: S) => void;
+  /** Further checks on the fit test's sampler before its draws (setup results). */
+  readonly beforeFit?: (sampler: S) => void;
+  /** Further checks on the fit test's sampler and its n draws (after `map`) once they are drawn (acceptance rate, envelope, …). */
+  readonly afterFit?: (sampler: S, draws: Float64Array) => void;
   /** The deliberately biased twin (the same method on a slightly wrong target, or a wrong generator), seeded. */
   readonly biased: (seed: number) => Fills;
   /** The target's normalized cdf: an independent reference, source named by the caller. */
@@ -95,11 +97,12 @@ export function methodSuite<S extends Sampler>(c: MethodSuiteCase<S>): void {
   describe(`${c.name} (method suite)`, () => {
     it(`fits at n = ${c.n} (seed ${c.seed}); its biased twin is rejected at the same n`, () => {
       const sampler = c.make(c.seed);
+      if (c.beforeFit !== undefined) c.beforeFit(sampler);
       let xs = draw(sampler, c.n);
       if (c.map !== undefined) xs = xs.map(c.map);
       if (c.support !== undefined) expectInSupport(xs, c.support[0], c.support[1]);
       expectFits(xs, c.cdf, c.name);
-      if (c.afterFit !== undefined) c.afterFit(sampler);
+      if (c.afterFit !== undefined) c.afterFit(sampler, xs);
       let ys = fillN(c.biased(c.twinSeed ?? c.seed), c.n);
       if (c.map !== undefined) ys = ys.map(c.map);
       expectRejects(ys, c.twinCdf ?? c.cdf, `${c.name} (biased twin)`);
