@@ -386,6 +386,15 @@ describe('piecewiseSampler: counts, stream and reproducibility', () => {
     const xs = Array.from(draw(piecewiseSampler(multimodalTruncated(), { seed: 20261201 }), 6));
     expect(xs.map((x) => x.toPrecision(12))).toEqual(SNAPSHOT);
   });
+
+  it('piecewiseSampler({ fast: true }) stream snapshot at seed 20261201, truncated and on the line (regression guard under the stream-stability policy, not a correctness check)', () => {
+    // Golden draws recorded on 2026-12-03 from the build before grid.ts was split (commit 8a06d4e) and
+    // unchanged after it: the fast path draws from a strip table built over the piecewise envelope, so a
+    // change in the grid, the pieces or the table shows here. A change is a stream change: note it in CHANGELOG.md.
+    const fast = (t: Target): number[] => Array.from(draw(piecewiseSampler(t, { seed: 20261201, fast: true }), 6));
+    expect(fast(multimodalTruncated())).toEqual([-1.1537994974435064, 0.26958939292910383, 1.0331362324927467, -0.5340082051145728, 0.47832813446921, -2.91341336446518]);
+    expect(fast(multimodalTarget())).toEqual([-0.9869182884474069, -0.21603575211494247, 1.076460404972575, -0.4478168809560613, 0.595217321555448, -1.9582468185773232]);
+  });
 });
 
 /** Recorded from this implementation (regression guard). A change here is a stream change: note it in CHANGELOG.md. */
