@@ -4,10 +4,19 @@
  */
 import { expect } from 'vitest';
 import { appendFileSync } from 'node:fs';
-const COUNT = (k: string): void => { if (process.env.S15_COUNT) appendFileSync(process.env.S15_COUNT, k + '\n'); };
 import { andersonDarlingCheck } from '../../src/checks/anderson-darling.js';
 import { ksCheck } from '../../src/checks/ks.js';
 import type { Sampler } from '../../src/core/types.js';
+
+/**
+ * Opt-in count of the statistical checks, for the false-positive rate below:
+ * `EXACTDRAW_COUNT_CHECKS=/tmp/checks.txt npx vitest run` appends one line per
+ * acceptance ('fit') and per twin ('rej') check.
+ */
+function countCheck(line: string): void {
+  const file = process.env.EXACTDRAW_COUNT_CHECKS;
+  if (file !== undefined && file !== '') appendFileSync(file, `${line}\n`);
+}
 
 /**
  * Significance level of every statistical test in this suite (project policy: 1e-4 or below).
@@ -30,7 +39,7 @@ export function draw(sampler: Sampler, n: number): Float64Array {
 
 /** Asserts that KS and Anderson–Darling both accept `draws` against `cdf` at ALPHA. */
 export function expectFits(draws: Float64Array, cdf: (x: number) => number, label = ''): void {
-  COUNT('fit ' + draws.length + ' ' + label);
+  countCheck(`fit ${draws.length} ${label}`);
   const ks = ksCheck(draws, cdf);
   const ad = andersonDarlingCheck(draws, cdf);
   expect(ks.pValue, `${label} KS p-value (D = ${ks.statistic})`).toBeGreaterThan(ALPHA);
@@ -42,7 +51,7 @@ export function expectFits(draws: Float64Array, cdf: (x: number) => number, labe
  * `draws` against `cdf` at ALPHA (the checks have power at this n).
  */
 export function expectRejects(draws: Float64Array, cdf: (x: number) => number, label = ''): void {
-  COUNT('rej ' + draws.length + ' ' + label);
+  countCheck(`rej ${draws.length} ${label}`);
   const ks = ksCheck(draws, cdf);
   const ad = andersonDarlingCheck(draws, cdf);
   expect(Math.min(ks.pValue, ad.pValue), `${label} min(KS, AD) p-value`).toBeLessThan(ALPHA);

@@ -73,7 +73,6 @@ methodSuites<ExactSampler>(
         n: N,
         seed: 101 + 2 * i,
         support: c.window,
-        stream: false, // checked on the untruncated target
       },
     ];
   }),
