@@ -15,6 +15,9 @@ import { GuideTable } from './envelope/guide-table.js';
 import { T_LOG } from './envelope/transforms.js';
 import { CLASS_NAMES, PIECEWISE_NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/cells.js';
 import { Grid } from './piecewise/grid.js';
+import { extrema, inflections } from './piecewise/classify.js';
+import { gridTables, tails } from './piecewise/cell-envelope.js';
+import { insert, refine, settle } from './piecewise/refine.js';
 import type { Tables } from './envelope/piece-tables.js';
 import { evaluateTables, pieceLogEnvelope } from './envelope/piece-tables.js';
 import { piecewiseFill } from './piecewise/kernel.js';
@@ -369,9 +372,9 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const scan = scanTarget(api, t, ev, scanPoints, breakpoints, tangent);
   if (tangent) checkDerivative(api, scan.points);
   const grid = new Grid(api, ev, tangent, scan.points, scan.lower, scan.upper, scan.centre);
-  grid.settle();
-  grid.tails();
-  const tables = grid.refine(ratio, maxPieces, REFINE_ROUNDS);
+  settle(grid);
+  tails(grid);
+  const tables = refine(grid, ratio, maxPieces, REFINE_ROUNDS);
   const counters = new Counters();
   counters.setupEvaluations = ev.evaluations;
   if (fast) return createPiecewiseTable(api, t, grid, ev, tables, counters, uniform, opts.uniform === undefined, maxRejections, ratio, strips, tailMass);
@@ -429,9 +432,9 @@ function createPiecewiseTable(
     for (const v of r.violations) {
       if (seen.has(v.x) || seen.size >= 64) continue;
       seen.add(v.x);
-      grid.insert(v.x, v.logDensity);
+      insert(grid, v.x, v.logDensity);
     }
-    tables = grid.tables();
+    tables = gridTables(grid);
     counters.setupEvaluations += ev.evaluations - before;
   }
   const built = table;
@@ -545,8 +548,8 @@ class Piecewise implements PiecewiseSampler {
     }
     this.repairs++;
     const before = this.ev.evaluations;
-    this.grid.insert(s.pendingX, s.pendingL);
-    const t = this.grid.tables();
+    insert(this.grid, s.pendingX, s.pendingL);
+    const t = gridTables(this.grid);
     this.counters.densityEvaluations += this.ev.evaluations - before;
     const guide = new GuideTable(t.n);
     guide.build(t.area, t.n);
@@ -584,8 +587,8 @@ function describe(grid: Grid, t: Tables, ratio: number, ev: Evaluator): Piecewis
     logSqueezeArea: t.logSqueezeArea,
     areaRatio: exp(t.logEnvelopeArea - t.logSqueezeArea),
     targetAreaRatio: ratio,
-    inflections: Object.freeze(grid.inflections()),
-    extrema: Object.freeze(grid.extrema()),
+    inflections: Object.freeze(inflections(grid)),
+    extrema: Object.freeze(extrema(grid)),
     tails: Object.freeze({ lower: tailName(grid.lowerTail.kind), upper: tailName(grid.upperTail.kind) }),
     derivativeEvaluations: ev.derivativeEvaluations,
     setupContradictions: grid.surprises,

@@ -3,20 +3,31 @@
  * through these so that significance, seeds and biased twins are uniform.
  */
 import { expect } from 'vitest';
+import { appendFileSync } from 'node:fs';
 import { andersonDarlingCheck } from '../../src/checks/anderson-darling.js';
 import { ksCheck } from '../../src/checks/ks.js';
 import type { Sampler } from '../../src/core/types.js';
 
 /**
+ * Opt-in count of the statistical checks, for the false-positive rate below:
+ * `EXACTDRAW_COUNT_CHECKS=/tmp/checks.txt npx vitest run` appends one line per
+ * acceptance ('fit') and per twin ('rej') check.
+ */
+function countCheck(line: string): void {
+  const file = process.env.EXACTDRAW_COUNT_CHECKS;
+  if (file !== undefined && file !== '') appendFileSync(file, `${line}\n`);
+}
+
+/**
  * Significance level of every statistical test in this suite (project policy: 1e-4 or below).
  *
- * Suite-wide false-positive rate: a full run makes about 230 acceptance
- * checks at ALPHA (108 calls of expectFits, two tests each, counted by
- * instrumenting a run of the suite on 2026-12-02, plus 6 direct p-value
- * checks) and 31 binomial rate checks at z = 4.4 (two-sided 1.1e-5 each), so
- * a correct implementation fails with probability at most about
- * 230·1e-4 + 31·1.1e-5 ≈ 2.3 % (union bound) for a fresh choice of all
- * seeds. With the fixed seeds a run is deterministic: a failure is
+ * Suite-wide false-positive rate: a full run makes about 440 acceptance
+ * checks at ALPHA (217 calls of expectFits, two tests each, counted with
+ * EXACTDRAW_COUNT_CHECKS in the `npm test` run of 2026-12-03, plus 6 direct
+ * p-value checks) and 31 binomial rate checks at z = 4.4 (two-sided 1.1e-5
+ * each; counted on 2026-12-02), so a correct implementation fails with
+ * probability at most about 440·1e-4 + 31·1.1e-5 ≈ 4.4 % (union bound) for a
+ * fresh choice of all seeds. With the fixed seeds a run is deterministic: a failure is
  * reproducible, and a seed is never changed to make a test pass.
  */
 export const ALPHA = 1e-4;
@@ -28,6 +39,7 @@ export function draw(sampler: Sampler, n: number): Float64Array {
 
 /** Asserts that KS and Anderson–Darling both accept `draws` against `cdf` at ALPHA. */
 export function expectFits(draws: Float64Array, cdf: (x: number) => number, label = ''): void {
+  countCheck(`fit ${draws.length} ${label}`);
   const ks = ksCheck(draws, cdf);
   const ad = andersonDarlingCheck(draws, cdf);
   expect(ks.pValue, `${label} KS p-value (D = ${ks.statistic})`).toBeGreaterThan(ALPHA);
@@ -39,6 +51,7 @@ export function expectFits(draws: Float64Array, cdf: (x: number) => number, labe
  * `draws` against `cdf` at ALPHA (the checks have power at this n).
  */
 export function expectRejects(draws: Float64Array, cdf: (x: number) => number, label = ''): void {
+  countCheck(`rej ${draws.length} ${label}`);
   const ks = ksCheck(draws, cdf);
   const ad = andersonDarlingCheck(draws, cdf);
   expect(Math.min(ks.pValue, ad.pValue), `${label} min(KS, AD) p-value`).toBeLessThan(ALPHA);

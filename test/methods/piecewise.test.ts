@@ -24,6 +24,7 @@ import {
 } from '../../src/index.js';
 import type { PiecewiseOptions, PiecewiseSampler, Target } from '../../src/index.js';
 import { MULTIMODAL, multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../helpers/fixtures.js';
+import { methodSuite, methodSuites } from '../helpers/method-suite.js';
 import { quadratureCdf } from '../helpers/quadrature.js';
 import { draw, expectFits, expectInSupport, expectRate, expectRejects, expectReproducible } from '../helpers/statistical.js';
 
@@ -92,14 +93,19 @@ describe('piecewiseSampler: the worked example f(x) = exp(−x²/2)(sin²6x + 3c
       expectInSupport(xs, lo, hi);
     });
 
-    for (const derivativeFree of [false, true]) {
-      it(`piecewiseSampler ${label} (${derivativeFree ? 'secant' : 'tangent'}): KS and AD accept against the quadrature cdf; a shifted target is rejected`, () => {
-        const opts: PiecewiseOptions = { seed: 7, derivativeFree };
-        expectFits(draw(piecewiseSampler(make(), opts), N), ref.cdf, label);
-        // biased twin: the same method on the example shifted by 0.03 (cdf differs by ≈ 0.02)
-        expectRejects(draw(piecewiseSampler(shiftedMultimodal(0.03, lo === -3), opts), N), ref.cdf, `${label} shifted`);
-      });
-    }
+    // biased twin: the same method on the example shifted by 0.03 (cdf differs by ≈ 0.02)
+    methodSuites(
+      `piecewiseSampler ${label}: KS and AD accept against the quadrature cdf; a shifted target is rejected`,
+      [false, true].map((derivativeFree) => ({
+        name: `piecewiseSampler ${label} (${derivativeFree ? 'secant' : 'tangent'})`,
+        make: (seed: number) => piecewiseSampler(make(), { seed, derivativeFree }),
+        biased: (seed: number) => piecewiseSampler(shiftedMultimodal(0.03, lo === -3), { seed, derivativeFree }),
+        cdf: ref.cdf,
+        n: N,
+        seed: 7,
+        stream: lo === -3, // the build on the line is slow; its stream is checked in 'counts, stream and reproducibility'
+      })),
+    );
   }
 
   it('plain rejection for comparison: C = 25 with U(−3, 3) accepts Z/25 ≈ 0.235, C = 11 with N(0, 1) accepts Z/11 ≈ 0.536', () => {
@@ -129,31 +135,35 @@ describe('piecewiseSampler: mixtures, a narrow spike, heavy tails', () => {
     ['three normals, separated, very different widths', normalMixture([0.2, 0.5, 0.3], [-10, 0, 12], [0.5, 3, 0.2]), normalMixture([0.2, 0.47, 0.33], [-10, 0, 12], [0.5, 3, 0.2])],
     ['three normals, overlapping', normalMixture([1, 1, 1], [-1, 0, 1.5], [0.6, 0.5, 0.8]), normalMixture([1, 1, 1], [-1, 0.2, 1.5], [0.6, 0.5, 0.8])],
   ];
-  for (const [label, mix, twin] of cases) {
-    for (const derivativeFree of [false, true]) {
-      it(`piecewiseSampler, ${label} (${derivativeFree ? 'secant' : 'tangent'}): KS and AD accept (cdf: @stdlib normal); the twin is rejected`, () => {
-        const opts: PiecewiseOptions = { seed: 11, derivativeFree };
-        const s = piecewiseSampler(mix.target, opts);
-        expectFits(draw(s, N), mix.cdf, label);
-        expect(s.stats.acceptanceRate).toBeGreaterThan(0.95); // requirement (issue 5), as above
-        expectRejects(draw(piecewiseSampler(twin.target, opts), N), mix.cdf, `${label} twin`);
-      });
-    }
-  }
+  methodSuites(
+    'piecewiseSampler on normal mixtures: KS and AD accept (cdf: @stdlib normal); the twin is rejected',
+    cases.flatMap(([label, mix, twin]) =>
+      [false, true].map((derivativeFree) => ({
+        name: `piecewiseSampler, ${label} (${derivativeFree ? 'secant' : 'tangent'})`,
+        make: (seed: number) => piecewiseSampler(mix.target, { seed, derivativeFree }),
+        afterFit: (s: PiecewiseSampler) => expect(s.stats.acceptanceRate).toBeGreaterThan(0.95), // requirement (issue 5), as above
+        biased: (seed: number) => piecewiseSampler(twin.target, { seed, derivativeFree }),
+        cdf: mix.cdf,
+        n: N,
+        seed: 11,
+      })),
+    ),
+  );
 
   /** 0.4·Gamma(2, 1) + 0.6·Gamma(shape2, 1), written here. */
   function gammaMixture(shape2: number): Target {
     const gl = (x: number, k: number): number => (x > 0 && x < Infinity ? (k - 1) * Math.log(x) - x - gammaln(k) : -Infinity);
     return { logDensity: (x: number) => lse([Math.log(0.4) + gl(x, 2), Math.log(0.6) + gl(x, shape2)]), support: [0, Infinity] };
   }
-  it('piecewiseSampler, a mixture of gamma shapes 2 and 12: KS and AD accept (cdf: @stdlib gamma, shapes < 1000); shape 12.8 is rejected', () => {
-    const cdf = (x: number): number => 0.4 * gammaCdf(x, 2, 1) + 0.6 * gammaCdf(x, 12, 1);
-    const s = piecewiseSampler(gammaMixture(12), { seed: 5 });
-    const xs = draw(s, N);
-    expectFits(xs, cdf, 'gamma mixture');
-    expectInSupport(xs, 0, Infinity);
-    expect(s.envelope.tails).toEqual({ lower: 'none', upper: 'exponential' });
-    expectRejects(draw(piecewiseSampler(gammaMixture(12.8), { seed: 5 }), N), cdf, 'gamma mixture twin');
+  methodSuite({
+    name: 'piecewiseSampler, a mixture of gamma shapes 2 and 12 (cdf: @stdlib gamma, shapes < 1000; twin: shape 12.8)',
+    make: (seed) => piecewiseSampler(gammaMixture(12), { seed }),
+    afterFit: (s) => expect(s.envelope.tails).toEqual({ lower: 'none', upper: 'exponential' }),
+    biased: (seed) => piecewiseSampler(gammaMixture(12.8), { seed }),
+    cdf: (x) => 0.4 * gammaCdf(x, 2, 1) + 0.6 * gammaCdf(x, 12, 1),
+    n: N,
+    seed: 5,
+    support: [0, Infinity],
   });
 
   /** 0.8·Beta(2, 2) + 0.2·N(at, 0.001) on [0, 1]: a spike of width 1e-3 of the support. */
@@ -165,28 +175,35 @@ describe('piecewiseSampler: mixtures, a narrow spike, heavy tails', () => {
     };
   }
   const spikeCdf = (x: number): number => 0.8 * betaCdf(x, 2, 2) + 0.2 * normalCdf(x, 0.3127, 1e-3); // @stdlib; normal mass outside [0, 1] < 1e-300
-  it('piecewiseSampler, a spike of width 1e-3 on a smooth density: KS and AD accept; the spike moved by 3 widths is rejected', () => {
-    const s = piecewiseSampler(spike(0.3127), { seed: 9 });
-    const xs = draw(s, N);
-    expectFits(xs, spikeCdf, 'spike');
-    expectInSupport(xs, 0, 1);
-    expectRejects(draw(piecewiseSampler(spike(0.3157), { seed: 9 }), N), spikeCdf, 'spike moved');
+  methodSuite({
+    name: 'piecewiseSampler, a spike of width 1e-3 on a smooth density (twin: the spike moved by 3 widths)',
+    make: (seed) => piecewiseSampler(spike(0.3127), { seed }),
+    biased: (seed) => piecewiseSampler(spike(0.3157), { seed }),
+    cdf: spikeCdf,
+    n: N,
+    seed: 9,
+    support: [0, 1],
   });
 
-  it('piecewiseSampler, the spike with a coarse scan but its location as a breakpoint: KS and AD accept; without the spike the draws are rejected', () => {
-    const s = piecewiseSampler(spike(0.3127), { seed: 9, scanPoints: 16, breakpoints: [0.3127] });
-    expectFits(draw(s, N), spikeCdf, 'spike with breakpoint');
-    // twin: the smooth part alone (what a sampler blind to the spike would give)
-    const base: Target = { logDensity: (x: number) => (x >= 0 && x <= 1 ? Math.log(6 * x * (1 - x)) : -Infinity), support: [0, 1] };
-    expectRejects(draw(piecewiseSampler(base, { seed: 9 }), N), spikeCdf, 'no spike');
+  // twin: the smooth part alone (what a sampler blind to the spike would give)
+  const base: Target = { logDensity: (x: number) => (x >= 0 && x <= 1 ? Math.log(6 * x * (1 - x)) : -Infinity), support: [0, 1] };
+  methodSuite({
+    name: 'piecewiseSampler, the spike with a coarse scan but its location as a breakpoint (twin: without the spike)',
+    make: (seed) => piecewiseSampler(spike(0.3127), { seed, scanPoints: 16, breakpoints: [0.3127] }),
+    biased: (seed) => piecewiseSampler(base, { seed }),
+    cdf: spikeCdf,
+    n: N,
+    seed: 9,
   });
 
-  it('piecewiseSampler, Student-t(3): inverse-sqrt tails (Hörmann 1995); KS and AD accept (cdf: @stdlib t); t(2.2) is rejected', () => {
-    const s = piecewiseSampler(studentTTarget(3), { seed: 13 });
-    expect(s.envelope.tails).toEqual({ lower: 'inverse-sqrt', upper: 'inverse-sqrt' });
-    const cdf = (x: number): number => tCdf(x, 3);
-    expectFits(draw(s, N), cdf, 't3');
-    expectRejects(draw(piecewiseSampler(studentTTarget(2.2), { seed: 13 }), N), cdf, 't2.2');
+  methodSuite({
+    name: 'piecewiseSampler, Student-t(3): inverse-sqrt tails (Hörmann 1995; cdf: @stdlib t; twin: t(2.2))',
+    make: (seed) => piecewiseSampler(studentTTarget(3), { seed }),
+    afterFit: (s) => expect(s.envelope.tails).toEqual({ lower: 'inverse-sqrt', upper: 'inverse-sqrt' }),
+    biased: (seed) => piecewiseSampler(studentTTarget(2.2), { seed }),
+    cdf: (x) => tCdf(x, 3),
+    n: N,
+    seed: 13,
   });
 });
 
@@ -369,6 +386,15 @@ describe('piecewiseSampler: counts, stream and reproducibility', () => {
   it('piecewiseSampler stream snapshot at seed 20261201 (regression guard: values recorded from this implementation, not a correctness check)', () => {
     const xs = Array.from(draw(piecewiseSampler(multimodalTruncated(), { seed: 20261201 }), 6));
     expect(xs.map((x) => x.toPrecision(12))).toEqual(SNAPSHOT);
+  });
+
+  it('piecewiseSampler({ fast: true }) stream snapshot at seed 20261201, truncated and on the line (regression guard under the stream-stability policy, not a correctness check)', () => {
+    // Golden draws recorded on 2026-12-03 from the build before grid.ts was split (commit 8a06d4e) and
+    // unchanged after it: the fast path draws from a strip table built over the piecewise envelope, so a
+    // change in the grid, the pieces or the table shows here. A change is a stream change: note it in CHANGELOG.md.
+    const fast = (t: Target): number[] => Array.from(draw(piecewiseSampler(t, { seed: 20261201, fast: true }), 6));
+    expect(fast(multimodalTruncated())).toEqual([-1.1537994974435064, 0.26958939292910383, 1.0331362324927467, -0.5340082051145728, 0.47832813446921, -2.91341336446518]);
+    expect(fast(multimodalTarget())).toEqual([-0.9869182884474069, -0.21603575211494247, 1.076460404972575, -0.4478168809560613, 0.595217321555448, -1.9582468185773232]);
   });
 });
 

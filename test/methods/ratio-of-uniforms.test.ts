@@ -20,8 +20,9 @@ import {
   studentTTarget,
   truncate,
 } from '../../src/index.js';
-import type { RatioOfUniformsOptions, Target, Uniform } from '../../src/index.js';
+import type { RatioOfUniformsOptions, RatioOfUniformsSampler, Target, Uniform } from '../../src/index.js';
 import { DEFAULT_MAX_REJECTIONS } from '../../src/core/counters.js';
+import { methodSuite, methodSuites } from '../helpers/method-suite.js';
 import { draw, expectFits, expectInSupport, expectRate, expectRejects, expectReproducible } from '../helpers/statistical.js';
 
 const N = 20_000;
@@ -130,97 +131,116 @@ describe('ratioOfUniformsSampler: acceptance against closed forms (r = 1, shift 
   });
 });
 
-describe('ratioOfUniformsSampler: goodness of fit (KS + AD at ALPHA, fixed seeds) with biased twins', () => {
-  it('ratioOfUniformsSampler(normal(0, 1)) fits the @stdlib normal cdf; a clipped rectangle does not', () => {
-    const cdf = (x: number) => normalCdf(x, 0, 1);
-    expectFits(draw(ratioOfUniformsSampler(normalTarget(0, 1), { seed: 411 }), N), cdf, 'normal');
-    expectRejects(clippedNormalRoU(mersenneTwister(411), N), cdf, 'normal, clipped v-bound');
-  });
+const p1 = normalCdf(1, 0, 1);
+const p3 = normalCdf(3, 0, 1);
+const rate105: Target = { logDensity: (x: number) => (x >= 0 ? -1.05 * x : -Infinity), support: [0, Infinity] };
+const tinyNormal: Target = {
+  logDensity: (x: number) => {
+    const z = (x - 1e4) / 1e-9;
+    return -0.5 * z * z - 700;
+  },
+};
+const tinyNormalTwin: Target = { logDensity: (x: number) => -0.5 * ((x - 1e4) / 1.08e-9) ** 2 - 700 };
+const wideCauchy: Target = { logDensity: (x: number) => -Math.log1p((x / 1.1) ** 2) };
 
-  it('ratioOfUniformsSampler(normal(3, 2)) with a shift away from the mode is still exact', () => {
-    const cdf = (x: number) => normalCdf(x, 3, 2);
-    const s = ratioOfUniformsSampler(normalTarget(3, 2), { shift: 5, seed: 412 });
-    expect(s.region.shift).toBe(5);
-    expectFits(draw(s, N), cdf, 'normal shifted');
-    expectRejects(draw(ratioOfUniformsSampler(normalTarget(3, 2.1), { shift: 5, seed: 412 }), N), cdf, 'normal sd 2.1');
-  });
-
-  for (const [df, twinDf, seed] of [
+methodSuites<RatioOfUniformsSampler>('ratioOfUniformsSampler: goodness of fit (KS + AD at ALPHA, fixed seeds) with biased twins', [
+  {
+    // twin: a hand-written ratio-of-uniforms with a clipped v-bound
+    name: 'ratioOfUniformsSampler(normal(0, 1)) (cdf: @stdlib normal; twin: a clipped rectangle)',
+    make: (seed) => ratioOfUniformsSampler(normalTarget(0, 1), { seed }),
+    biased: (seed) => ({
+      fill: (out: Float64Array): Float64Array => {
+        out.set(clippedNormalRoU(mersenneTwister(seed), out.length));
+        return out;
+      },
+    }),
+    cdf: (x) => normalCdf(x, 0, 1),
+    n: N,
+    seed: 411,
+  },
+  {
+    name: 'ratioOfUniformsSampler(normal(3, 2)) with a shift away from the mode is still exact (twin: sd 2.1)',
+    make: (seed) => ratioOfUniformsSampler(normalTarget(3, 2), { shift: 5, seed }),
+    afterFit: (s) => expect(s.region.shift).toBe(5),
+    biased: (seed) => ratioOfUniformsSampler(normalTarget(3, 2.1), { shift: 5, seed }),
+    cdf: (x) => normalCdf(x, 3, 2),
+    n: N,
+    seed: 412,
+  },
+  ...([
     [2, 1.6, 413],
     [5, 3.5, 414],
-  ] as const) {
-    it(`ratioOfUniformsSampler(studentT(${df})) fits the @stdlib t cdf; t(${twinDf}) does not`, () => {
-      const cdf = (x: number) => tCdf(x, df);
-      expectFits(draw(ratioOfUniformsSampler(studentTTarget(df), { seed }), N), cdf, `t(${df})`);
-      expectRejects(draw(ratioOfUniformsSampler(studentTTarget(twinDf), { seed }), N), cdf, `t(${twinDf}) vs t(${df})`);
-    });
-  }
-
-  it('ratioOfUniformsSampler(studentT(0.5), power 3) samples a tail too heavy for r = 1', () => {
+  ] as const).map(([df, twinDf, seed]) => ({
+    name: `ratioOfUniformsSampler(studentT(${df})) fits the @stdlib t cdf; t(${twinDf}) does not`,
+    make: (sd: number) => ratioOfUniformsSampler(studentTTarget(df), { seed: sd }),
+    biased: (sd: number) => ratioOfUniformsSampler(studentTTarget(twinDf), { seed: sd }),
+    cdf: (x: number) => tCdf(x, df),
+    n: N,
+    seed,
+  })),
+  {
     // Tail ~ |x|^(−1.5) needs r ≥ 1/(1.5 − 1) = 2 (Wakefield, Gelfand & Smith 1991; see the bound derivation in the source).
-    expect(() => ratioOfUniformsSampler(studentTTarget(0.5))).toThrow(InvalidTargetError);
-    const cdf = (x: number) => tCdf(x, 0.5); // @stdlib t cdf, checked at df 0.5 in test/reference/README.md
-    expectFits(draw(ratioOfUniformsSampler(studentTTarget(0.5), { power: 3, seed: 415 }), N), cdf, 't(0.5) r=3');
-    expectRejects(draw(ratioOfUniformsSampler(studentTTarget(0.4), { power: 3, seed: 415 }), N), cdf, 't(0.4) vs t(0.5)');
-  });
-
-  it('ratioOfUniformsSampler(Cauchy) fits 1/2 + atan(x)/π; scale 1.1 does not', () => {
-    expectFits(draw(ratioOfUniformsSampler(cauchy, { seed: 416 }), N), cauchyCdf, 'Cauchy');
-    const wide: Target = { logDensity: (x: number) => -Math.log1p((x / 1.1) ** 2) };
-    expectRejects(draw(ratioOfUniformsSampler(wide, { seed: 416 }), N), cauchyCdf, 'Cauchy scale 1.1');
-  });
-
-  for (const [mu, sigma, power, twinSigma, seed] of [
+    name: 'ratioOfUniformsSampler(studentT(0.5), power 3) samples a tail too heavy for r = 1 (twin: t(0.4))',
+    make: (seed) => ratioOfUniformsSampler(studentTTarget(0.5), { power: 3, seed }),
+    biased: (seed) => ratioOfUniformsSampler(studentTTarget(0.4), { power: 3, seed }),
+    cdf: (x) => tCdf(x, 0.5), // @stdlib t cdf, checked at df 0.5 in test/reference/README.md
+    n: N,
+    seed: 415,
+  },
+  {
+    name: 'ratioOfUniformsSampler(Cauchy) fits 1/2 + atan(x)/π; scale 1.1 does not',
+    make: (seed) => ratioOfUniformsSampler(cauchy, { seed }),
+    biased: (seed) => ratioOfUniformsSampler(wideCauchy, { seed }),
+    cdf: cauchyCdf,
+    n: N,
+    seed: 416,
+  },
+  ...([
     [0.5, 0.6, 1, 0.64, 417],
     [0, 1.5, 2, 1.6, 418],
-  ] as const) {
-    it(`ratioOfUniformsSampler(lognormal-shaped mu=${mu} sigma=${sigma}, power ${power}) fits; sigma ${twinSigma} does not`, () => {
-      const cdf = lognormalCdf(mu, sigma);
-      const s = ratioOfUniformsSampler(lognormalShaped(mu, sigma), { power, seed });
-      const xs = draw(s, N);
-      expectInSupport(xs, 0, Infinity);
-      expectFits(xs, cdf, 'lognormal-shaped');
-      // The numerically found shift is the mode exp(mu − sigma²) (closed form of the lognormal mode).
-      expect(Math.abs(s.region.shift / Math.exp(mu - sigma * sigma) - 1)).toBeLessThan(1e-6);
-      expectRejects(draw(ratioOfUniformsSampler(lognormalShaped(mu, twinSigma), { power, seed }), N), cdf, 'lognormal-shaped twin');
-    });
-  }
+  ] as const).map(([mu, sigma, power, twinSigma, seed]) => ({
+    name: `ratioOfUniformsSampler(lognormal-shaped mu=${mu} sigma=${sigma}, power ${power}) fits; sigma ${twinSigma} does not`,
+    make: (sd: number) => ratioOfUniformsSampler(lognormalShaped(mu, sigma), { power, seed: sd }),
+    // The numerically found shift is the mode exp(mu − sigma²) (closed form of the lognormal mode).
+    afterFit: (s: RatioOfUniformsSampler) => expect(Math.abs(s.region.shift / Math.exp(mu - sigma * sigma) - 1)).toBeLessThan(1e-6),
+    biased: (sd: number) => ratioOfUniformsSampler(lognormalShaped(mu, twinSigma), { power, seed: sd }),
+    cdf: lognormalCdf(mu, sigma),
+    n: N,
+    seed,
+    support: [0, Infinity] as const,
+  })),
+  {
+    name: 'ratioOfUniformsSampler(truncate(normal(0, 1), 1, 3)) stays in [1, 3] and fits the truncated @stdlib cdf (twin: sd 1.2)',
+    make: (seed) => ratioOfUniformsSampler(truncate(normalTarget(0, 1), 1, 3), { seed }),
+    biased: (seed) => ratioOfUniformsSampler(truncate(normalTarget(0, 1.2), 1, 3), { seed }),
+    cdf: (x) => (x <= 1 ? 0 : x >= 3 ? 1 : (normalCdf(x, 0, 1) - p1) / (p3 - p1)),
+    n: N,
+    seed: 419,
+    support: [1, 3],
+  },
+  {
+    name: 'ratioOfUniformsSampler(exponential) with the shift outside the support is still exact (twin: rate 1.05)',
+    make: (seed) => ratioOfUniformsSampler(exponential, { shift: -1, seed }),
+    afterFit: (s) => expect(s.region.scaledVMin).toBe(0), // no support below the shift
+    biased: (seed) => ratioOfUniformsSampler(rate105, { shift: -1, seed }),
+    cdf: (x) => (x > 0 ? -Math.expm1(-x) : 0), // 1 − e^(−x), closed form
+    n: N,
+    seed: 420,
+    support: [0, Infinity],
+  },
+  {
+    name: 'ratioOfUniformsSampler works in log space: sd 1e-9 at location 1e4 with densities near 1e-304 (twin: sd 1.08e-9)',
+    make: (seed) => ratioOfUniformsSampler(tinyNormal, { seed }),
+    afterFit: (s) => expect(s.region.logDensityMax).toBe(-700),
+    biased: (seed) => ratioOfUniformsSampler(tinyNormalTwin, { seed }),
+    cdf: (x) => normalCdf((x - 1e4) / 1e-9, 0, 1),
+    n: N,
+    seed: 421,
+  },
+]);
 
-  it('ratioOfUniformsSampler(truncate(normal(0, 1), 1, 3)) stays in [1, 3] and fits the truncated @stdlib cdf', () => {
-    const p1 = normalCdf(1, 0, 1);
-    const p3 = normalCdf(3, 0, 1);
-    const cdf = (x: number) => (x <= 1 ? 0 : x >= 3 ? 1 : (normalCdf(x, 0, 1) - p1) / (p3 - p1));
-    const xs = draw(ratioOfUniformsSampler(truncate(normalTarget(0, 1), 1, 3), { seed: 419 }), N);
-    expectInSupport(xs, 1, 3);
-    expectFits(xs, cdf, 'truncated normal');
-    expectRejects(draw(ratioOfUniformsSampler(truncate(normalTarget(0, 1.2), 1, 3), { seed: 419 }), N), cdf, 'truncated sd 1.2');
-  });
-
-  it('ratioOfUniformsSampler(exponential) with the shift outside the support is still exact', () => {
-    const cdf = (x: number) => (x > 0 ? -Math.expm1(-x) : 0); // 1 − e^(−x), closed form
-    const s = ratioOfUniformsSampler(exponential, { shift: -1, seed: 420 });
-    expect(s.region.scaledVMin).toBe(0); // no support below the shift
-    const xs = draw(s, N);
-    expectInSupport(xs, 0, Infinity);
-    expectFits(xs, cdf, 'exponential shift −1');
-    const rate12: Target = { logDensity: (x: number) => (x >= 0 ? -1.05 * x : -Infinity), support: [0, Infinity] };
-    expectRejects(draw(ratioOfUniformsSampler(rate12, { shift: -1, seed: 420 }), N), cdf, 'exponential rate 1.05');
-  });
-
-  it('ratioOfUniformsSampler works in log space: sd 1e-9 at location 1e4 with densities near 1e-304', () => {
-    const target: Target = {
-      logDensity: (x: number) => {
-        const z = (x - 1e4) / 1e-9;
-        return -0.5 * z * z - 700;
-      },
-    };
-    const cdf = (x: number) => normalCdf((x - 1e4) / 1e-9, 0, 1);
-    const s = ratioOfUniformsSampler(target, { seed: 421 });
-    expectFits(draw(s, N), cdf, 'tiny normal');
-    expect(s.region.logDensityMax).toBe(-700);
-    const twin: Target = { logDensity: (x: number) => -0.5 * ((x - 1e4) / 1.08e-9) ** 2 - 700 };
-    expectRejects(draw(ratioOfUniformsSampler(twin, { seed: 421 }), N), cdf, 'tiny normal sd 1.08e-9');
-  });
+it('ratioOfUniformsSampler(studentT(0.5)) with the default power 1 is refused (the tail is too heavy for r = 1)', () => {
+  expect(() => ratioOfUniformsSampler(studentTTarget(0.5))).toThrow(InvalidTargetError);
 });
 
 describe('ratioOfUniformsSampler: densities unbounded at an end are refused (no power r bounds sup f)', () => {
@@ -238,38 +258,41 @@ describe('ratioOfUniformsSampler: densities unbounded at an end are refused (no 
     }
   }
 
-  it('the recommended route for gamma(0.5): sample Y = log X with ratio-of-uniforms, X = e^Y fits P(1/2, x) = erf(√x)', () => {
-    // P(1/2, x) = erf(√x) = 1 − erfc(√x) (standard identity, from memory; Abramowitz & Stegun ch. 6),
-    // computed with @stdlib erfc: independent of the @stdlib gamma cdf, which test/reference/README.md checked only at shape ≥ 2.5.
-    const cdf = (x: number) => (x > 0 ? 1 - erfc(Math.sqrt(x)) : 0);
-    const ys = draw(ratioOfUniformsSampler(logTransformed(gammaTarget(0.5)), { seed: 431 }), N);
-    expectFits(ys.map(Math.exp), cdf, 'gamma(0.5) via log');
-    const twin = draw(ratioOfUniformsSampler(logTransformed(gammaTarget(0.56)), { seed: 431 }), N);
-    expectRejects(twin.map(Math.exp), cdf, 'gamma(0.56) vs gamma(0.5)');
-  });
-
-  it('the recommended route for beta(0.7, 3): Y = log X fits the @stdlib beta cdf', () => {
-    const cdf = (x: number) => (x <= 0 ? 0 : x >= 1 ? 1 : betaCdf(x, 0.7, 3));
-    const ys = draw(ratioOfUniformsSampler(logTransformed(betaTarget(0.7, 3), 1), { seed: 432 }), N);
-    const xs = ys.map(Math.exp);
-    expectInSupport(xs, 0, 1);
-    expectFits(xs, cdf, 'beta(0.7, 3) via log');
-    const twin = draw(ratioOfUniformsSampler(logTransformed(betaTarget(0.77, 3), 1), { seed: 432 }), N);
-    expectRejects(twin.map(Math.exp), cdf, 'beta(0.77, 3) vs beta(0.7, 3)');
-  });
-
-  it('beta(1, 3) and beta(3, 1) (finite maximum at an end) are sampled, within [0, 1]; shape 3.3 twins are not', () => {
-    for (const [a, b, ta, tb] of [
+  methodSuites('the recommended routes, and finite maxima at an end', [
+    {
+      // P(1/2, x) = erf(√x) = 1 − erfc(√x) (standard identity, from memory; Abramowitz & Stegun ch. 6),
+      // computed with @stdlib erfc: independent of the @stdlib gamma cdf, which test/reference/README.md checked only at shape ≥ 2.5.
+      name: 'the recommended route for gamma(0.5): sample Y = log X with ratio-of-uniforms, X = e^Y fits P(1/2, x) = erf(√x) (twin: gamma(0.56))',
+      make: (seed) => ratioOfUniformsSampler(logTransformed(gammaTarget(0.5)), { seed }),
+      biased: (seed) => ratioOfUniformsSampler(logTransformed(gammaTarget(0.56)), { seed }),
+      map: Math.exp,
+      cdf: (x) => (x > 0 ? 1 - erfc(Math.sqrt(x)) : 0),
+      n: N,
+      seed: 431,
+    },
+    {
+      name: 'the recommended route for beta(0.7, 3): Y = log X fits the @stdlib beta cdf (twin: beta(0.77, 3))',
+      make: (seed) => ratioOfUniformsSampler(logTransformed(betaTarget(0.7, 3), 1), { seed }),
+      biased: (seed) => ratioOfUniformsSampler(logTransformed(betaTarget(0.77, 3), 1), { seed }),
+      map: Math.exp,
+      cdf: (x) => (x <= 0 ? 0 : x >= 1 ? 1 : betaCdf(x, 0.7, 3)),
+      n: N,
+      seed: 432,
+      support: [0, 1],
+    },
+    ...([
       [1, 3, 1, 3.3],
       [3, 1, 3.3, 1],
-    ] as const) {
-      const cdf = (x: number) => betaCdf(x, a, b);
-      const xs = draw(ratioOfUniformsSampler(betaTarget(a, b), { seed: 433 }), N);
-      expectInSupport(xs, 0, 1);
-      expectFits(xs, cdf, `beta(${a}, ${b})`);
-      expectRejects(draw(ratioOfUniformsSampler(betaTarget(ta, tb), { seed: 433 }), N), cdf, `beta(${ta}, ${tb}) vs beta(${a}, ${b})`);
-    }
-  });
+    ] as const).map(([a, b, ta, tb]) => ({
+      name: `beta(${a}, ${b}) (finite maximum at an end) is sampled within [0, 1]; the beta(${ta}, ${tb}) twin is not`,
+      make: (seed: number) => ratioOfUniformsSampler(betaTarget(a, b), { seed }),
+      biased: (seed: number) => ratioOfUniformsSampler(betaTarget(ta, tb), { seed }),
+      cdf: (x: number) => betaCdf(x, a, b),
+      n: N,
+      seed: 433,
+      support: [0, 1] as const,
+    })),
+  ]);
 });
 
 describe('ratioOfUniformsSampler: tails too heavy for the power', () => {
@@ -289,10 +312,13 @@ describe('ratioOfUniformsSampler: tails too heavy for the power', () => {
     expect(msg).toMatch(/choose power >= 1\/\(α − 1\) ≈ 1\.00/);
   });
 
-  it('Cauchy with power 2 is exact (larger r bounds heavier tails); scale 1.1 is rejected', () => {
-    expectFits(draw(ratioOfUniformsSampler(cauchy, { power: 2, seed: 441 }), N), cauchyCdf, 'Cauchy r=2');
-    const wide: Target = { logDensity: (x: number) => -Math.log1p((x / 1.1) ** 2) };
-    expectRejects(draw(ratioOfUniformsSampler(wide, { power: 2, seed: 441 }), N), cauchyCdf, 'Cauchy scale 1.1, r=2');
+  methodSuite({
+    name: 'Cauchy with power 2 is exact (larger r bounds heavier tails); scale 1.1 is rejected',
+    make: (seed) => ratioOfUniformsSampler(cauchy, { power: 2, seed }),
+    biased: (seed) => ratioOfUniformsSampler(wideCauchy, { power: 2, seed }),
+    cdf: cauchyCdf,
+    n: N,
+    seed: 441,
   });
 
   it('a lower tail too heavy is named as such', () => {

@@ -21,6 +21,7 @@ import {
 } from '../../src/index.js';
 import type { Proposal, Target, Uniform } from '../../src/index.js';
 import { MULTIMODAL, multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../helpers/fixtures.js';
+import { methodSuite, methodSuites } from '../helpers/method-suite.js';
 import { quadratureCdf } from '../helpers/quadrature.js';
 import { draw, expectFits, expectInSupport, expectRate, expectRejects, expectReproducible } from '../helpers/statistical.js';
 
@@ -96,33 +97,41 @@ describe('rejectionSampler: distribution (KS and Anderson–Darling at 1e-4) wit
       twinLogC: -0.3,
     },
   ];
-  cases.forEach((c, i) => {
-    it(`rejectionSampler fits ${c.name}`, () => {
-      const s = rejectionSampler(c.target, { proposal: c.proposal, seed: 200 + i });
-      const xs = draw(s, N);
-      const sup = c.target.support ?? [-Infinity, Infinity];
-      expectInSupport(xs, sup[0], sup[1]);
-      expectFits(xs, c.cdf, c.name);
-    });
-    it(`biased twin: clipped hand-written rejection for ${c.name} is rejected`, () => {
-      const logC = findLogBound(c.target, c.proposal).logBound + c.twinLogC - 0.7;
-      const xs = clippedRejection((x) => c.target.logDensity(x), c.proposal, logC, mersenneTwister(300 + i), N);
-      expectRejects(xs, c.cdf, c.name);
-    });
+  const clipped = (logf: (x: number) => number, proposal: Proposal, logC: () => number) => (seed: number) => ({
+    fill: (out: Float64Array): Float64Array => {
+      out.set(clippedRejection(logf, proposal, logC(), mersenneTwister(seed), out.length));
+      return out;
+    },
   });
+  // biased twins: clipped hand-written rejection (C below the bound) with the same proposal
+  methodSuites(
+    'rejectionSampler on four targets (method suite)',
+    cases.map((c, i) => ({
+      name: `rejectionSampler(${c.name})`,
+      make: (seed: number) => rejectionSampler(c.target, { proposal: c.proposal, seed }),
+      biased: clipped((x) => c.target.logDensity(x), c.proposal, () => findLogBound(c.target, c.proposal).logBound + c.twinLogC - 0.7),
+      cdf: c.cdf,
+      n: N,
+      seed: 200 + i,
+      twinSeed: 300 + i,
+      support: c.target.support ?? [-Infinity, Infinity],
+    })),
+  );
 
   // cdf of the worked example by Simpson quadrature (independent of the sampler).
   const line = quadratureCdf(multimodalLogDensity, -10, 10);
   it('quadrature reference reproduces Z = 5.894340 (test/reference/README.md, by quadrature)', () => {
     expect(Math.abs(line.total - MULTIMODAL.zLine)).toBeLessThan(2e-6);
   });
-  it('rejectionSampler fits the multimodal worked example (normal proposal, automatic bound)', () => {
-    const xs = draw(rejectionSampler(multimodalTarget(), { proposal: normalProposal(0, 1), seed: 210 }), N);
-    expectFits(xs, line.cdf, 'multimodal');
-  });
-  it('biased twin: clipped rejection with a guessed C = 4 on the multimodal example is rejected', () => {
-    const xs = clippedRejection(multimodalLogDensity, normalProposal(0, 1), Math.log(4), mersenneTwister(211), N);
-    expectRejects(xs, line.cdf, 'multimodal clipped');
+  // biased twin: clipped rejection with a guessed C = 4 on the multimodal example
+  methodSuite({
+    name: 'rejectionSampler(multimodal worked example, normal proposal, automatic bound)',
+    make: (seed) => rejectionSampler(multimodalTarget(), { proposal: normalProposal(0, 1), seed }),
+    biased: clipped(multimodalLogDensity, normalProposal(0, 1), () => Math.log(4)),
+    cdf: line.cdf,
+    n: N,
+    seed: 210,
+    twinSeed: 211,
   });
 });
 

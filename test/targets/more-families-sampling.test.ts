@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { expect } from 'vitest';
 import {
   chiSquareTarget,
   exactSampler,
@@ -12,8 +12,8 @@ import {
   truncate,
   weibullTarget,
 } from '../../src/index.js';
-import type { FamilyTarget, TruncatedTarget } from '../../src/index.js';
-import { draw, expectFits, expectInSupport, expectRejects } from '../helpers/statistical.js';
+import type { ExactSampler, FamilyTarget, TruncatedTarget } from '../../src/index.js';
+import { methodSuites } from '../helpers/method-suite.js';
 
 /** Draws per statistical check (modest, to keep the suite fast). */
 const N = 3000;
@@ -48,33 +48,32 @@ const cases: Case[] = [
   { name: 'GIG(0.3, 2, 0.05)', make: (k) => generalizedInverseGaussianTarget(0.3, 2 * k ** 3, 0.05), window: [0.05, 1] },
 ];
 
-describe('exactSampler on the new families: KS and Anderson–Darling at 1e-4, each with a biased twin', () => {
-  let seed = 100;
-  for (const c of cases) {
-    const s1 = seed++;
-    it(`exactSampler(${c.name}) passes KS and AD against the family's cdf`, () => {
-      const t = c.make(1);
-      const s = exactSampler(t, { seed: s1 });
-      const xs = draw(s, N);
-      expectInSupport(xs, t.support[0], t.support[1]);
-      expectFits(xs, t.cdf, c.name);
-      expect(s.stats.samples).toBe(N);
-    });
-    it(`biased twin: draws of ${c.name} with a parameter off are rejected at the same n`, () => {
-      const xs = draw(exactSampler(c.make(1.3), { seed: s1 }), N);
-      expectRejects(xs, c.make(1).cdf, c.name);
-    });
-    const s2 = seed++;
-    it(`exactSampler(truncate(${c.name}, ${c.window[0]}, ${c.window[1]})) passes KS and AD`, () => {
-      const t: TruncatedTarget = truncate(c.make(1), c.window[0], c.window[1]);
-      const xs = draw(exactSampler(t, { seed: s2 }), N);
-      expectInSupport(xs, c.window[0], c.window[1]);
-      expectFits(xs, t.cdf!, `truncated ${c.name}`);
-    });
-    it(`biased twin: the truncated ${c.name} with a parameter off is rejected`, () => {
-      const t = truncate(c.make(1), c.window[0], c.window[1]);
-      const xs = draw(exactSampler(truncate(c.make(1.3), c.window[0], c.window[1]), { seed: s2 }), N);
-      expectRejects(xs, t.cdf!, `truncated ${c.name}`);
-    });
-  }
-});
+// Seeds 100, 101, … in the order of the cases (untruncated, then truncated), as before the shared suite.
+methodSuites<ExactSampler>(
+  'exactSampler on the new families: KS and Anderson–Darling at 1e-4, each with a biased twin',
+  cases.flatMap((c, i) => {
+    const t = c.make(1);
+    const tt: TruncatedTarget = truncate(t, c.window[0], c.window[1]);
+    return [
+      {
+        name: `exactSampler(${c.name}) against the family's cdf (twin: a parameter off)`,
+        make: (seed: number) => exactSampler(c.make(1), { seed }),
+        afterFit: (s: ExactSampler) => expect(s.stats.samples).toBe(N),
+        biased: (seed: number) => exactSampler(c.make(1.3), { seed }),
+        cdf: t.cdf,
+        n: N,
+        seed: 100 + 2 * i,
+        support: t.support,
+      },
+      {
+        name: `exactSampler(truncate(${c.name}, ${c.window[0]}, ${c.window[1]})) (twin: a parameter off)`,
+        make: (seed: number) => exactSampler(truncate(c.make(1), c.window[0], c.window[1]), { seed }),
+        biased: (seed: number) => exactSampler(truncate(c.make(1.3), c.window[0], c.window[1]), { seed }),
+        cdf: tt.cdf as (x: number) => number,
+        n: N,
+        seed: 101 + 2 * i,
+        support: c.window,
+      },
+    ];
+  }),
+);

@@ -1,11 +1,13 @@
 /**
  * exactSampler with and without interval bounds: a proof when the target has
- * bounds, a stated assumption (in numbers) when it has not.
+ * bounds, a stated assumption (in numbers) when it has not. Fit tests (KS and
+ * AD at ALPHA, each with a biased twin) through the shared method suite.
  */
 import { describe, expect, it } from 'vitest';
 import { certifiedSampler, exactSampler, piecewiseSampler } from '../../../src/index.js';
-import type { Target } from '../../../src/index.js';
-import { draw, expectFits, expectRate, expectRejects } from '../../helpers/statistical.js';
+import type { ExactSampler, Target } from '../../../src/index.js';
+import { methodSuite, methodSuites } from '../../helpers/method-suite.js';
+import { draw, expectRate } from '../../helpers/statistical.js';
 import { mixture, truncatedCauchy, withCurvature } from './hand-bounds.js';
 
 const N = 20_000;
@@ -29,23 +31,26 @@ describe('exactSampler on black-box targets states what its scan assumes', () =>
     expect(s.choice.proof).toBeUndefined();
   });
 
-  it('exactSampler(black-box 0.7·N(0,1) + 0.3·N(2.5, 1e-5²)) misses the narrow mode (unsupported: documented in choice.assumption); with bounds it is exact', () => {
-    const t = mixture([0.7, 0.3], [0, 2.5], [1, 1e-5]);
-    const blind = exactSampler({ logDensity: t.logDensity }, { seed: 2 });
+  const narrow = mixture([0.7, 0.3], [0, 2.5], [1, 1e-5]);
+  it('exactSampler(black-box 0.7·N(0,1) + 0.3·N(2.5, 1e-5²)) misses the narrow mode (unsupported: documented in choice.assumption)', () => {
+    const blind = exactSampler({ logDensity: narrow.logDensity }, { seed: 2 });
     expect(blind.choice.assumption).toMatch(/can be missed/);
     // documents the limitation: 30 % of the mass is missing, no error is possible from point values alone
     expect(near(draw(blind, N), 2.5, 1e-3)).toBe(0);
-    const proven = exactSampler(t, { seed: 2 });
-    expect(proven.choice.method).toBe('certified');
-    expect(proven.choice.assumption).toMatch(/^none beyond the target/);
-    const xs = draw(proven, N);
-    expectFits(xs, t.cdf, 'mixture with bounds'); // Σ wᵢ Φ from @stdlib normal cdf
-    expectRate(near(xs, 2.5, 1e-3), N, 0.3, 'narrow mode mass'); // the mixture weight
   });
-
-  it('biased twin: the black-box draws of the same mixture are rejected against its cdf at n = 20000', () => {
-    const t = mixture([0.7, 0.3], [0, 2.5], [1, 1e-5]);
-    expectRejects(draw(exactSampler({ logDensity: t.logDensity }, { seed: 2 }), N), t.cdf, 'black-box');
+  // biased twin: the black-box draws of the same mixture, rejected against its cdf at the same n
+  methodSuite<ExactSampler>({
+    name: 'exactSampler(0.7·N(0,1) + 0.3·N(2.5, 1e-5²) with bounds) is exact (twin: the same target as a black box)',
+    make: (seed) => exactSampler(narrow, { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.method).toBe('certified');
+      expect(s.choice.assumption).toMatch(/^none beyond the target/);
+    },
+    afterFit: (_, xs) => expectRate(near(xs, 2.5, 1e-3), N, 0.3, 'narrow mode mass'), // the mixture weight
+    biased: (seed) => exactSampler({ logDensity: narrow.logDensity }, { seed }),
+    cdf: narrow.cdf, // Σ wᵢ Φ from @stdlib normal cdf
+    n: N,
+    seed: 2,
   });
 
   it('exactSampler(black-box 0.95·N(0,1) + 0.05·N(5, 0.02²)) now resolves as finely as piecewiseSampler: not log-concave, 0.05 of the mass at 5', () => {
@@ -58,50 +63,62 @@ describe('exactSampler on black-box targets states what its scan assumes', () =>
   });
 });
 
-describe('exactSampler proves the shape of targets with interval bounds', () => {
-  it('exactSampler(normal with d2LogDensityBounds) chooses the log hull with a proof', () => {
-    const t = withCurvature(mixture([1], [3], [2]), 2);
-    const s = exactSampler(t, { seed: 4 });
-    expect(s.choice.method).toBe('adaptive-rejection');
-    expect(s.choice.transform).toBe('log');
-    expect(s.choice.reason).toMatch(/^log-concave, proven/);
-    expect(s.choice.proof?.[0].proven).toBe(true);
-    expect(s.choice.scan.evaluations).toBe(0);
-    expectFits(draw(s, N), t.cdf as (x: number) => number, 'proven normal');
-  });
-
-  it('exactSampler(Cauchy on [−5, 5] with bounds): log-concavity disproved on a cell, T-concavity proven, inverse-sqrt hull', () => {
-    const t = truncatedCauchy(5);
-    const s = exactSampler(t, { seed: 5 });
-    expect(s.choice.method).toBe('adaptive-rejection');
-    expect(s.choice.transform).toBe('inverse-sqrt');
-    expect(s.choice.reason).toMatch(/^T-concave for T\(f\) = −1\/√f, proven/);
-    const [logProof, tProof] = s.choice.proof ?? [];
-    expect(logProof.proven).toBe(false);
-    expect(logProof.refutedOn).toBeDefined();
-    // the refuted cell lies where l'' > 0 is true: |x| > 1
-    const [ra, rb] = logProof.refutedOn as readonly [number, number];
-    expect(Math.min(Math.abs(ra), Math.abs(rb))).toBeGreaterThanOrEqual(1);
-    expect(tProof.proven).toBe(true);
-    expectFits(draw(s, N), t.cdf, 'truncated Cauchy'); // cdf from atan, common practice
-  });
-
-  it('biased twin: the Cauchy truncated to [−4.5, 4.5] drawn the same way is rejected against the [−5, 5] cdf', () => {
-    expectRejects(draw(exactSampler(truncatedCauchy(4.5), { seed: 5 }), N), truncatedCauchy(5).cdf, 'truncated Cauchy, biased');
-  });
-
-  it('exactSampler(0.9·N(0,1) + 0.1·N(10, 0.2²) with bounds, no d2 bounds): certifiedSampler, 0.1 of the mass above 4', () => {
-    const t = mixture([0.9, 0.1], [0, 10], [1, 0.2]);
-    const s = exactSampler({ ...t, modes: undefined } as Target, { seed: 6 });
-    expect(s.choice.method).toBe('certified');
-    expect(s.choice.reason).toMatch(/no d2LogDensityBounds/);
-    let above = 0;
-    const xs = draw(s, N);
-    for (const x of xs) if (x > 4) above++;
-    expectRate(above, N, 0.1, 'mass above 4'); // the mixture weight (N(0,1) above 4: 3e-5, negligible)
-    expectFits(xs, t.cdf, 'mixture 0.9/0.1');
-  });
-});
+const provenNormal = withCurvature(mixture([1], [3], [2]), 2);
+const mixture91 = mixture([0.9, 0.1], [0, 10], [1, 0.2]);
+methodSuites<ExactSampler>('exactSampler proves the shape of targets with interval bounds', [
+  {
+    name: 'exactSampler(normal with d2LogDensityBounds) chooses the log hull with a proof (twin, added with the shared suite: the mean moved by 0.05 sd)',
+    make: (seed) => exactSampler(provenNormal, { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.method).toBe('adaptive-rejection');
+      expect(s.choice.transform).toBe('log');
+      expect(s.choice.reason).toMatch(/^log-concave, proven/);
+      expect(s.choice.proof?.[0].proven).toBe(true);
+      expect(s.choice.scan.evaluations).toBe(0);
+    },
+    biased: (seed) => exactSampler(withCurvature(mixture([1], [3.1], [2]), 2), { seed }),
+    cdf: provenNormal.cdf as (x: number) => number,
+    n: N,
+    seed: 4,
+  },
+  {
+    name: 'exactSampler(Cauchy on [−5, 5] with bounds): log-concavity disproved on a cell, T-concavity proven, inverse-sqrt hull (twin: truncated to [−4.5, 4.5])',
+    make: (seed) => exactSampler(truncatedCauchy(5), { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.method).toBe('adaptive-rejection');
+      expect(s.choice.transform).toBe('inverse-sqrt');
+      expect(s.choice.reason).toMatch(/^T-concave for T\(f\) = −1\/√f, proven/);
+      const [logProof, tProof] = s.choice.proof ?? [];
+      expect(logProof.proven).toBe(false);
+      expect(logProof.refutedOn).toBeDefined();
+      // the refuted cell lies where l'' > 0 is true: |x| > 1
+      const [ra, rb] = logProof.refutedOn as readonly [number, number];
+      expect(Math.min(Math.abs(ra), Math.abs(rb))).toBeGreaterThanOrEqual(1);
+      expect(tProof.proven).toBe(true);
+    },
+    biased: (seed) => exactSampler(truncatedCauchy(4.5), { seed }),
+    cdf: truncatedCauchy(5).cdf, // cdf from atan, common practice
+    n: N,
+    seed: 5,
+  },
+  {
+    name: 'exactSampler(0.9·N(0,1) + 0.1·N(10, 0.2²) with bounds, no d2 bounds): certifiedSampler, 0.1 of the mass above 4 (twin, added with the shared suite: weights 0.87/0.13)',
+    make: (seed) => exactSampler({ ...mixture91, modes: undefined } as Target, { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.method).toBe('certified');
+      expect(s.choice.reason).toMatch(/no d2LogDensityBounds/);
+    },
+    afterFit: (_, xs) => {
+      let above = 0;
+      for (const x of xs) if (x > 4) above++;
+      expectRate(above, N, 0.1, 'mass above 4'); // the mixture weight (N(0,1) above 4: 3e-5, negligible)
+    },
+    biased: (seed) => exactSampler({ ...mixture([0.87, 0.13], [0, 10], [1, 0.2]), modes: undefined } as Target, { seed }),
+    cdf: mixture91.cdf,
+    n: N,
+    seed: 6,
+  },
+]);
 
 describe('exactSampler with bounds: options', () => {
   it('exactSampler(target with bounds) is reproducible per seed and passes seed/stream to the chosen sampler', () => {

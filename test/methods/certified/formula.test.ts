@@ -1,7 +1,8 @@
 /**
  * certifiedSampler and exactSampler on formula targets (bounds from
  * formulaTarget's interval arithmetic): KS and Anderson–Darling at
- * ALPHA = 1e-4 with fixed seeds, each with a biased twin at the same n.
+ * ALPHA = 1e-4 with fixed seeds, each with a biased twin at the same n
+ * (through the shared method suite, test/helpers/method-suite.ts).
  */
 import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
@@ -9,6 +10,8 @@ import tCdf from '@stdlib/stats-base-dists-t-cdf';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ImproperDensityError, ShapeViolationError, certifiedSampler, exactSampler, formulaTarget } from '../../../src/index.js';
+import type { CertifiedSampler, ExactSampler, Sampler } from '../../../src/index.js';
+import { methodSuite, methodSuites } from '../../helpers/method-suite.js';
 import { quadratureCdf } from '../../helpers/quadrature.js';
 import { draw, expectFits, expectInSupport, expectRate, expectRejects } from '../../helpers/statistical.js';
 
@@ -32,36 +35,39 @@ function near(xs: Float64Array, mu: number, r: number): number {
 }
 
 describe('certifiedSampler on formula targets', () => {
-  for (const [mu, s, seed] of [
-    [6, 1e-3, 21],
-    [2.5, 1e-6, 22],
-  ] as const) {
-    it(`certifiedSampler(formula 0.7·N(0,1) + 0.3·N(${mu}, ${s}²)) fits the mixture cdf, 0.3 of the draws at the narrow mode`, () => {
-      const xs = draw(certifiedSampler(mixtureFormula(0.3, mu, s), { seed }), N);
-      expectFits(xs, mixtureCdf(0.3, mu, s), 'formula mixture');
-      expectRate(near(xs, mu, 10 * s), N, 0.3, 'narrow mode'); // mixture weight
-    });
-    it(`biased twin: weight 0.27 instead of 0.3 at N(${mu}, ${s}²) is rejected at n = ${N}`, () => {
-      expectRejects(draw(certifiedSampler(mixtureFormula(0.27, mu, s), { seed }), N), mixtureCdf(0.3, mu, s), 'formula mixture, biased');
-    });
-  }
+  // biased twins: weight 0.27 instead of 0.3 at the narrow component
+  methodSuites(
+    'certifiedSampler on formula mixtures: fits the mixture cdf, 0.3 of the draws at the narrow mode',
+    ([
+      [6, 1e-3, 21],
+      [2.5, 1e-6, 22],
+    ] as const).map(([mu, s, seed]) => ({
+      name: `certifiedSampler(formula 0.7·N(0,1) + 0.3·N(${mu}, ${s}²))`,
+      make: (sd: number) => certifiedSampler(mixtureFormula(0.3, mu, s), { seed: sd }),
+      afterFit: (_: Sampler, xs: Float64Array) => expectRate(near(xs, mu, 10 * s), N, 0.3, 'narrow mode'), // mixture weight
+      biased: (sd: number) => certifiedSampler(mixtureFormula(0.27, mu, s), { seed: sd }),
+      cdf: mixtureCdf(0.3, mu, s),
+      n: N,
+      seed,
+    })),
+  );
 
   const worked = formulaTarget('-x^2/2 + log(sin(6*x)^2 + a*cos(x)^2*sin(4*x)^2 + 1)', { support: LINE, parameters: { a: 3 } });
   // reference cdf: composite Simpson rule on [−12, 12] (test/helpers/quadrature.ts), independent of the code under test
   const ref = quadratureCdf((x) => -0.5 * x * x + Math.log(Math.sin(6 * x) ** 2 + 3 * Math.cos(x) ** 2 * Math.sin(4 * x) ** 2 + 1), -12, 12, 1e-3);
 
-  it('certifiedSampler(formula worked target) fits the Simpson cdf (Z = 5.894340) and accepts >= 0.99 after setup', () => {
-    expect(ref.total).toBeCloseTo(5.89434, 5); // Z on the line, by quadrature (REFERENCES.md)
-    const s = certifiedSampler(worked, { seed: 23 });
-    expect(s.cells.acceptanceBound).toBeGreaterThanOrEqual(0.99);
-    const xs = draw(s, N);
-    expectFits(xs, ref.cdf, 'formula worked');
-    expect(s.stats.acceptanceRate).toBeGreaterThanOrEqual(0.99);
+  it('Simpson quadrature of the worked target reproduces Z = 5.894340 (test/reference/README.md, by quadrature)', () => {
+    expect(ref.total).toBeCloseTo(5.89434, 5); // Z on the line, by quadrature (test/reference/README.md)
   });
-
-  it('biased twin: the formula with a = 2 instead of 3 is rejected against the a = 3 cdf', () => {
-    const wrong = formulaTarget('-x^2/2 + log(sin(6*x)^2 + a*cos(x)^2*sin(4*x)^2 + 1)', { support: LINE, parameters: { a: 2 } });
-    expectRejects(draw(certifiedSampler(wrong, { seed: 23 }), N), ref.cdf, 'formula worked, biased');
+  methodSuite<CertifiedSampler>({
+    name: 'certifiedSampler(formula worked target) fits the Simpson cdf and accepts >= 0.99 after setup (twin: a = 2 instead of 3)',
+    make: (seed) => certifiedSampler(worked, { seed }),
+    beforeFit: (s) => expect(s.cells.acceptanceBound).toBeGreaterThanOrEqual(0.99),
+    afterFit: (s) => expect(s.stats.acceptanceRate).toBeGreaterThanOrEqual(0.99),
+    biased: (seed) => certifiedSampler(formulaTarget('-x^2/2 + log(sin(6*x)^2 + a*cos(x)^2*sin(4*x)^2 + 1)', { support: LINE, parameters: { a: 2 } }), { seed }),
+    cdf: ref.cdf,
+    n: N,
+    seed: 23,
   });
 
   // A jump written with min/max: the factor 2 switches on over a ramp 1e-12 wide at x = 1 and off at x = 2
@@ -76,26 +82,27 @@ describe('certifiedSampler on formula targets', () => {
     };
     return (x: number) => (x <= 0 ? 0 : x >= 3 ? 1 : m(x) / m(3));
   };
-  it('certifiedSampler(formula with a jump written with min/max) fits the piecewise-exponential cdf', () => {
-    const xs = draw(certifiedSampler(formulaTarget(jumpText(2), { support: [0, 3] }), { seed: 24 }), N);
-    expectInSupport(xs, 0, 3);
-    expectFits(xs, jumpCdf(2), 'formula jump');
-  });
-  it('biased twin: a jump of 1.8 instead of 2 is rejected', () => {
-    expectRejects(draw(certifiedSampler(formulaTarget(jumpText(1.8), { support: [0, 3] }), { seed: 24 }), N), jumpCdf(2), 'formula jump, biased');
-  });
-
   const gammaText = '(k - 1)*log(x) - x/theta - lgamma(k) - k*log(theta)';
-  it('certifiedSampler(gamma-like formula with lgamma, k = 2.5, θ = 1.5) fits the @stdlib gamma cdf', () => {
-    const t = formulaTarget(gammaText, { support: [0, Infinity], parameters: { k: 2.5, theta: 1.5 } });
-    const xs = draw(certifiedSampler(t, { seed: 25 }), N);
-    expectInSupport(xs, 0, Infinity);
-    expectFits(xs, (x) => gammaCdf(x, 2.5, 1 / 1.5), 'formula gamma'); // @stdlib gamma cdf (shape, rate), fine at small shapes
-  });
-  it('biased twin: k = 2.6 is rejected against the k = 2.5 cdf', () => {
-    const t = formulaTarget(gammaText, { support: [0, Infinity], parameters: { k: 2.6, theta: 1.5 } });
-    expectRejects(draw(certifiedSampler(t, { seed: 25 }), N), (x) => gammaCdf(x, 2.5, 1 / 1.5), 'formula gamma, biased');
-  });
+  methodSuites('certifiedSampler on a formula jump and a gamma-like formula', [
+    {
+      name: 'certifiedSampler(formula with a jump written with min/max) fits the piecewise-exponential cdf (twin: a jump of 1.8 instead of 2)',
+      make: (seed) => certifiedSampler(formulaTarget(jumpText(2), { support: [0, 3] }), { seed }),
+      biased: (seed) => certifiedSampler(formulaTarget(jumpText(1.8), { support: [0, 3] }), { seed }),
+      cdf: jumpCdf(2),
+      n: N,
+      seed: 24,
+      support: [0, 3],
+    },
+    {
+      name: 'certifiedSampler(gamma-like formula with lgamma, k = 2.5, θ = 1.5) fits the @stdlib gamma cdf (twin: k = 2.6)',
+      make: (seed) => certifiedSampler(formulaTarget(gammaText, { support: [0, Infinity], parameters: { k: 2.5, theta: 1.5 } }), { seed }),
+      biased: (seed) => certifiedSampler(formulaTarget(gammaText, { support: [0, Infinity], parameters: { k: 2.6, theta: 1.5 } }), { seed }),
+      cdf: (x) => gammaCdf(x, 2.5, 1 / 1.5), // @stdlib gamma cdf (shape, rate), fine at small shapes
+      n: N,
+      seed: 25,
+      support: [0, Infinity],
+    },
+  ]);
 
   it('certifiedSampler(formula −½·log(x) on [0, 1]) throws ShapeViolationError naming the cell at the pole', () => {
     const t = formulaTarget('-0.5*log(x)', { support: [0, 1] });
@@ -124,25 +131,33 @@ describe('formula mixture bounds used by certifiedSampler', () => {
   });
 });
 
-describe('exactSampler on formula targets', () => {
-  it('exactSampler(formula −(x − 1)²/8) proves log-concavity and uses the hull', () => {
-    const t = formulaTarget('-(x - 1)^2/8', { support: LINE });
-    const s = exactSampler(t, { seed: 26 });
-    expect(s.choice.method).toBe('adaptive-rejection');
-    expect(s.choice.reason).toMatch(/^log-concave, proven/);
-    expectFits(draw(s, N), (x) => normalCdf(x, 1, 2), 'formula normal'); // @stdlib normal cdf
-  });
-
-  it('exactSampler(formula mixture with the narrow mode) uses certifiedSampler and samples it exactly', () => {
-    const t = mixtureFormula(0.3, 6, 1e-3);
-    const s = exactSampler(t, { seed: 27 });
-    expect(s.choice.method).toBe('certified');
-    expect(s.choice.proof?.[0].proven).toBe(false);
-    const xs = draw(s, N);
-    expectFits(xs, mixtureCdf(0.3, 6, 1e-3), 'exactSampler formula mixture');
-    expectRate(near(xs, 6, 1e-2), N, 0.3, 'narrow mode'); // mixture weight
-  });
-});
+methodSuites<ExactSampler>('exactSampler on formula targets', [
+  {
+    name: 'exactSampler(formula −(x − 1)²/8) proves log-concavity and uses the hull (twin, added with the shared suite: −(x − 1.1)²/8)',
+    make: (seed) => exactSampler(formulaTarget('-(x - 1)^2/8', { support: LINE }), { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.method).toBe('adaptive-rejection');
+      expect(s.choice.reason).toMatch(/^log-concave, proven/);
+    },
+    biased: (seed) => exactSampler(formulaTarget('-(x - 1.1)^2/8', { support: LINE }), { seed }),
+    cdf: (x) => normalCdf(x, 1, 2), // @stdlib normal cdf
+    n: N,
+    seed: 26,
+  },
+  {
+    name: 'exactSampler(formula mixture with the narrow mode) uses certifiedSampler and samples it exactly (twin, added with the shared suite: weight 0.27)',
+    make: (seed) => exactSampler(mixtureFormula(0.3, 6, 1e-3), { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.method).toBe('certified');
+      expect(s.choice.proof?.[0].proven).toBe(false);
+    },
+    afterFit: (_, xs) => expectRate(near(xs, 6, 1e-2), N, 0.3, 'narrow mode'), // mixture weight
+    biased: (seed) => exactSampler(mixtureFormula(0.27, 6, 1e-3), { seed }),
+    cdf: mixtureCdf(0.3, 6, 1e-3),
+    n: N,
+    seed: 27,
+  },
+]);
 
 describe('targets whose bounds cannot cover them', () => {
   const tText = '-(nu + 1)/2 * log1p(x^2/nu)';
@@ -153,16 +168,18 @@ describe('targets whose bounds cannot cover them', () => {
     expect(() => certifiedSampler(t3, { maxCells: 300 })).toThrow(/infinite cell/);
   });
 
-  it('exactSampler(formula Student-t(3)) records the refusal, falls back to the scan (stating it) and fits the @stdlib t cdf', () => {
-    const s = exactSampler(t3, { seed: 28 });
-    expect(s.choice.rejected[0].method).toBe('certified');
-    expect(s.choice.assumption).toMatch(/^black-box target \(its logDensityBounds could not cover it/);
-    expect(s.choice.reason).toMatch(/tried first: certified/);
-    expectFits(draw(s, N), (x) => tCdf(x, 3), 'formula t(3)'); // @stdlib t cdf
-  });
-
-  it('biased twin: Student-t(4) drawn the same way is rejected against the t(3) cdf', () => {
-    const t4 = formulaTarget(tText, { support: LINE, parameters: { nu: 4 } });
-    expectRejects(draw(exactSampler(t4, { seed: 28 }), N), (x) => tCdf(x, 3), 'formula t(4) vs t(3)');
+  methodSuite<ExactSampler>({
+    name: 'exactSampler(formula Student-t(3)) records the refusal, falls back to the scan (stating it) and fits the @stdlib t cdf (twin: Student-t(4))',
+    make: (seed) => exactSampler(t3, { seed }),
+    beforeFit: (s) => {
+      expect(s.choice.rejected[0].method).toBe('certified');
+      expect(s.choice.assumption).toMatch(/^black-box target \(its logDensityBounds could not cover it/);
+      expect(s.choice.reason).toMatch(/tried first: certified/);
+    },
+    biased: (seed) => exactSampler(formulaTarget(tText, { support: LINE, parameters: { nu: 4 } }), { seed }),
+    cdf: (x) => tCdf(x, 3), // @stdlib t cdf
+    n: N,
+    seed: 28,
+    stream: false, // the fallback scan makes each build slow; exactSampler's stream is checked on the other targets
   });
 });

@@ -12,6 +12,7 @@ import {
 } from '../../../src/index.js';
 import type { ExactSamplerOptions, Target } from '../../../src/index.js';
 import { multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../../helpers/fixtures.js';
+import { methodSuites } from '../../helpers/method-suite.js';
 import { quadratureCdf } from '../../helpers/quadrature.js';
 import { draw, expectFits, expectInSupport, expectRejects, expectReproducible } from '../../helpers/statistical.js';
 
@@ -69,49 +70,62 @@ describe('exactSampler: picks the method the target allows', () => {
   });
 });
 
-describe('exactSampler: draws are exact whatever the method (KS and AD at ALPHA, each with a biased twin)', () => {
-  const opts: ExactSamplerOptions = { seed: 17 };
-  it('exactSampler(normal): fits N(0, 1) (@stdlib cdf); N(0.05, 1) is rejected', () => {
-    const cdf = (x: number): number => normalCdf(x, 0, 1);
-    expectFits(draw(exactSampler(normalTarget(0, 1), opts), N), cdf, 'normal');
-    expectRejects(draw(exactSampler(normalTarget(0.05, 1), opts), N), cdf, 'normal twin');
-  });
+const multimodalShifted: Target = { logDensity: (x: number) => (x >= -3 && x <= 3 ? multimodalLogDensity(x - 0.03) : -Infinity), support: [-3, 3] };
+const multimodalRef = quadratureCdf(multimodalLogDensity, -3, 3);
+const wavyRef = quadratureCdf(wavy(7).logDensity, 0, 1);
 
-  it('exactSampler(gamma(3)): fits (@stdlib gamma cdf, shape < 1000); gamma(3.15) is rejected', () => {
-    const cdf = (x: number): number => gammaCdf(x, 3, 1);
-    const xs = draw(exactSampler(gammaTarget(3), opts), N);
-    expectFits(xs, cdf, 'gamma3');
-    expectInSupport(xs, 0, Infinity);
-    expectRejects(draw(exactSampler(gammaTarget(3.15), opts), N), cdf, 'gamma twin');
-  });
-
-  it('exactSampler(t(3)): fits (@stdlib t cdf); t(2.2) is rejected', () => {
-    const cdf = (x: number): number => tCdf(x, 3);
-    expectFits(draw(exactSampler(studentTTarget(3), opts), N), cdf, 't3');
-    expectRejects(draw(exactSampler(studentTTarget(2.2), opts), N), cdf, 't twin');
-  });
-
-  it('exactSampler(t(0.5)): fits (@stdlib t cdf); t(0.4) is rejected', () => {
-    const cdf = (x: number): number => tCdf(x, 0.5);
-    expectFits(draw(exactSampler(studentTTarget(0.5), opts), N), cdf, 't0.5');
-    expectRejects(draw(exactSampler(studentTTarget(0.4), opts), N), cdf, 't0.5 twin');
-  });
-
-  it('exactSampler(multimodal on [−3, 3]): fits the quadrature cdf; the example shifted by 0.03 is rejected', () => {
-    const ref = quadratureCdf(multimodalLogDensity, -3, 3);
-    expectFits(draw(exactSampler(multimodalTruncated(), opts), N), ref.cdf, 'multimodal');
-    const shifted: Target = { logDensity: (x: number) => (x >= -3 && x <= 3 ? multimodalLogDensity(x - 0.03) : -Infinity), support: [-3, 3] };
-    expectRejects(draw(exactSampler(shifted, opts), N), ref.cdf, 'multimodal shifted');
-  });
-
-  it('exactSampler(bounded non-monotone): fits the quadrature cdf; frequency 7.5 instead of 7 is rejected', () => {
-    const ref = quadratureCdf(wavy(7).logDensity, 0, 1);
-    const xs = draw(exactSampler(wavy(7), opts), N);
-    expectFits(xs, ref.cdf, 'wavy');
-    expectInSupport(xs, 0, 1);
-    expectRejects(draw(exactSampler(wavy(7.5), opts), N), ref.cdf, 'wavy twin');
-  });
-});
+methodSuites('exactSampler: draws are exact whatever the method (KS and AD at ALPHA, each with a biased twin)', [
+  {
+    name: 'exactSampler(normal): fits N(0, 1) (@stdlib cdf); N(0.05, 1) is rejected',
+    make: (seed) => exactSampler(normalTarget(0, 1), { seed }),
+    biased: (seed) => exactSampler(normalTarget(0.05, 1), { seed }),
+    cdf: (x) => normalCdf(x, 0, 1),
+    n: N,
+    seed: 17,
+  },
+  {
+    name: 'exactSampler(gamma(3)): fits (@stdlib gamma cdf, shape < 1000); gamma(3.15) is rejected',
+    make: (seed) => exactSampler(gammaTarget(3), { seed }),
+    biased: (seed) => exactSampler(gammaTarget(3.15), { seed }),
+    cdf: (x) => gammaCdf(x, 3, 1),
+    n: N,
+    seed: 17,
+    support: [0, Infinity],
+  },
+  {
+    name: 'exactSampler(t(3)): fits (@stdlib t cdf); t(2.2) is rejected',
+    make: (seed) => exactSampler(studentTTarget(3), { seed }),
+    biased: (seed) => exactSampler(studentTTarget(2.2), { seed }),
+    cdf: (x) => tCdf(x, 3),
+    n: N,
+    seed: 17,
+  },
+  {
+    name: 'exactSampler(t(0.5)): fits (@stdlib t cdf); t(0.4) is rejected',
+    make: (seed) => exactSampler(studentTTarget(0.5), { seed }),
+    biased: (seed) => exactSampler(studentTTarget(0.4), { seed }),
+    cdf: (x) => tCdf(x, 0.5),
+    n: N,
+    seed: 17,
+  },
+  {
+    name: 'exactSampler(multimodal on [−3, 3]): fits the quadrature cdf; the example shifted by 0.03 is rejected',
+    make: (seed) => exactSampler(multimodalTruncated(), { seed }),
+    biased: (seed) => exactSampler(multimodalShifted, { seed }),
+    cdf: multimodalRef.cdf,
+    n: N,
+    seed: 17,
+  },
+  {
+    name: 'exactSampler(bounded non-monotone): fits the quadrature cdf; frequency 7.5 instead of 7 is rejected',
+    make: (seed) => exactSampler(wavy(7), { seed }),
+    biased: (seed) => exactSampler(wavy(7.5), { seed }),
+    cdf: wavyRef.cdf,
+    n: N,
+    seed: 17,
+    support: [0, 1],
+  },
+]);
 
 describe('exactSampler: counts, reproducibility, errors', () => {
   it('exactSampler counts the scan and construction in setupEvaluations, sampling in densityEvaluations', () => {

@@ -1,7 +1,8 @@
 /**
  * Goodness of fit of adaptiveRejectionSampler draws against @stdlib CDFs
  * (KS + Anderson–Darling at ALPHA = 1e-4, fixed seeds), each with a biased
- * twin at the same n that must be rejected.
+ * twin at the same n that must be rejected, and the stream checks, through the
+ * shared method suite (test/helpers/method-suite.ts).
  *
  * References: @stdlib/stats-base-dists-{normal,gamma,beta,t}-cdf, accurate
  * for these parameters per test/reference/README.md (gamma only below
@@ -13,7 +14,6 @@ import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import tCdf from '@stdlib/stats-base-dists-t-cdf';
 import erfc from '@stdlib/math-base-special-erfc';
-import { describe, it } from 'vitest';
 import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
 import type { AdaptiveRejectionOptions } from '../../../src/methods/adaptive-rejection.js';
 import type { Target } from '../../../src/core/types.js';
@@ -22,7 +22,7 @@ import { gammaTarget } from '../../../src/targets/gamma.js';
 import { normalTarget } from '../../../src/targets/normal.js';
 import { studentTTarget } from '../../../src/targets/student-t.js';
 import { truncate } from '../../../src/targets/truncate.js';
-import { draw, expectFits, expectInSupport, expectRejects } from '../../helpers/statistical.js';
+import { methodSuites } from '../../helpers/method-suite.js';
 
 const N = 20_000;
 const SQRT1_2 = Math.SQRT1_2;
@@ -59,28 +59,38 @@ const cases: Case[] = [
   { name: 'Student-t(3), inverse-sqrt, secants', target: studentTTarget(3), twin: studentTTarget(3, -0.06), cdf: (x) => tCdf(x, 3), support: [-Infinity, Infinity], opts: { transform: 'inverse-sqrt', derivativeFree: true }, seed: 52 },
 ];
 
-describe('adaptiveRejectionSampler goodness of fit (KS + AD at ALPHA, biased twins)', () => {
-  for (const c of cases) {
-    it(`adaptiveRejectionSampler(${c.name}) fits its @stdlib cdf; the twin is rejected`, () => {
-      const xs = draw(adaptiveRejectionSampler(c.target, { ...c.opts, seed: c.seed }), N);
-      expectInSupport(xs, c.support[0], c.support[1]);
-      expectFits(xs, c.cdf, c.name);
-      const ys = draw(adaptiveRejectionSampler(c.twin, { ...c.opts, seed: c.seed }), N);
-      expectRejects(ys, c.cdf, `${c.name} twin`);
-    });
-  }
-});
+methodSuites(
+  'adaptiveRejectionSampler goodness of fit (KS + AD at ALPHA, biased twins)',
+  cases.map((c) => ({
+    name: `adaptiveRejectionSampler(${c.name})`,
+    make: (seed: number) => adaptiveRejectionSampler(c.target, { ...c.opts, seed }),
+    biased: (seed: number) => adaptiveRejectionSampler(c.twin, { ...c.opts, seed }),
+    cdf: c.cdf,
+    n: N,
+    seed: c.seed,
+    support: c.support,
+  })),
+);
 
-describe('adaptiveRejectionSampler goodness of fit at n = 200,000', () => {
-  // a larger sample to see small biases (e.g. a piece sampled from a slightly different
-  // envelope than the one used in the acceptance test); twins shifted by 0.02 sd
-  it('adaptiveRejectionSampler(normal(0, 1)) and (Student-t(3), inverse-sqrt) fit at n = 200,000; shifted twins are rejected', () => {
-    const n = 200_000;
-    const nx = draw(adaptiveRejectionSampler(normalTarget(0, 1), { seed: 61 }), n);
-    expectFits(nx, (x) => normalCdf(x, 0, 1), 'normal n = 200k');
-    expectRejects(draw(adaptiveRejectionSampler(normalTarget(0.02, 1), { seed: 61 }), n), (x) => normalCdf(x, 0, 1), 'normal twin n = 200k');
-    const tx = draw(adaptiveRejectionSampler(studentTTarget(3), { seed: 62, transform: 'inverse-sqrt' }), n);
-    expectFits(tx, (x) => tCdf(x, 3), 't3 n = 200k');
-    expectRejects(draw(adaptiveRejectionSampler(studentTTarget(3, 0.02 * Math.sqrt(3)), { seed: 62, transform: 'inverse-sqrt' }), n), (x) => tCdf(x, 3), 't3 twin n = 200k');
-  });
-});
+// a larger sample to see small biases (e.g. a piece sampled from a slightly different
+// envelope than the one used in the acceptance test); twins shifted by 0.02 sd
+methodSuites('adaptiveRejectionSampler goodness of fit at n = 200,000', [
+  {
+    name: 'adaptiveRejectionSampler(normal(0, 1)), n = 200,000',
+    make: (seed) => adaptiveRejectionSampler(normalTarget(0, 1), { seed }),
+    biased: (seed) => adaptiveRejectionSampler(normalTarget(0.02, 1), { seed }),
+    cdf: (x) => normalCdf(x, 0, 1),
+    n: 200_000,
+    seed: 61,
+    stream: false, // checked above
+  },
+  {
+    name: "adaptiveRejectionSampler(Student-t(3), { transform: 'inverse-sqrt' }), n = 200,000",
+    make: (seed) => adaptiveRejectionSampler(studentTTarget(3), { seed, transform: 'inverse-sqrt' }),
+    biased: (seed) => adaptiveRejectionSampler(studentTTarget(3, 0.02 * Math.sqrt(3)), { seed, transform: 'inverse-sqrt' }),
+    cdf: (x) => tCdf(x, 3),
+    n: 200_000,
+    seed: 62,
+    stream: false, // checked above
+  },
+]);

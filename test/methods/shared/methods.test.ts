@@ -1,5 +1,6 @@
 /**
- * Every method under the shared method suite (test/helpers/method-suite.ts).
+ * Every method under the shared method suite (test/helpers/method-suite.ts), with
+ * the option checks and a five-draw stream snapshot each.
  * References: the cdfs are @stdlib's (normalCdf, gammaCdf, tCdf, logisticCdf,
  * betaCdf through the family targets' `cdf`), checked pointwise against
  * independent computations in test/targets/; the two-component mixture's cdf
@@ -37,83 +38,92 @@ const cdfOf = (t: { cdf?: (x: number) => number }): ((x: number) => number) => t
 // Regression guards below: first five draws at seed 5489, recorded from the build before the
 // refactor of issue 15 (commit bf47456); not correctness checks.
 methodSuite({
-  api: 'rejectionSampler',
-  label: 'rejectionSampler(normal(0, 1), Cauchy proposal)',
-  make: (o) => rejectionSampler(normalTarget(0, 1), { proposal: cauchyProposal(0, 1), ...o }),
+  name: 'rejectionSampler(normal(0, 1), Cauchy proposal)',
+  make: (seed) => rejectionSampler(normalTarget(0, 1), { proposal: cauchyProposal(0, 1), seed }),
   biased: (seed) => rejectionSampler(normalTarget(0.05, 1), { proposal: cauchyProposal(0, 1), seed }),
   cdf: cdfOf(normalTarget(0, 1)),
   n: 20_000,
-  firstDraws: [1.5194784470281866, -2.3722242973080405, -0.8352500175692941, -1.8517507071972872, 1.3789353526166879],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [1.5194784470281866, -2.3722242973080405, -0.8352500175692941, -1.8517507071972872, 1.3789353526166879] },
+  options: { api: 'rejectionSampler', make: (o) => rejectionSampler(normalTarget(0, 1), { proposal: cauchyProposal(0, 1), ...o }) },
 });
 methodSuite({
-  api: 'adaptiveRejectionSampler',
-  label: 'adaptiveRejectionSampler(gamma(2.5))',
-  make: (o) => adaptiveRejectionSampler(gammaTarget(2.5), o),
+  name: 'adaptiveRejectionSampler(gamma(2.5))',
+  make: (seed) => adaptiveRejectionSampler(gammaTarget(2.5), { seed }),
   biased: (seed) => adaptiveRejectionSampler(gammaTarget(2.6), { seed }),
   cdf: cdfOf(gammaTarget(2.5)),
   n: 20_000,
-  firstDraws: [8.405623768464178, 5.462269850943162, 5.077155117259341, 1.2140155930414194, 4.442646421601395],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [8.405623768464178, 5.462269850943162, 5.077155117259341, 1.2140155930414194, 4.442646421601395] },
+  options: { api: 'adaptiveRejectionSampler', make: (o) => adaptiveRejectionSampler(gammaTarget(2.5), o) },
 });
 methodSuite({
-  api: 'adaptiveRejectionSampler',
-  label: 'adaptiveRejectionSampler(gamma(2.5), { fast: true })',
-  make: (o) => adaptiveRejectionSampler(gammaTarget(2.5), { ...o, fast: true }),
+  name: 'adaptiveRejectionSampler(gamma(2.5), { fast: true })',
+  make: (seed) => adaptiveRejectionSampler(gammaTarget(2.5), { seed, fast: true }),
   biased: (seed) => adaptiveRejectionSampler(gammaTarget(2.6), { seed, fast: true }),
   cdf: cdfOf(gammaTarget(2.5)),
   n: 20_000,
-  firstDraws: [5.303801648341884, 3.5275190448261364, 0.9625635038164917, 3.583719699036309, 2.307546935622349],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [5.303801648341884, 3.5275190448261364, 0.9625635038164917, 3.583719699036309, 2.307546935622349] },
+  options: { api: 'adaptiveRejectionSampler', make: (o) => adaptiveRejectionSampler(gammaTarget(2.5), { ...o, fast: true }) },
 });
 methodSuite({
-  api: 'tableSampler',
-  label: "tableSampler(Student-t(3), { transform: 'inverse-sqrt' })",
-  make: (o) => tableSampler(studentTTarget(3), { ...o, transform: 'inverse-sqrt' }),
+  name: "tableSampler(Student-t(3), { transform: 'inverse-sqrt' })",
+  make: (seed) => tableSampler(studentTTarget(3), { seed, transform: 'inverse-sqrt' }),
   biased: (seed) => tableSampler(studentTTarget(3, 0.08), { seed, transform: 'inverse-sqrt' }),
   cdf: cdfOf(studentTTarget(3)),
   n: 20_000,
-  firstDraws: [2.396661509797858, 1.0312639782195687, -3.0762149249095154, 1.0729157915795213, 0.25104685740791655],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [2.396661509797858, 1.0312639782195687, -3.0762149249095154, 1.0729157915795213, 0.25104685740791655] },
+  options: { api: 'tableSampler', make: (o) => tableSampler(studentTTarget(3), { ...o, transform: 'inverse-sqrt' }) },
 });
 methodSuite({
-  api: 'piecewiseSampler',
-  label: 'piecewiseSampler(invented two-bump density)',
-  make: (o) => piecewiseSampler(bimodal(0), o),
+  name: 'piecewiseSampler(invented two-bump density)',
+  make: (seed) => piecewiseSampler(bimodal(0), { seed }),
   biased: (seed) => piecewiseSampler(bimodal(0.08), { seed }),
   cdf: bimodalCdf,
   n: 20_000,
-  firstDraws: [1.7731284784274441, 2.3813734474678867, -2.271137741848401, 2.8140848073798606, 2.7335219233682673],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [1.7731284784274441, 2.3813734474678867, -2.271137741848401, 2.8140848073798606, 2.7335219233682673] },
+  options: { api: 'piecewiseSampler', make: (o) => piecewiseSampler(bimodal(0), o) },
 });
 methodSuite({
-  api: 'piecewiseSampler',
-  label: 'piecewiseSampler(invented two-bump density, { fast: true })',
-  make: (o) => piecewiseSampler(bimodal(0), { ...o, fast: true }),
+  name: 'piecewiseSampler(invented two-bump density, { fast: true })',
+  make: (seed) => piecewiseSampler(bimodal(0), { seed, fast: true }),
   biased: (seed) => piecewiseSampler(bimodal(0.08), { seed, fast: true }),
   cdf: bimodalCdf,
   n: 20_000,
-  firstDraws: [2.52603424861834, 1.9662111445224157, -3.2791831648007714, 2.025222007054415, -1.1519547789331528],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [2.52603424861834, 1.9662111445224157, -3.2791831648007714, 2.025222007054415, -1.1519547789331528] },
+  options: { api: 'piecewiseSampler', make: (o) => piecewiseSampler(bimodal(0), { ...o, fast: true }) },
 });
 methodSuite({
-  api: 'ratioOfUniformsSampler',
-  label: 'ratioOfUniformsSampler(logistic(0, 1))',
-  make: (o) => ratioOfUniformsSampler(logisticTarget(0, 1), o),
+  name: 'ratioOfUniformsSampler(logistic(0, 1))',
+  make: (seed) => ratioOfUniformsSampler(logisticTarget(0, 1), { seed }),
   biased: (seed) => ratioOfUniformsSampler(logisticTarget(0.1, 1), { seed }),
   cdf: cdfOf(logisticTarget(0, 1)),
   n: 20_000,
-  firstDraws: [-2.90204440650635, 0.17225414639408834, -0.9051134279204016, 1.9059670365746393, 2.1267882634678603],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [-2.90204440650635, 0.17225414639408834, -0.9051134279204016, 1.9059670365746393, 2.1267882634678603] },
+  options: { api: 'ratioOfUniformsSampler', make: (o) => ratioOfUniformsSampler(logisticTarget(0, 1), o) },
 });
 methodSuite({
-  api: 'exactSampler',
-  label: 'exactSampler(beta(2, 3))',
-  make: (o) => exactSampler(betaTarget(2, 3), o),
+  name: 'exactSampler(beta(2, 3))',
+  make: (seed) => exactSampler(betaTarget(2, 3), { seed }),
   biased: (seed) => exactSampler(betaTarget(2.15, 3), { seed }),
   cdf: cdfOf(betaTarget(2, 3)),
   n: 20_000,
-  firstDraws: [0.92857644874465, 0.7230153901046286, 0.6129277636876724, 0.7039289905838042, 0.5786265957645056],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [0.92857644874465, 0.7230153901046286, 0.6129277636876724, 0.7039289905838042, 0.5786265957645056] },
+  options: { api: 'exactSampler', make: (o) => exactSampler(betaTarget(2, 3), o) },
 });
 methodSuite({
-  api: 'exactSampler',
-  label: 'exactSampler(beta(2, 3), { expectedDraws: 1e6 })',
-  make: (o) => exactSampler(betaTarget(2, 3), { ...o, expectedDraws: 1_000_000 }),
+  name: 'exactSampler(beta(2, 3), { expectedDraws: 1e6 })',
+  make: (seed) => exactSampler(betaTarget(2, 3), { seed, expectedDraws: 1_000_000 }),
   biased: (seed) => exactSampler(betaTarget(2.15, 3), { seed, expectedDraws: 1_000_000 }),
   cdf: cdfOf(betaTarget(2, 3)),
   n: 20_000,
-  firstDraws: [0.6649299895390616, 0.6220072477716315, 0.15383404459663033, 0.6289763732394442, 0.4376235514229227],
+  seed: 20261202,
+  snapshot: { seed: 5489, draws: [0.6649299895390616, 0.6220072477716315, 0.15383404459663033, 0.6289763732394442, 0.4376235514229227] },
+  options: { api: 'exactSampler', make: (o) => exactSampler(betaTarget(2, 3), { ...o, expectedDraws: 1_000_000 }) },
 });

@@ -1,7 +1,8 @@
 /**
  * Goodness of fit of tableSampler (the fast path) draws against @stdlib CDFs
  * (KS + Anderson–Darling at ALPHA = 1e-4, fixed seeds), each with a biased
- * twin at the same n that must be rejected.
+ * twin at the same n that must be rejected, and the stream checks, through the
+ * shared method suite (test/helpers/method-suite.ts).
  *
  * References: @stdlib/stats-base-dists-{normal,gamma,beta,t}-cdf, accurate
  * for these parameters per test/reference/README.md (gamma only below
@@ -18,7 +19,6 @@ import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import tCdf from '@stdlib/stats-base-dists-t-cdf';
 import erfc from '@stdlib/math-base-special-erfc';
-import { describe, it } from 'vitest';
 import type { Target } from '../../../src/core/types.js';
 import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
 import { tableSampler } from '../../../src/methods/table-sampler.js';
@@ -28,7 +28,7 @@ import { gammaTarget } from '../../../src/targets/gamma.js';
 import { normalTarget } from '../../../src/targets/normal.js';
 import { studentTTarget } from '../../../src/targets/student-t.js';
 import { truncate } from '../../../src/targets/truncate.js';
-import { draw, expectFits, expectInSupport, expectRejects } from '../../helpers/statistical.js';
+import { methodSuites } from '../../helpers/method-suite.js';
 
 const N = 20_000;
 const SQRT1_2 = Math.SQRT1_2;
@@ -71,34 +71,48 @@ const cases: Case[] = [
   { name: 'Student-t(3), inverse-sqrt, 16 strips, tail mass 1e-3', target: studentTTarget(3), twin: studentTTarget(3, -0.06), cdf: (x) => tCdf(x, 3), support: [-Infinity, Infinity], opts: { transform: 'inverse-sqrt', strips: 16, tailMass: 1e-3 }, seed: 52 },
 ];
 
-describe('tableSampler goodness of fit (KS + AD at ALPHA, biased twins)', () => {
-  for (const c of cases) {
-    it(`tableSampler(${c.name}) fits its @stdlib cdf; the twin is rejected`, () => {
-      const xs = draw(tableSampler(c.target, { ...c.opts, seed: c.seed }), N);
-      expectInSupport(xs, c.support[0], c.support[1]);
-      expectFits(xs, c.cdf, c.name);
-      const ys = draw(tableSampler(c.twin, { ...c.opts, seed: c.seed }), N);
-      expectRejects(ys, c.cdf, `${c.name} twin`);
-    });
-  }
+methodSuites('tableSampler goodness of fit (KS + AD at ALPHA, biased twins)', [
+  ...cases.map((c) => ({
+    name: `tableSampler(${c.name})`,
+    make: (seed: number) => tableSampler(c.target, { ...c.opts, seed }),
+    biased: (seed: number) => tableSampler(c.twin, { ...c.opts, seed }),
+    cdf: c.cdf,
+    n: N,
+    seed: c.seed,
+    support: c.support,
+  })),
+  {
+    name: 'adaptiveRejectionSampler(gamma(2.5), { fast: true })',
+    make: (seed) => adaptiveRejectionSampler(gammaTarget(2.5, 1), { fast: true, seed }),
+    biased: (seed) => adaptiveRejectionSampler(gammaTarget(2.6, 1), { fast: true, seed }),
+    cdf: (x) => gammaCdf(x, 2.5, 1),
+    n: N,
+    seed: 61,
+  },
+]);
 
-  it('adaptiveRejectionSampler(gamma(2.5), { fast: true }) fits; the twin gamma(2.6) is rejected', () => {
-    const xs = draw(adaptiveRejectionSampler(gammaTarget(2.5, 1), { fast: true, seed: 61 }), N);
-    expectFits(xs, (x) => gammaCdf(x, 2.5, 1), 'fast: true');
-    const ys = draw(adaptiveRejectionSampler(gammaTarget(2.6, 1), { fast: true, seed: 61 }), N);
-    expectRejects(ys, (x) => gammaCdf(x, 2.5, 1), 'fast: true twin');
-  });
-});
-
-describe('tableSampler goodness of fit at n = 400,000', () => {
-  // a larger sample to see small biases (a region sampled with a slightly wrong
-  // probability, a position map off by a fraction of a strip); twins shifted by 0.015 sd
-  it('tableSampler(normal(0, 1)) and (gamma(2.5), 16 strips) fit at n = 400,000; shifted twins are rejected', () => {
-    const n = 400_000;
-    expectFits(draw(tableSampler(normal, { seed: 71 }), n), (x) => normalCdf(x, 0, 1), 'normal n = 400k');
-    expectRejects(draw(tableSampler(normalTarget(0.015, 1), { seed: 71 }), n), (x) => normalCdf(x, 0, 1), 'normal twin n = 400k');
-    const sd = Math.sqrt(2.5); // gamma(2.5, 1) has variance 2.5 (common practice)
-    expectFits(draw(tableSampler(gammaTarget(2.5, 1), { seed: 72, strips: 16 }), n), (x) => gammaCdf(x, 2.5, 1), 'gamma 16 strips n = 400k');
-    expectRejects(draw(tableSampler(gammaTarget(2.5, 1), { seed: 72, strips: 16 }), n), (x) => gammaCdf(x - 0.015 * sd, 2.5, 1), 'gamma twin n = 400k');
-  });
-});
+// a larger sample to see small biases (a region sampled with a slightly wrong
+// probability, a position map off by a fraction of a strip); twins shifted by 0.015 sd
+const GAMMA_SD = Math.sqrt(2.5); // gamma(2.5, 1) has variance 2.5 (common practice)
+methodSuites('tableSampler goodness of fit at n = 400,000', [
+  {
+    name: 'tableSampler(normal(0, 1)), n = 400,000',
+    make: (seed) => tableSampler(normal, { seed }),
+    biased: (seed) => tableSampler(normalTarget(0.015, 1), { seed }),
+    cdf: (x) => normalCdf(x, 0, 1),
+    n: 400_000,
+    seed: 71,
+    stream: false, // checked above
+  },
+  {
+    // the twin: the same draws against the cdf shifted by 0.015 sd
+    name: 'tableSampler(gamma(2.5), 16 strips), n = 400,000',
+    make: (seed) => tableSampler(gammaTarget(2.5, 1), { seed, strips: 16 }),
+    biased: (seed) => tableSampler(gammaTarget(2.5, 1), { seed, strips: 16 }),
+    cdf: (x) => gammaCdf(x, 2.5, 1),
+    twinCdf: (x) => gammaCdf(x - 0.015 * GAMMA_SD, 2.5, 1),
+    n: 400_000,
+    seed: 72,
+    stream: false, // checked above
+  },
+]);

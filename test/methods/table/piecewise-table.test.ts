@@ -17,6 +17,7 @@ import { exactSampler } from '../../../src/methods/auto.js';
 import { piecewiseSampler } from '../../../src/methods/piecewise.js';
 import { mersenneTwister } from '../../../src/random/mersenne-twister.js';
 import { multimodalLogDensity, multimodalTarget, multimodalTruncated } from '../../helpers/fixtures.js';
+import { methodSuites } from '../../helpers/method-suite.js';
 import { quadratureCdf } from '../../helpers/quadrature.js';
 import { draw, expectFits, expectInSupport, expectRate, expectRejects } from '../../helpers/statistical.js';
 
@@ -42,31 +43,37 @@ const shifted = (d: number, truncated: boolean): Target => {
   return truncated ? { logDensity: (x: number) => (x >= -3 && x <= 3 ? lf(x) : -Infinity), support: [-3, 3] } : { logDensity: lf };
 };
 
+const bimodalMixture = mixture([0.8, 0.2], [-2, 1.5], [1, 0.5]);
+const bimodalTwin = mixture([0.8, 0.2], [-2, 1.55], [1, 0.5]);
+
 describe('piecewiseSampler({ fast: true })', () => {
   const ref3 = quadratureCdf(multimodalLogDensity, -3, 3);
   const refLine = quadratureCdf(multimodalLogDensity, -12, 12);
 
-  for (const [label, make, ref, lo, hi, truncated] of [
-    ['the multimodal example on [−3, 3]', multimodalTruncated, ref3, -3, 3, true],
-    ['the multimodal example on the line', multimodalTarget, refLine, -Infinity, Infinity, false],
-  ] as const) {
-    it(`fits ${label} (KS, AD vs quadrature); the example shifted by 0.03 is rejected; draws stay in the support`, () => {
-      const s = piecewiseSampler(make(), { seed: 41, fast: true });
-      const xs = draw(s, N);
-      expectFits(xs, ref.cdf, label);
-      expectInSupport(xs, lo, hi);
-      expectRejects(draw(piecewiseSampler(shifted(0.03, truncated), { seed: 41, fast: true }), N), ref.cdf, `${label} shifted`);
-    });
-  }
-
-  it('fits a bimodal normal mixture with few strips (16) and the default; a mixture with a shifted mode is rejected', () => {
-    const m = mixture([0.8, 0.2], [-2, 1.5], [1, 0.5]);
-    const twin = mixture([0.8, 0.2], [-2, 1.55], [1, 0.5]);
-    for (const strips of [16, 500]) {
-      expectFits(draw(piecewiseSampler(m.target, { seed: 43, fast: true, strips }), N), m.cdf, `mixture, ${strips} strips`);
-      expectRejects(draw(piecewiseSampler(twin.target, { seed: 43, fast: true, strips }), N), m.cdf, `twin, ${strips} strips`);
-    }
-  });
+  methodSuites('piecewiseSampler({ fast: true }): KS and AD accept; the biased twins are rejected at the same n and seed', [
+    ...([
+      ['the multimodal example on [−3, 3]', multimodalTruncated, ref3, -3, 3, true],
+      ['the multimodal example on the line', multimodalTarget, refLine, -Infinity, Infinity, false],
+    ] as const).map(([label, make, ref, lo, hi, truncated]) => ({
+      name: `piecewiseSampler(${label}, { fast: true }) against the quadrature cdf (twin: the example shifted by 0.03)`,
+      make: (seed: number) => piecewiseSampler(make(), { seed, fast: true }),
+      biased: (seed: number) => piecewiseSampler(shifted(0.03, truncated), { seed, fast: true }),
+      cdf: ref.cdf,
+      n: N,
+      seed: 41,
+      support: [lo, hi] as const,
+      stream: false, // a slow build; the fast path's stream is checked on the 16-strip mixture below and in the streams test
+    })),
+    ...[16, 500].map((strips) => ({
+      name: `piecewiseSampler(bimodal normal mixture, { fast: true, strips: ${strips} }) (twin: a mixture with a shifted mode)`,
+      make: (seed: number) => piecewiseSampler(bimodalMixture.target, { seed, fast: true, strips }),
+      biased: (seed: number) => piecewiseSampler(bimodalTwin.target, { seed, fast: true, strips }),
+      cdf: bimodalMixture.cdf,
+      n: N,
+      seed: 43,
+      stream: strips === 16, // once is enough
+    })),
+  ]);
 
   it('acceptance is Z / (table envelope area) and the target is evaluated at under 1 % of the draws', () => {
     const m = mixture([0.8, 0.2], [-2, 1.5], [1, 0.5]); // normalized: Z = 1
