@@ -17,7 +17,7 @@ import { Hull } from './hull/hull.js';
 import { hullFill } from './hull/kernel.js';
 import { DEFAULT_MAX_PIECES, buildHull } from './hull/setup.js';
 import type { HullReuse, ResolvedHullOptions } from './hull/setup.js';
-import { hullCentre, warmStartPoints } from './hull/warm-start.js';
+import { ProbePool, hullCentre, warmStartPoints } from './hull/warm-start.js';
 import type { WarmCentre } from './hull/warm-start.js';
 import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { resolveUniform } from '../random/resolve.js';
@@ -164,7 +164,8 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
   let targets = 0;
   let derivatives = 0;
   let centre: WarmCentre | undefined;
-  const warmStart: HullReuse['start'] = (search, lower, upper, mode) => warmStartPoints(search, lower, upper, mode, centre as WarmCentre);
+  const pool = new ProbePool();
+  const warmStart: HullReuse['start'] = (search, lower, upper, mode) => warmStartPoints(search, lower, upper, mode, centre as WarmCentre, pool);
   const reuseCold: HullReuse = { hull, counters, start: undefined };
   const reuseWarm: HullReuse = { hull, counters, start: warmStart };
   // the one sample/fill wrapper (core/draws.ts); retarget forgets a failure of the previous target

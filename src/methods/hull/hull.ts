@@ -328,6 +328,27 @@ export class Hull implements HullView {
    * anchored at its higher touch point.
    */
   private setPiece(j: number, lo: number, hi: number, ax: number, at: number, sl: number, sqx: number, sqt: number, sqs: number): void {
+    // the inputs are stored first and the rest derived from the arrays: small enough for the engine to
+    // inline here, so the nine double arguments are not boxed on every call (a Gibbs step builds a
+    // fresh hull per draw)
+    this.lo[j] = lo;
+    this.hi[j] = hi;
+    this.lineAnchor[j] = ax;
+    this.lineValue[j] = at;
+    this.lineSlope[j] = sl;
+    this.squeezeAnchor[j] = sqx;
+    this.squeezeValue[j] = sqt;
+    this.squeezeSlope[j] = sqs;
+    this.derivePiece(j);
+  }
+
+  /** The high end, direction, width, rate, high value, inversion constant and area of piece j from its stored ends and line ({@link setPiece}). */
+  private derivePiece(j: number): void {
+    const lo = this.lo[j];
+    const hi = this.hi[j];
+    const ax = this.lineAnchor[j];
+    const at = this.lineValue[j];
+    const sl = this.lineSlope[j];
     let hx: number;
     let dir: number;
     if (sl > 0) {
@@ -361,14 +382,6 @@ export class Hull implements HullView {
       q = pieceConstant(this.kind, th, s, w);
       area = exp(pieceLogArea(this.kind, th, s, w));
     }
-    this.lo[j] = lo;
-    this.hi[j] = hi;
-    this.lineAnchor[j] = ax;
-    this.lineValue[j] = at;
-    this.lineSlope[j] = sl;
-    this.squeezeAnchor[j] = sqx;
-    this.squeezeValue[j] = sqt;
-    this.squeezeSlope[j] = sqs;
     this.highEnd[j] = hx;
     this.direction[j] = dir;
     this.width[j] = w;

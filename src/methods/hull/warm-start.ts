@@ -37,50 +37,92 @@ export const WARM_MAX_EXTRA_PROBES = 6;
  * touch point.
  * @internal
  */
-export function warmStartPoints(s: StartSearch, lower: number, upper: number, modeHint: number | undefined, prev: WarmCentre): StartResult {
-  const probes: Probe[] = [];
+export function warmStartPoints(s: StartSearch, lower: number, upper: number, modeHint: number | undefined, prev: WarmCentre, pool: ProbePool = new ProbePool()): StartResult {
+  pool.clear();
   const useD = s.useDerivative;
-  const probe = (x: number): void => {
-    const l = s.evaluate(x);
-    const g = useD && l > -Infinity ? s.derivative(x) : NaN;
-    probes.push({ x, l, g });
-  };
   let c = modeHint !== undefined ? modeHint : prev.centre;
   if (c < lower) c = lower;
   if (c > upper) c = upper;
   const sigma = prev.scale;
-  const inside = (x: number, from: number): number => {
-    if (x <= lower) return lower === -Infinity ? x : from + 0.5 * (lower - from);
-    if (x >= upper) return upper === Infinity ? x : from + 0.5 * (upper - from);
-    return x;
-  };
-  const left = inside(c - sigma, c);
-  const right = inside(c + sigma, c);
-  if (left > lower && left < c) probe(left);
-  if (!useD && c > lower && c < upper) probe(c);
-  if (right < upper && right > c) probe(right);
-  if (probes.length === 0) probe(c);
+  const left = inside(c - sigma, c, lower, upper);
+  const right = inside(c + sigma, c, lower, upper);
+  if (left > lower && left < c) pool.probe(s, left);
+  if (!useD && c > lower && c < upper) pool.probe(s, c);
+  if (right < upper && right > c) pool.probe(s, right);
+  if (pool.probes.length === 0) pool.probe(s, c);
   for (let extra = 0; extra < WARM_MAX_EXTRA_PROBES; extra++) {
-    const x = nextBracketProbe(probes, useD, lower, upper, sigma);
+    const x = nextBracketProbe(pool, useD, lower, upper, sigma);
     if (x !== x) break;
-    probe(x);
+    pool.probe(s, x);
   }
-  return { probes, scale: sigma };
+  return { probes: pool.probes, scale: sigma };
 }
 
-/** Index order of the probes by x (few probes: insertion sort on a small array). */
-function sortedByX(probes: readonly Probe[]): Probe[] {
-  const a = probes.filter((p) => p.l > -Infinity);
-  for (let i = 1; i < a.length; i++) {
-    const p = a[i];
-    let j = i - 1;
-    while (j >= 0 && a[j].x > p.x) {
-      a[j + 1] = a[j];
-      j--;
-    }
-    a[j + 1] = p;
+/** A point one scale from the centre, moved halfway to a finite end it would cross. */
+function inside(x: number, from: number, lower: number, upper: number): number {
+  if (x <= lower) return lower === -Infinity ? x : from + 0.5 * (lower - from);
+  if (x >= upper) return upper === Infinity ? x : from + 0.5 * (upper - from);
+  return x;
+}
+
+/** A probe whose fields are rewritten when its pool is reused. */
+interface PooledProbe {
+  x: number;
+  l: number;
+  g: number;
+}
+
+/**
+ * Storage of the warm start's probes, reused from one target to the next
+ * (a Gibbs step builds a hull per draw; fresh arrays and objects for every
+ * step were about a third of its allocation). The probes handed to setup
+ * are valid until the next {@link ProbePool.clear}. @internal
+ */
+export class ProbePool {
+  /** The probes of the current start, in the order evaluated. */
+  readonly probes: Probe[] = [];
+  /** The finite probes sorted by x (scratch of {@link nextBracketProbe}). */
+  readonly sorted: Probe[] = [];
+  private readonly store: PooledProbe[] = [];
+
+  /** Forgets the probes (their objects are reused). */
+  clear(): void {
+    this.probes.length = 0;
   }
-  return a;
+
+  /** Evaluates the log-density (and the derivative when the search uses it and the value is finite) at x and keeps the probe. */
+  probe(s: StartSearch, x: number): void {
+    const l = s.evaluate(x);
+    const g = s.useDerivative && l > -Infinity ? s.derivative(x) : NaN;
+    const n = this.probes.length;
+    let p = this.store[n];
+    if (p === undefined) {
+      p = { x, l, g };
+      this.store.push(p);
+    } else {
+      p.x = x;
+      p.l = l;
+      p.g = g;
+    }
+    this.probes.push(p);
+  }
+
+  /** The finite probes in increasing x, in {@link ProbePool.sorted} (insertion sort: few probes). */
+  sortByX(): Probe[] {
+    const a = this.sorted;
+    a.length = 0;
+    for (const p of this.probes) if (p.l > -Infinity) a.push(p);
+    for (let i = 1; i < a.length; i++) {
+      const p = a[i];
+      let j = i - 1;
+      while (j >= 0 && a[j].x > p.x) {
+        a[j + 1] = a[j];
+        j--;
+      }
+      a[j + 1] = p;
+    }
+    return a;
+  }
 }
 
 /**
@@ -88,14 +130,14 @@ function sortedByX(probes: readonly Probe[]): Probe[] {
  * when they do (or when the mode appears to lie at a finite end, or no
  * sensible point is found).
  */
-function nextBracketProbe(probes: readonly Probe[], useD: boolean, lower: number, upper: number, sigma: number): number {
-  const a = sortedByX(probes);
+function nextBracketProbe(pool: ProbePool, useD: boolean, lower: number, upper: number, sigma: number): number {
+  const a = pool.sortByX();
   const n = a.length;
   if (n === 0) return NaN;
   // direction in which the mode lies: -1 left of every probe, +1 right of every probe, 0 bracketed
   let side: number;
   if (useD) {
-    if (a.some((p) => !Number.isFinite(p.g))) return NaN;
+    for (let i = 0; i < n; i++) if (!Number.isFinite(a[i].g)) return NaN;
     // the derivative decreases: all negative puts the mode left of every probe, all positive right
     side = a[0].g < 0 ? -1 : a[n - 1].g > 0 ? 1 : 0;
   } else {
@@ -118,7 +160,10 @@ function nextBracketProbe(probes: readonly Probe[], useD: boolean, lower: number
       sc = 1 / Math.sqrt(-cc);
     }
   } else if (!useD && n >= 3) {
-    const [p0, p1, p2] = side < 0 ? [a[0], a[1], a[2]] : [a[n - 3], a[n - 2], a[n - 1]];
+    const i0 = side < 0 ? 0 : n - 3;
+    const p0 = a[i0];
+    const p1 = a[i0 + 1];
+    const p2 = a[i0 + 2];
     const d1 = (p1.l - p0.l) / (p1.x - p0.x);
     const d2 = (p2.l - p1.l) / (p2.x - p1.x);
     const curv = (2 * (d2 - d1)) / (p2.x - p0.x);
