@@ -11,6 +11,8 @@ import { wrapDraws } from '../core/draws.js';
 import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections } from '../core/validate.js';
 import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
+import { UniformBlock } from '../random/uniform-block.js';
+import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { GuideTable } from './envelope/guide-table.js';
 import { T_LOG } from './envelope/transforms.js';
 import { CLASS_NAMES, PIECEWISE_NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/cells.js';
@@ -378,7 +380,8 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const counters = new Counters();
   counters.setupEvaluations = ev.evaluations;
   if (fast) return createPiecewiseTable(api, t, grid, ev, tables, counters, uniform, opts.uniform === undefined, maxRejections, ratio, strips, tailMass);
-  return new Piecewise(api, t, grid, ev, tables, counters, uniform, maxRejections, adapt, ratio);
+  const blk = opts.uniform === undefined ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  return new Piecewise(api, t, grid, ev, tables, counters, blk, maxRejections, adapt, ratio);
 }
 
 /** Rounds of the fast path's setup repairs: boundary values outside the envelope are added to the grid and the table rebuilt. */
@@ -484,7 +487,7 @@ class Piecewise implements PiecewiseSampler {
     private readonly ev: Evaluator,
     tables: Tables,
     private readonly counters: Counters,
-    uniform: () => number,
+    blk: UniformBlock,
     maxRejections: number,
     adapt: boolean,
     private readonly ratio: number,
@@ -498,7 +501,7 @@ class Piecewise implements PiecewiseSampler {
       guide,
       logf: target.logDensity,
       counters,
-      uniform,
+      blk,
       maxRejections,
       adapt,
       pendingX: NaN,

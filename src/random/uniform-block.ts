@@ -147,3 +147,14 @@ function twist(mt: Int32Array): void {
   y = (mt[623] & 0x80000000) | (mt[0] & 0x7fffffff);
   mt[623] = mt[396] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
 }
+
+/** The next uniform of a block, for kernels (small enough to inline: a bounds test and a load). @internal */
+export function nextUniform(blk: UniformBlock): number {
+  let p = blk.pos;
+  if (p >= blk.len) {
+    blk.refill();
+    p = 0;
+  }
+  blk.pos = p + 1;
+  return blk.buf[p];
+}

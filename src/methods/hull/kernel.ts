@@ -7,9 +7,11 @@ import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
+import { nextUniform } from '../../random/uniform-block.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece } from '../envelope/transforms.js';
 import { checkBeyondZero } from '../envelope/gaps.js';
+import { expScreen } from '../envelope/exp-screen.js';
 import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
 import { exp, log } from '../../vendor/math.js';
@@ -76,11 +78,11 @@ export function hullFill(
           h.buildGuide();
         }
         proposals++;
-        const u1 = next(blk);
+        const u1 = nextUniform(blk);
         let j = guide[(u1 * gt.size) | 0];
         const v = u1 * gt.total;
         while (cum[j] <= v) j++;
-        const u2 = next(blk);
+        const u2 = nextUniform(blk);
         const d = invertPiece(kind, pq[j], sig[j], wd[j], u2);
         let x = hx[j] + dir[j] * d;
         if (x < lo[j]) x = lo[j];
@@ -88,7 +90,7 @@ export function hullFill(
         const t = at[j] + sl[j] * (x - ax[j]);
         const sv = sqt[j];
         const c = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqx[j]);
-        const u3 = next(blk);
+        const u3 = nextUniform(blk);
         let lenv: number;
         let lsq: number;
         if (isLog) {
@@ -138,35 +140,6 @@ export function hullFill(
     counters.samples += i;
     counters.proposals += proposals;
   }
-}
-
-const SIXTH = 1 / 6;
-
-/**
- * A lower bound of exp(y) without a transcendental call, for screening the
- * squeeze test: 1 + y + y²/2 + y³/6 − 1e-15. For every real y the cubic is at
- * most exp(y) (the Taylor remainder y⁴·e^ξ/24 is not negative), and the
- * margin 1e-15 exceeds the rounding of the cubic and of the vendored exp near
- * 1 (a few ulps of 1, 2.2e-16 each), so `u < expScreen(y)` implies
- * `u < exp(y)`: the kernel takes the same decisions, and gives the same draws,
- * as with exp alone, and calls exp only when the screen fails (about y⁴/24 of
- * the squeeze passes, plus the rejections of the screen). Checked against
- * the vendored exp in test/methods/hull/kernel-screen.test.ts.
- * @internal
- */
-export function expScreen(y: number): number {
-  return 1 + y * (1 + y * (0.5 + y * SIXTH)) - 1e-15;
-}
-
-/** The next uniform of the block (inlined by the engine: a bounds test and a load). */
-function next(blk: UniformBlock): number {
-  let p = blk.pos;
-  if (p >= blk.len) {
-    blk.refill();
-    p = 0;
-  }
-  blk.pos = p + 1;
-  return blk.buf[p];
 }
 
 /**

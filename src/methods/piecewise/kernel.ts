@@ -6,12 +6,14 @@
 import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
-import type { Uniform } from '../../core/types.js';
+import type { UniformBlock } from '../../random/uniform-block.js';
+import { nextUniform } from '../../random/uniform-block.js';
 import type { GuideTable } from '../envelope/guide-table.js';
 import type { Tables } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { invertPiece, pieceLogEnvelopeAt } from '../envelope/transforms.js';
 import { exp } from '../../vendor/math.js';
+import { expScreen } from '../envelope/exp-screen.js';
 
 /**
  * Mutable state the kernel reads (tables are replaced after a repair). The
@@ -24,7 +26,8 @@ export interface KernelState {
   guide: GuideTable;
   logf: (x: number) => number;
   counters: Counters;
-  uniform: Uniform;
+  /** The uniforms: blocks of an owned MT19937, or one value at a time from an injected source (the same values in the same order). */
+  blk: UniformBlock;
   maxRejections: number;
   /** Repair instead of throwing on a violation. */
   adapt: boolean;
@@ -72,17 +75,17 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
   const ref = t.ref;
   const logf = s.logf;
   const c = s.counters;
-  const uniform = s.uniform;
+  const blk = s.blk;
   const maxRejections = s.maxRejections;
   for (let i = start; i < n; i++) {
     let rejections = 0;
     for (;;) {
       c.proposals++;
-      const u1 = uniform();
+      const u1 = nextUniform(blk);
       let j = guide[(u1 * size) | 0];
       const v = u1 * total;
       while (cum[j] <= v) j++;
-      const u2 = uniform();
+      const u2 = nextUniform(blk);
       const sg = sig[j];
       const kj = kind[j];
       const d = invertPiece(kj, pq[j], sg, wd[j], u2);
@@ -90,12 +93,14 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
       let x = h + dir[j] * d;
       if (x < lo[j]) x = lo[j];
       else if (x > hi[j]) x = hi[j];
-      const u3 = uniform();
+      const u3 = nextUniform(blk);
       if (x > -Infinity && x < Infinity) {
         const env = pieceLogEnvelopeAt(kj, href[j], sg, dir[j] > 0 ? x - h : h - x);
         const sv = sqv[j];
         const sq = sv === -Infinity ? -Infinity : sv + sqs[j] * (x - sqa[j]);
-        if (u3 < exp(sq - env)) {
+        // the squeeze test u3 < exp(y), screened without exp first (same decisions; envelope/exp-screen.ts)
+        const y = sq - env;
+        if (u3 < expScreen(y) || u3 < exp(y)) {
           out[i] = x;
           break;
         }

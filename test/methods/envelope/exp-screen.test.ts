@@ -1,5 +1,5 @@
 /**
- * The squeeze screen of the hull kernel (`expScreen`) must never pass where
+ * The squeeze screen of the hull and piecewise kernels (`expScreen`) must never pass where
  * the exp test fails: `u < expScreen(y)` has to imply `u < exp(y)`, so that
  * the screen changes only the cost of the kernel, never a decision or a draw.
  * Checked against the vendored exp (the function the kernel compares with),
@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { expScreen } from '../../../src/methods/hull/kernel.js';
+import { expScreen } from '../../../src/methods/envelope/exp-screen.js';
 import { exp } from '../../../src/vendor/math.js';
 
 describe('hull kernel: exp screen of the squeeze test', () => {
