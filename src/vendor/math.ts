@@ -21,6 +21,7 @@ export { log } from './math/log.js';
 export { log1p } from './math/log1p.js';
 export { expm1 } from './math/expm1.js';
 export { pow } from './math/pow.js';
+export { twoTo } from './math/two-to.js';
 export { sin } from './math/sin.js';
 export { cos } from './math/cos.js';
 export { tan } from './math/tan.js';

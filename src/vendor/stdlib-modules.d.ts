@@ -4,3 +4,13 @@ declare module '@stdlib/stats-kstest/lib/marsaglia.js' {
   const pKolmogorov: (d: number, n: number) => number;
   export default pKolmogorov;
 }
+/**
+ * The main function of a `@stdlib/stats-base-dists-*` package, without the
+ * package index (which attaches a `factory` the library never uses, so a
+ * bundle would take it too). Each wrapper in src/vendor/stdlib/ declares
+ * its own signature.
+ */
+declare module '@stdlib/stats-base-dists-*/lib/main.js' {
+  const main: (...args: number[]) => number;
+  export default main;
+}

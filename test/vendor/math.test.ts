@@ -60,6 +60,25 @@ describe('deterministic math', () => {
     for (let k = 0; k >= -1074; k--, p /= 2) expect(dm.pow(2, k)).toBe(p);
   });
 
+  it('twoTo(k) is exactly 2^k: the doubles made by doubling and halving for k in [-1074, 1023], pow(2, k) and pow(0.5, -k) for every k in [-1200, 1200], and NaN for a k that is not an integer', () => {
+    // 2^k by repeated doubling / halving is exact (IEEE 754 binary64, common practice); beyond the range 0 and Infinity
+    let p = 1;
+    for (let k = 0; k <= 1100; k++, p *= 2) expect(dm.twoTo(k)).toBe(p);
+    p = 1;
+    for (let k = 0; k >= -1100; k--, p /= 2) expect(dm.twoTo(k)).toBe(p);
+    const bad: number[] = [];
+    for (let k = -1200; k <= 1200; k++) if (!Object.is(dm.twoTo(k), dm.pow(2, k)) || !Object.is(dm.twoTo(k), dm.pow(0.5, -k))) bad.push(k);
+    expect(bad).toEqual([]);
+    expect([dm.twoTo(0.5), dm.twoTo(NaN), dm.twoTo(Infinity)].every((v) => Number.isNaN(v))).toBe(true);
+  });
+
+  it('twin: the check of twoTo sees an exponent off by one (a helper that returned 2^(k+1) fails it)', () => {
+    const offByOne = (k: number): number => dm.twoTo(k + 1);
+    let bad = 0;
+    for (let k = -1200; k <= 1200; k++) if (!Object.is(offByOne(k), dm.pow(2, k))) bad++;
+    expect(bad).toBeGreaterThan(2000);
+  });
+
   it('log10 of the double nearest 10^k is k for k in [-307, 308] (the figure ticks floor it)', () => {
     // |log10(fl(10^k)) - k| <= 2^-53 / ln 10 < half an ulp of k for k != 0, so k is the correctly rounded value
     const bad: number[] = [];

@@ -11,7 +11,7 @@ import type { Sampler, SamplerStats, Target } from '../../core/types.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import { maximizeLog } from '../../bounds/maximize.js';
 import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description.js';
-import { log, pow } from '../../vendor/math.js';
+import { log, twoTo } from '../../vendor/math.js';
 
 /** Change of the log-density over one scale unit (from loc, on the narrower side). */
 const SCALE_DROP = 0.5;
@@ -20,9 +20,9 @@ const ORDINARY = 20;
 /** Below |loc| ≤ this many scale units, loc is taken as 0 (x = 2^k·z is then exact). */
 const LOC_TO_ZERO = 64;
 /** At or above this spacing of the doubles at loc (in scale units) the target is left in x. */
-const FINEST_GRAIN = /* @__PURE__ */ pow(2, -10);
+const FINEST_GRAIN = /* @__PURE__ */ twoTo(-10);
 /** Above this spacing of the doubles at loc (in scale units), errors say that logDensity(z) is a staircase. */
-const COARSE_GRAIN = /* @__PURE__ */ pow(2, -40);
+const COARSE_GRAIN = /* @__PURE__ */ twoTo(-40);
 /** Smallest and largest binary exponents of a scale. */
 const K_MIN = -1074;
 const K_MAX = 1023;
@@ -149,7 +149,7 @@ export function findStandardisation(api: string, t: CheckedTarget, search: 'maxi
   // Enough at 2^k: logDensity at loc ± 2^k differs from l0 by 1/2 on a side, or both sides are out of
   // room (beyond an end of the support, or where the density is 0: an edge is a bound, not a scale).
   const enough = (k: number): boolean => {
-    const d = pow(2, k);
+    const d = twoTo(k);
     let out = 0;
     for (const dir of [1, -1] as const) {
       const end = dir > 0 ? upper : lower;
@@ -174,9 +174,9 @@ export function findStandardisation(api: string, t: CheckedTarget, search: 'maxi
     else lo = mid;
   }
   const k = Math.max(K_MIN, hi);
-  const scale = pow(2, k);
+  const scale = twoTo(k);
   if (bad) return identityOf(t, evaluations);
-  if (Math.abs(k) <= ORDINARY && Math.abs(loc) <= pow(2, ORDINARY) * scale) return identityOf(t, evaluations);
+  if (Math.abs(k) <= ORDINARY && Math.abs(loc) <= twoTo(ORDINARY) * scale) return identityOf(t, evaluations);
   // Fewer than 2^10 doubles per scale unit at loc (a pole, or a target only a few ulps wide): z cannot resolve more than x.
   if (ulpOf(loc) / scale > FINEST_GRAIN) return identityOf(t, evaluations, ulpOf(loc) / scale);
   if (Math.abs(loc) <= LOC_TO_ZERO * scale) loc = 0;
@@ -290,10 +290,10 @@ function ulpOf(x: number): number {
   if (!(a >= 2.2250738585072014e-308)) return Number.MIN_VALUE; // below the smallest normal (2^−1022)
   if (a === Infinity) return Infinity;
   // 2^e ≤ a < 2^(e+1): a first guess from log, then corrected by exact doublings and halvings
-  let p = pow(2, Math.min(1023, Math.max(-1022, Math.floor(log(a) / Math.LN2))));
+  let p = twoTo(Math.min(1023, Math.max(-1022, Math.floor(log(a) / Math.LN2))));
   for (let i = 0; i < 4 && p > a; i++) p *= 0.5;
   for (let i = 0; i < 4 && p * 2 <= a; i++) p *= 2;
-  return p * pow(2, -52) * 2;
+  return p * twoTo(-52) * 2;
 }
 
 /** The map back, x = loc + 2^k·z clamped into the support. @internal */
@@ -478,7 +478,7 @@ export function ordinaryTouchPoints(tp: readonly number[]): boolean {
 }
 
 /** Range of the touch points of a hull built in x that counts as ordinary. */
-const ORDINARY_SPAN = /* @__PURE__ */ pow(2, 30);
+const ORDINARY_SPAN = /* @__PURE__ */ twoTo(30);
 
 /**
  * The one entrance of the factories: unless `target` is already
@@ -554,4 +554,4 @@ function coarseError(api: string, st: Standardisation, inX: unknown): ShapeViola
 }
 
 /** The coarsest grain at which a hull or piecewise envelope built in z stays within its tolerance (2^−40 of a scale unit). @internal */
-export const FINE_GRAIN = /* @__PURE__ */ pow(2, -40);
+export const FINE_GRAIN = /* @__PURE__ */ twoTo(-40);
