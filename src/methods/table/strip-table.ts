@@ -5,7 +5,10 @@
  *
  * @packageDocumentation
  */
+import type { Counters } from '../../core/counters.js';
+import type { UniformBlock } from '../../random/uniform-block.js';
 import type { Tables } from '../envelope/piece-tables.js';
+import type { TableState } from './kernel.js';
 
 /** Region types of the alias table. @internal */
 export const R_SURE = 0;
@@ -97,6 +100,13 @@ export interface PiecewiseStrips {
   /** Pieces of the right tail region, left to right, and their cumulative relative areas. */
   readonly tailR: Int32Array;
   readonly cumR: Float64Array;
+  /**
+   * The kernel's steps for a tail region and a cap of this envelope
+   * (`piecewiseTailCandidate`, `piecewiseCap` of piecewise-kernel.ts), set
+   * by the builder so that only the tables that have such strips bundle them.
+   */
+  readonly tail: (st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock) => number;
+  readonly cap: (st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number) => void;
 }
 
 /**

@@ -485,7 +485,9 @@ const ORDINARY_SPAN = /* @__PURE__ */ twoTo(30);
  * standardised, builds `build` on the target of Z (or on the target itself,
  * as `mode` says) and maps the draws back. When both constructions are
  * refused, the error of the construction in x is thrown (the method's own
- * message on the target as given). @internal
+ * message on the target as given). The factories call
+ * {@link samplerXFirst} or {@link samplerZFirst} directly, so that a bundle
+ * takes only the order it uses. @internal
  */
 export function samplerStandardised<S extends Sampler>(
   api: string,
@@ -495,52 +497,75 @@ export function samplerStandardised<S extends Sampler>(
   forward: Readonly<Record<string, Forward>>,
   mode: StandardiseMode,
 ): S {
-  const inX = (): S => {
-    done.add(target);
+  return mode.order === 'x-first' ? samplerXFirst(api, target, t, build, forward, mode) : samplerZFirst(api, target, t, build, forward, mode);
+}
+
+/** `build` on the target itself, marked as standardised while it runs (so the factory does not standardise it again). */
+function builtInX<S extends Sampler>(target: Target, build: (target: Target) => S): S {
+  done.add(target);
+  try {
+    return build(target);
+  } finally {
+    done.delete(target);
+  }
+}
+
+/** {@link samplerStandardised} for `order: 'x-first'`. @internal */
+export function samplerXFirst<S extends Sampler>(
+  api: string,
+  target: Target,
+  t: CheckedTarget,
+  build: (target: Target) => S,
+  forward: Readonly<Record<string, Forward>>,
+  mode: StandardiseMode,
+): S {
+  let built: S;
+  try {
+    built = builtInX(target, build);
+  } catch (ex) {
+    if (!retryable(ex)) throw ex;
+    const st = findStandardisation(api, t, 'probe');
+    if (st.identity) throw ex;
+    if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
+    let inner: S;
     try {
-      return build(target);
-    } finally {
-      done.delete(target);
-    }
-  };
-  if (mode.order === 'x-first') {
-    let built: S;
-    try {
-      built = inX();
-    } catch (ex) {
-      if (!retryable(ex)) throw ex;
-      const st = findStandardisation(api, t, 'probe');
-      if (st.identity) throw ex;
-      if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
-      let inner: S;
-      try {
-        inner = build(standardisedTarget(st, t, target));
-      } catch (ez) {
-        if (retryable(ez)) throw ex;
-        throw noteCoordinate(ez, st);
-      }
-      return mapStandardised(inner, st, st.evaluations, forward);
-    }
-    if (mode.ordinary === undefined || (mode.ordinary as (s: S) => boolean)(built)) return built;
-    const st = findStandardisation(api, t);
-    const keep = (): S => mapStandardised(built, { ...st, identity: true, loc: 0, scale: 1, log2Scale: 0 }, st.evaluations, forward);
-    if (st.identity || st.grain > mode.maxGrain) return keep();
-    try {
-      return mapStandardised(build(standardisedTarget(st, t, target)), st, st.evaluations, forward);
+      inner = build(standardisedTarget(st, t, target));
     } catch (ez) {
-      if (retryable(ez)) return keep();
+      if (retryable(ez)) throw ex;
       throw noteCoordinate(ez, st);
     }
+    return mapStandardised(inner, st, st.evaluations, forward);
   }
+  if (mode.ordinary === undefined || (mode.ordinary as (s: S) => boolean)(built)) return built;
+  const st = findStandardisation(api, t);
+  const keep = (): S => mapStandardised(built, { ...st, identity: true, loc: 0, scale: 1, log2Scale: 0 }, st.evaluations, forward);
+  if (st.identity || st.grain > mode.maxGrain) return keep();
+  try {
+    return mapStandardised(build(standardisedTarget(st, t, target)), st, st.evaluations, forward);
+  } catch (ez) {
+    if (retryable(ez)) return keep();
+    throw noteCoordinate(ez, st);
+  }
+}
+
+/** {@link samplerStandardised} for `order: 'z-first'`. @internal */
+export function samplerZFirst<S extends Sampler>(
+  api: string,
+  target: Target,
+  t: CheckedTarget,
+  build: (target: Target) => S,
+  forward: Readonly<Record<string, Forward>>,
+  mode: StandardiseMode,
+): S {
   const st = findStandardisation(api, t);
   if (!st.identity && st.grain > mode.maxGrain) throw coarseError(api, st, undefined);
-  if (st.identity) return mapStandardised(inX(), st, st.evaluations, forward);
+  if (st.identity) return mapStandardised(builtInX(target, build), st, st.evaluations, forward);
   let inner: S;
   try {
     inner = build(standardisedTarget(st, t, target));
   } catch (ez) {
     if (!retryable(ez)) throw noteCoordinate(ez, st);
-    return inX();
+    return builtInX(target, build);
   }
   return mapStandardised(inner, st, st.evaluations, forward);
 }
