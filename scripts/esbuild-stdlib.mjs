@@ -81,3 +81,19 @@ export const stdlibEsm = {
   },
 };
 
+/**
+ * `@stdlib/math-base-special-ldexp`, imported by the @stdlib functions exp, pow and the argument
+ * reduction of sin/cos/tan, is given src/vendor/math/ldexp.ts instead: the same algorithm step for
+ * step (compared bit for bit in test/vendor/math.test.ts) on one DataView, without the six word-helper
+ * packages it needs (listed as replaced in dist/THIRD_PARTY_LICENSES.md).
+ */
+const LDEXP = new URL('../src/vendor/math/ldexp.ts', import.meta.url).pathname;
+export const stdlibLdexp = {
+  name: 'stdlib-ldexp',
+  setup(b) {
+    b.onResolve({ filter: /^@stdlib\/math-base-special-ldexp$/ }, () => {
+      replaced.add('@stdlib/math-base-special-ldexp');
+      return { path: LDEXP, sideEffects: false };
+    });
+  },
+};
