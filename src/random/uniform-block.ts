@@ -41,14 +41,14 @@ export const UNIFORM_BLOCK_SIZE = 512;
 /** A buffer of uniforms that a kernel reads as `buf[pos++]` while `pos < len`, calling {@link UniformBlock.refill} otherwise. @internal */
 export class UniformBlock {
   /** Buffered uniforms. */
-  readonly buf: Float64Array;
+  declare readonly buf: Float64Array;
   /** Next unread position. */
-  pos: number;
+  declare pos: number;
   /** Number of valid entries in `buf`. */
-  len: number;
-  private readonly mt: Int32Array | null;
-  private mti: number;
-  private readonly source: Uniform | null;
+  declare len: number;
+  private declare readonly mt: Int32Array | null;
+  private declare mti: number;
+  private declare readonly source: Uniform | null;
 
   private constructor(size: number, mt: Int32Array | null, mti: number, source: Uniform | null) {
     this.buf = new Float64Array(size);

@@ -373,20 +373,20 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   // ----- tails --------------------------------------------------------------------------
   let left: TailPiece | null = null;
   let right: TailPiece | null = null;
-  if (lower < x[0] && l[0] > -Infinity) {
-    if (!(c[0] === c[0])) throw new ImproperDensityError(`${api}: cannot bound the left tail below ${x[0]}: the first strip has density 0 at one end`);
-    left = makeTail(kind, lower, x[0], x[0], y[0], c[0]);
-    if (!(left.logArea < Infinity)) {
-      throw new ImproperDensityError(`${api}: the left tail below ${x[0]} is not integrable under the first strip's chord (slope ${c[0]}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
+  // a tail beyond an end of the body: the extension of the outermost strip's chord (same messages for both sides)
+  const tail = (left: boolean): TailPiece => {
+    const e = left ? 0 : n;
+    const ci = c[left ? 0 : n - 1];
+    const where = `the ${left ? 'left' : 'right'} tail ${left ? 'below' : 'above'} ${x[e]}`;
+    if (!(ci === ci)) throw new ImproperDensityError(`${api}: cannot bound ${where}: the ${left ? 'first' : 'last'} strip has density 0 at one end`);
+    const p = left ? makeTail(kind, lower, x[0], x[0], y[0], ci) : makeTail(kind, x[n], upper, x[n], y[n], ci);
+    if (!(p.logArea < Infinity)) {
+      throw new ImproperDensityError(`${api}: ${where} is not integrable under the ${left ? 'first' : 'last'} strip's chord (slope ${ci}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
     }
-  }
-  if (upper > x[n] && l[n] > -Infinity) {
-    if (!(c[n - 1] === c[n - 1])) throw new ImproperDensityError(`${api}: cannot bound the right tail above ${x[n]}: the last strip has density 0 at one end`);
-    right = makeTail(kind, x[n], upper, x[n], y[n], c[n - 1]);
-    if (!(right.logArea < Infinity)) {
-      throw new ImproperDensityError(`${api}: the right tail above ${x[n]} is not integrable under the last strip's chord (slope ${c[n - 1]}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
-    }
-  }
+    return p;
+  };
+  if (lower < x[0] && l[0] > -Infinity) left = tail(true);
+  if (upper > x[n] && l[n] > -Infinity) right = tail(false);
 
   // ----- regions ------------------------------------------------------------------------
   const leftArea = left === null ? 0 : exp(left.logArea);

@@ -238,31 +238,22 @@ export function standardisedTarget(st: Standardisation, t: CheckedTarget, target
   if (t.mode !== undefined) out.mode = zOf(t.mode);
   if (target.modes !== undefined) out.modes = target.modes.map(zOf);
   done.add(out);
-  const { loc, scale } = st;
-  cells.set(out, (z: number): number => ulpOf(loc + scale * z) / scale);
-  maps.set(out, st);
-  sources.set(out, t);
+  origins.set(out, { st, source: t });
   return out;
 }
 
-/** The targets in x the standardised targets were built from. */
-const sources = new WeakMap<object, CheckedTarget>();
+/** Where the standardised targets came from: the map and the target in x. */
+const origins = new WeakMap<object, { readonly st: Standardisation; readonly source: CheckedTarget }>();
 
 /** The target in x a target built by {@link standardisedTarget} came from (undefined for any other target). @internal */
 export function sourceOf(target: object): CheckedTarget | undefined {
-  return sources.get(target);
+  return origins.get(target)?.source;
 }
-
-/** The maps of the standardised targets. */
-const maps = new WeakMap<object, Standardisation>();
 
 /** The map a target built by {@link standardisedTarget} came from (undefined for any other target). @internal */
 export function standardisationOf(target: object): Standardisation | undefined {
-  return maps.get(target);
+  return origins.get(target)?.st;
 }
-
-/** Cell widths of the standardised targets: logDensity(z) is constant where loc + 2^k·z rounds to the same double. */
-const cells = new WeakMap<object, (z: number) => number>();
 
 /**
  * For a target built by {@link standardisedTarget}: the width, in z, of the
@@ -271,17 +262,16 @@ const cells = new WeakMap<object, (z: number) => number>();
  * @internal
  */
 export function cellWidthOf(target: object): ((z: number) => number) | undefined {
-  return cells.get(target);
+  const o = origins.get(target);
+  if (o === undefined) return undefined;
+  const { loc, scale } = o.st;
+  return (z: number): number => ulpOf(loc + scale * z) / scale;
 }
 
 /** Gives `to` (a wrapper of `from` with the same logDensity values) the cell widths, the map and the target in x of `from`. @internal */
 export function inheritCells(from: object, to: object): void {
-  const c = cells.get(from);
-  if (c !== undefined) cells.set(to, c);
-  const m = maps.get(from);
-  if (m !== undefined) maps.set(to, m);
-  const x = sources.get(from);
-  if (x !== undefined) sources.set(to, x);
+  const o = origins.get(from);
+  if (o !== undefined) origins.set(to, o);
 }
 
 /** Spacing of the doubles at x (at least the smallest subnormal). */
