@@ -11,7 +11,7 @@ import type { Sampler, SamplerStats, Target } from '../../core/types.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import { maximizeLog } from '../../bounds/maximize.js';
 import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description.js';
-import { log, twoTo } from '../../vendor/math.js';
+import { twoTo } from '../../vendor/math.js';
 
 /** Change of the log-density over one scale unit (from loc, on the narrower side). */
 const SCALE_DROP = 0.5;
@@ -279,11 +279,8 @@ function ulpOf(x: number): number {
   const a = Math.abs(x);
   if (!(a >= 2.2250738585072014e-308)) return Number.MIN_VALUE; // below the smallest normal (2^−1022)
   if (a === Infinity) return Infinity;
-  // 2^e ≤ a < 2^(e+1): a first guess from log, then corrected by exact doublings and halvings
-  let p = twoTo(Math.min(1023, Math.max(-1022, Math.floor(log(a) / Math.LN2))));
-  for (let i = 0; i < 4 && p > a; i++) p *= 0.5;
-  for (let i = 0; i < 4 && p * 2 <= a; i++) p *= 2;
-  return p * twoTo(-52) * 2;
+  // 2^(e−51) for 2^e ≤ a < 2^(e+1): twice the distance to the next double (exact), 2^972 in the top binade
+  return a >= 8.98846567431158e307 ? 3.99168061906944e292 : 2 * (nextToward(a, Infinity) - a);
 }
 
 /** The map back, x = loc + 2^k·z clamped into the support. @internal */
