@@ -1,7 +1,7 @@
 import { build } from 'esbuild';
 import { gzipSync } from 'node:zlib';
 import { resolve } from 'node:path';
-import { stdlibEsm, stdlibGlue, stdlibLdexp, stdlibPure } from './esbuild-stdlib.mjs';
+import { stdlibEsm, stdlibGlue, stdlibLdexp, stdlibMainOnly, stdlibPure } from './esbuild-stdlib.mjs';
 const cases = {
   table: "import { normalTarget, tableSampler } from 'exactdraw'; globalThis.r = tableSampler(normalTarget(0, 1), { seed: 1 }).sample();",
   all: "import * as all from 'exactdraw'; globalThis.r = all;",
@@ -15,7 +15,7 @@ const r = await build({
   bundle: true, minify: true, write: false, format: 'esm', platform: 'browser', target: 'es2022',
   legalComments: 'none', logLevel: 'silent', metafile: true, mainFields: ['main','module'],
   alias: { exactdraw: fromSrc ? resolve('src/index.ts') : resolve('dist/index.js') },
-  plugins: fromSrc ? [stdlibLdexp, stdlibGlue, stdlibPure, stdlibEsm] : [],
+  plugins: fromSrc ? [stdlibLdexp, stdlibMainOnly, stdlibGlue, stdlibPure, stdlibEsm] : [],
 });
 const bytes = r.outputFiles[0].contents;
 console.log(which, fromSrc ? 'src' : 'dist', 'min', bytes.length, 'gzip', gzipSync(bytes, { level: 9 }).length);
