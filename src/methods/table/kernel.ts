@@ -13,19 +13,15 @@ import { T_LOG, invertPiece, logHeight, transformValue } from '../envelope/trans
 import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
 import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL } from './strip-table.js';
-import type { StripTable, TailPiece } from './strip-table.js';
+import type { KernelState, StripTable, TailPiece } from './strip-table.js';
 import { exp, log } from '../../vendor/math.js';
 
 /** The largest double below 1. */
 const BELOW_ONE = 0.9999999999999999;
 
 /** A strip table with its alias cells and target: the state of a table sampler. @internal */
-export interface TableState {
-  readonly table: StripTable;
+export interface TableState extends KernelState {
   readonly cells: AliasCells;
-  readonly logDensity: (x: number) => number;
-  /** Outcome of the last slow-path candidate: true when accepted. */
-  accepted: boolean;
 }
 
 /**
@@ -191,7 +187,7 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
 }
 
 /** Evaluates the target at x while sampling: counted, checked for NaN and +Infinity. @internal */
-export function evaluate(st: TableState, counters: Counters, x: number): number {
+export function evaluate(st: KernelState, counters: Counters, x: number): number {
   const lf = st.logDensity(x);
   counters.densityEvaluations++;
   return checkLogDensity(st.table.api, x, lf);

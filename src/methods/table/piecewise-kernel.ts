@@ -13,9 +13,8 @@ import type { UniformBlock } from '../../random/uniform-block.js';
 import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { evaluate } from './kernel.js';
-import type { TableState } from './kernel.js';
 import { R_LEFT_TAIL } from './strip-table.js';
-import type { PiecewiseStrips } from './strip-table.js';
+import type { KernelState, PiecewiseStrips } from './strip-table.js';
 import { exp, log } from '../../vendor/math.js';
 
 /**
@@ -25,7 +24,7 @@ import { exp, log } from '../../vendor/math.js';
  * the piece's envelope or squeeze throws {@link EnvelopeViolationError}.
  * @internal
  */
-export function piecewiseTailCandidate(st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock): number {
+export function piecewiseTailCandidate(st: KernelState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock): number {
   const t = pw.tables;
   const ref = st.table.ref;
   const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
@@ -53,7 +52,7 @@ export function piecewiseTailCandidate(st: TableState, counters: Counters, pw: P
 }
 
 /** A cap of a table over a piecewise envelope at x in strip i with height hv: the piece's squeeze and envelope at x, then the target. Sets `st.accepted`. @internal */
-export function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number): void {
+export function piecewiseCap(st: KernelState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number): void {
   const t = pw.tables;
   const ref = st.table.ref;
   let j = pw.first[i];

@@ -8,7 +8,6 @@
 import type { Counters } from '../../core/counters.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
 import type { Tables } from '../envelope/piece-tables.js';
-import type { TableState } from './kernel.js';
 
 /** Region types of the alias table. @internal */
 export const R_SURE = 0;
@@ -87,6 +86,14 @@ export interface StripTable extends StripRegions {
   readonly piecewise: PiecewiseStrips | null;
 }
 
+/** What the kernel's rare-path steps read of a table sampler's state (`TableState` of kernel.ts). @internal */
+export interface KernelState {
+  readonly table: StripTable;
+  readonly logDensity: (x: number) => number;
+  /** Outcome of the last slow-path candidate: true when accepted. */
+  accepted: boolean;
+}
+
 /** The piecewise part of a strip table built over a piecewise envelope. @internal */
 export interface PiecewiseStrips {
   /** The piecewise envelope the table was built on. */
@@ -105,8 +112,8 @@ export interface PiecewiseStrips {
    * (`piecewiseTailCandidate`, `piecewiseCap` of piecewise-kernel.ts), set
    * by the builder so that only the tables that have such strips bundle them.
    */
-  readonly tail: (st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock) => number;
-  readonly cap: (st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number) => void;
+  readonly tail: (st: KernelState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock) => number;
+  readonly cap: (st: KernelState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number) => void;
 }
 
 /**
