@@ -19,7 +19,7 @@ import { chmodSync, existsSync, readFileSync, readdirSync, rmSync, writeFileSync
 import { createRequire } from 'node:module';
 import { join, resolve } from 'node:path';
 import { build } from 'esbuild';
-import { replaced, stdlibEsm, stdlibGlue, stdlibPure } from './esbuild-stdlib.mjs';
+import { replaced, stdlibEsm, stdlibGlue, stdlibLdexp, stdlibMainOnly, stdlibPure } from './esbuild-stdlib.mjs';
 
 const require = createRequire(import.meta.url);
 const tsc = require.resolve('typescript/bin/tsc');
@@ -28,7 +28,7 @@ rmSync('dist', { recursive: true, force: true });
 execFileSync(process.execPath, [tsc, '-p', 'tsconfig.node.json', '--emitDeclarationOnly'], { stdio: 'inherit' });
 execFileSync(process.execPath, [tsc, '-p', 'tsconfig.cjs.json', '--emitDeclarationOnly'], { stdio: 'inherit' });
 
-const common = { bundle: true, target: 'es2022', mainFields: ['main', 'module'], legalComments: 'none', metafile: true, logLevel: 'warning', plugins: [stdlibGlue, stdlibPure, stdlibEsm] };
+const common = { bundle: true, target: 'es2022', mainFields: ['main', 'module'], legalComments: 'none', metafile: true, logLevel: 'warning', plugins: [stdlibLdexp, stdlibMainOnly, stdlibGlue, stdlibPure, stdlibEsm] };
 /** One output file per vendored function module (src/vendor/<dir>/<name>.ts; the MT19937 oracle is for tests only). */
 const vendorEntries = {};
 for (const dir of ['stdlib', 'math']) {
@@ -74,7 +74,7 @@ const coreFromPackage = {
     });
   },
 };
-const nodeEntry = await build({ ...common, plugins: [stdlibGlue, stdlibPure, stdlibEsm, coreFromPackage], entryPoints: { 'node/index': 'src/node/index.ts' }, outdir: 'dist', format: 'esm', platform: 'node' });
+const nodeEntry = await build({ ...common, plugins: [stdlibLdexp, stdlibMainOnly, stdlibGlue, stdlibPure, stdlibEsm, coreFromPackage], entryPoints: { 'node/index': 'src/node/index.ts' }, outdir: 'dist', format: 'esm', platform: 'node' });
 const tools = await build({
   ...common,
   entryPoints: { 'node/fill-worker': 'src/node/fill-worker.ts', 'cli/main': 'src/cli/main.ts' },

@@ -1,5 +1,5 @@
 // esbuild plugins for the vendored @stdlib packages (used by scripts/build.mjs).
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 
 /**
  * The vendored @stdlib packages are CommonJS without a `sideEffects` field; declaring them
@@ -81,3 +81,41 @@ export const stdlibEsm = {
   },
 };
 
+/**
+ * `@stdlib/math-base-special-ldexp`, imported by the @stdlib functions exp, pow and the argument
+ * reduction of sin/cos/tan, is given src/vendor/math/ldexp.ts instead: the same algorithm step for
+ * step (compared bit for bit in test/vendor/math.test.ts) on one DataView, without the six word-helper
+ * packages it needs (listed as replaced in dist/THIRD_PARTY_LICENSES.md).
+ */
+const LDEXP = new URL('../src/vendor/math/ldexp.ts', import.meta.url).pathname;
+export const stdlibLdexp = {
+  name: 'stdlib-ldexp',
+  setup(b) {
+    b.onResolve({ filter: /^@stdlib\/math-base-special-ldexp$/ }, () => {
+      replaced.add('@stdlib/math-base-special-ldexp');
+      return { path: LDEXP, sideEffects: false };
+    });
+  },
+};
+
+/**
+ * @stdlib packages whose index attaches a property (`factory`) to the main function that no
+ * bundled importer reads: their bare imports resolve to `lib/main.js`, so that bundles do not
+ * take the attached function (for math-base-tools-evalpoly a code generator through the Function
+ * constructor). An importer whose source reads the property keeps the index (checked per import).
+ */
+const MAIN_ONLY = { '@stdlib/math-base-tools-evalpoly': 'factory', '@stdlib/stats-base-dists-gamma-cdf': 'factory', '@stdlib/stats-base-dists-normal-cdf': 'factory' };
+export const stdlibMainOnly = {
+  name: 'stdlib-main-only',
+  setup(b) {
+    b.onResolve({ filter: /^@stdlib\/[a-z0-9-]+$/ }, async (args) => {
+      const prop = MAIN_ONLY[args.path];
+      if (prop === undefined || args.pluginData === 'stdlib-main-only') return undefined;
+      const src = args.importer && existsSync(args.importer) ? readFileSync(args.importer, 'utf8') : '';
+      const m = new RegExp(`(\\w+) = require\\( '${args.path}' \\)(\\.\\w+)?`).exec(src);
+      if (m === null || m[2] !== undefined || new RegExp(`\\b${m[1]}\\.${prop}\\b`).test(src)) return undefined;
+      const r = await b.resolve(`${args.path}/lib/main.js`, { kind: args.kind, resolveDir: args.resolveDir, importer: args.importer, pluginData: 'stdlib-main-only' });
+      return r.errors.length > 0 ? undefined : { ...r, sideEffects: false };
+    });
+  },
+};

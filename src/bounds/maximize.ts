@@ -6,7 +6,7 @@
  */
 import { InvalidTargetError } from '../core/errors.js';
 import { checkLogDensity } from '../core/evaluate.js';
-import { pow } from '../vendor/math.js';
+import { twoTo } from '../vendor/math.js';
 
 /** Options of {@link maximizeLog}. @internal */
 export interface MaximizeOptions {
@@ -98,7 +98,7 @@ export function maximizeLog(
     const span = finiteEnd ? Math.abs(end - c) : Infinity;
     if (span === 0) return false;
     for (let k = -40; k <= RAY_STEPS; k++) {
-      const d = s * pow(2, k);
+      const d = s * twoTo(k);
       if (finiteEnd && d >= span) break;
       const x = c + dir * d;
       if (!Number.isFinite(x) || x === c) continue;
@@ -107,7 +107,7 @@ export function maximizeLog(
     if (finiteEnd) {
       // Approach the finite end geometrically, then the end itself.
       for (let k = 1; k <= RAY_STEPS; k++) {
-        const x = end - dir * span * pow(2, -k);
+        const x = end - dir * span * twoTo(-k);
         if (x === end || x === c) break;
         last.push(probe(x));
       }

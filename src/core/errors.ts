@@ -18,7 +18,7 @@ export type ExactDrawErrorCode =
 /** Base class of every error thrown by exactdraw. */
 export class ExactDrawError extends Error {
   /** Stable machine-readable code. */
-  readonly code: ExactDrawErrorCode;
+  declare readonly code: ExactDrawErrorCode;
   /**
    * @param code - stable error code
    * @param message - human-readable message naming the API, the parameter and the value
@@ -61,9 +61,9 @@ export class InvalidOptionError extends ExactDrawError {
 /** `logDensity` returned `NaN` or `+Infinity` (`'NON_FINITE'`). */
 export class NonFiniteDensityError extends ExactDrawError {
   /** Point at which the density was evaluated. */
-  readonly x: number;
+  declare readonly x: number;
   /** The offending value. */
-  readonly value: number;
+  declare readonly value: number;
   /**
    * @param api - API that evaluated the density
    * @param x - evaluation point
@@ -80,7 +80,7 @@ export class NonFiniteDensityError extends ExactDrawError {
 /** The target does not have the shape the method needs (`'SHAPE_VIOLATION'`). */
 export class ShapeViolationError extends ExactDrawError {
   /** Interval where the violation was seen, when known. */
-  readonly interval: readonly [number, number] | undefined;
+  declare readonly interval: readonly [number, number] | undefined;
   /**
    * @param message - message naming the API, the assumption and where it fails
    * @param interval - interval where the violation was seen
@@ -95,11 +95,11 @@ export class ShapeViolationError extends ExactDrawError {
 /** The target was found above the envelope at `x` (`'ENVELOPE_VIOLATION'`). */
 export class EnvelopeViolationError extends ExactDrawError {
   /** Point of the violation. */
-  readonly x: number;
+  declare readonly x: number;
   /** Log of the target at `x`. */
-  readonly logTarget: number;
+  declare readonly logTarget: number;
   /** Log of the envelope (or of the squeeze, for a squeeze violation) at `x`. */
-  readonly logEnvelope: number;
+  declare readonly logEnvelope: number;
   /**
    * @param api - API that found the violation
    * @param x - point of the violation
@@ -132,7 +132,7 @@ export class ImproperDensityError extends ExactDrawError {
 /** Too many consecutive rejections (`'STALLED'`); the message carries the acceptance figures. */
 export class StalledSamplerError extends ExactDrawError {
   /** Consecutive rejections before giving up. */
-  readonly rejections: number;
+  declare readonly rejections: number;
   /**
    * @param api - API that stalled
    * @param rejections - consecutive rejections

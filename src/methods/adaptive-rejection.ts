@@ -17,7 +17,7 @@ import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { UniformBlock } from '../random/uniform-block.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
 import { HULL_FORWARD } from './standardised-forward.js';
-import { FINE_GRAIN, isStandardised, ordinaryTouchPoints, samplerStandardised } from './transform/standardise.js';
+import { FINE_GRAIN, isStandardised, ordinaryTouchPoints, samplerXFirst } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 
 export { DEFAULT_MAX_PIECES, SETUP_MAX_REFINEMENTS } from './hull/setup.js';
@@ -180,7 +180,7 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   if (options?.startPoints === undefined && !isStandardised(target)) {
     // The hull is built in the standardised coordinate (src/methods/transform/standardise.ts).
     const t = checkTarget(api, target);
-    return samplerStandardised(api, target, t, (z) => adaptiveRejectionSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN, ordinary: (s: AdaptiveRejectionSampler) => ordinaryTouchPoints(s.envelope.touchPoints) });
+    return samplerXFirst(api, target, t, (z) => adaptiveRejectionSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN, ordinary: (s: AdaptiveRejectionSampler) => ordinaryTouchPoints(s.envelope.touchPoints) });
   }
   let setup: ReturnType<typeof setupHull>;
   try {

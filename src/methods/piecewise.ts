@@ -39,7 +39,7 @@ import type { ScanPoint } from './piecewise/scan.js';
 import { tableInX } from './standardised-forward.js';
 import { areaX, clampX, pointX } from './transform/standardise.js';
 import type { Forward, Standardisation } from './transform/standardise.js';
-import { FINE_GRAIN, isStandardised, samplerStandardised } from './transform/standardise.js';
+import { FINE_GRAIN, isStandardised, samplerZFirst } from './transform/standardise.js';
 import { exp } from '../vendor/math.js';
 
 /**
@@ -366,7 +366,7 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const uniform = resolveUniform(api, opts);
   if (opts.breakpoints === undefined && !isStandardised(target)) {
     // Scan and cells in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, t, (z) => piecewiseSampler(z, opts), PIECEWISE_FORWARD, { order: 'z-first', maxGrain: FINE_GRAIN });
+    return samplerZFirst(api, target, t, (z) => piecewiseSampler(z, opts), PIECEWISE_FORWARD, { order: 'z-first', maxGrain: FINE_GRAIN });
   }
   const tangent = t.dLogDensity !== undefined && !derivativeFree;
 

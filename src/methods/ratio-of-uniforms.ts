@@ -15,7 +15,7 @@ import { checkMassBeyondDoubles, computeRectangle } from './ratio-of-uniforms/bo
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
 import { areaX, pointX } from './transform/standardise.js';
 import type { Forward, Standardisation } from './transform/standardise.js';
-import { cellWidthOf, isStandardised, markFinal, samplerStandardised, sourceOf, standardisationOf } from './transform/standardise.js';
+import { cellWidthOf, isStandardised, markFinal, samplerZFirst, sourceOf, standardisationOf } from './transform/standardise.js';
 import type { PoleOption } from './transform/sampler.js';
 import { log, pow } from '../vendor/math.js';
 
@@ -226,7 +226,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const t = checkTarget(api, target);
   if (shift === undefined && squeeze === undefined && !isStandardised(target)) {
     // Build the rectangle in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, t, (z) => ratioOfUniformsSampler(z, options), RATIO_FORWARD, { order: 'z-first', maxGrain: Infinity });
+    return samplerZFirst(api, target, t, (z) => ratioOfUniformsSampler(z, options), RATIO_FORWARD, { order: 'z-first', maxGrain: Infinity });
   }
   let rect: ReturnType<typeof computeRectangle>;
   try {

@@ -17,7 +17,7 @@ import { tableDraws } from './table/draws.js';
 import { resolveTableOptions } from './table/options.js';
 import { checkTarget } from '../core/validate.js';
 import { HULL_FORWARD } from './standardised-forward.js';
-import { FINE_GRAIN, isStandardised, ordinaryTouchPoints, samplerStandardised } from './transform/standardise.js';
+import { FINE_GRAIN, isStandardised, ordinaryTouchPoints, samplerXFirst } from './transform/standardise.js';
 
 export { DEFAULT_TABLE_STRIPS, DEFAULT_TABLE_TAIL_MASS, MAX_TABLE_STRIPS } from './table/options.js';
 
@@ -122,7 +122,7 @@ export function tableSampler(target: Target, options?: TableSamplerOptions): Tab
   const api = 'tableSampler';
   if (options?.startPoints === undefined && !isStandardised(target)) {
     // The hull and its table are built in the standardised coordinate (src/methods/transform/standardise.ts).
-    return samplerStandardised(api, target, checkTarget(api, target), (z) => tableSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN, ordinary: (s: TableSampler) => ordinaryTouchPoints(s.envelope.touchPoints) });
+    return samplerXFirst(api, target, checkTarget(api, target), (z) => tableSampler(z, options), HULL_FORWARD, { order: 'x-first', maxGrain: FINE_GRAIN, ordinary: (s: TableSampler) => ordinaryTouchPoints(s.envelope.touchPoints) });
   }
   const setup = setupHull(api, target, options, KNOWN);
   return createTableSampler(api, setup, options);

@@ -53,10 +53,6 @@ export interface MersenneTwister extends Uniform {
 }
 
 const N = 624;
-const M = 397;
-const UPPER = 0x80000000;
-const LOWER = 0x7fffffff;
-const MATRIX_A = 0x9908b0df;
 const TWO_26 = 67108864;
 const TWO_M53 = 1 / 9007199254740992;
 /** | version | sections | 624 | ...state | 1 | index | seed length | ...seed | */
@@ -79,20 +75,29 @@ export function rawStateOf(u: MersenneTwister): Uint32Array | undefined {
   return f === undefined ? undefined : f();
 }
 
-/** The MT19937 state transition (Matsumoto & Nishimura 1998), in place on the 624 words. @internal */
-export function twist(mt: Uint32Array): void {
+/**
+ * The MT19937 state transition (Matsumoto & Nishimura 1998), in place on the
+ * 624 words, viewed as an Int32Array (the same bits as the unsigned words:
+ * shifts and masks give the same results, and `>>>` yields the unsigned
+ * values; the engine keeps every word in a register as a 32-bit integer).
+ * The constants (N = 624, M = 397, the masks, MATRIX_A = 0x9908b0df) are
+ * literals: the bundle turns module constants into `var`s, which the engine
+ * reloads on every use. Shared by the generator and the block generator of
+ * uniform-block.ts. @internal
+ */
+export function twist(mt: Int32Array): void {
   let kk = 0;
   let y: number;
-  for (; kk < N - M; kk++) {
-    y = (mt[kk] & UPPER) | (mt[kk + 1] & LOWER);
-    mt[kk] = mt[kk + M] ^ (y >>> 1) ^ (-(y & 1) & MATRIX_A);
+  for (; kk < 227; kk++) {
+    y = (mt[kk] & 0x80000000) | (mt[kk + 1] & 0x7fffffff);
+    mt[kk] = mt[kk + 397] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
   }
-  for (; kk < N - 1; kk++) {
-    y = (mt[kk] & UPPER) | (mt[kk + 1] & LOWER);
-    mt[kk] = mt[kk + M - N] ^ (y >>> 1) ^ (-(y & 1) & MATRIX_A);
+  for (; kk < 623; kk++) {
+    y = (mt[kk] & 0x80000000) | (mt[kk + 1] & 0x7fffffff);
+    mt[kk] = mt[kk - 227] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
   }
-  y = (mt[N - 1] & UPPER) | (mt[0] & LOWER);
-  mt[N - 1] = mt[M - 1] ^ (y >>> 1) ^ (-(y & 1) & MATRIX_A);
+  y = (mt[623] & 0x80000000) | (mt[0] & 0x7fffffff);
+  mt[623] = mt[396] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
 }
 
 /** `init_genrand(s)` on the 624 words (Matsumoto & Nishimura's reference seeding). */
@@ -157,10 +162,11 @@ export function seededState(seed: number | ArrayLike<number>): Uint32Array {
 /** The generator over a state array (owned: nothing else may hold it). @internal */
 export function generatorFromState(state: Uint32Array): MersenneTwister {
   const mt = state.subarray(STATE_OFFSET, STATE_OFFSET + N);
+  const words = new Int32Array(state.buffer, state.byteOffset + STATE_OFFSET * 4, N);
   let i = state[INDEX_OFFSET];
   const uint32 = (): number => {
     if (i >= N) {
-      twist(mt);
+      twist(words);
       i = 0;
     }
     let r = mt[i++];

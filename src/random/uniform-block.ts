@@ -28,7 +28,7 @@
  */
 import type { Uniform } from '../core/types.js';
 import type { MersenneTwister } from './mersenne-twister.js';
-import { rawStateOf } from './mersenne-twister.js';
+import { rawStateOf, twist } from './mersenne-twister.js';
 
 const N = 624;
 /** Offsets in the `@stdlib/random-base-mt19937` state array: | version | sections | 624 | ...state | 1 | index | ... */
@@ -41,14 +41,14 @@ export const UNIFORM_BLOCK_SIZE = 512;
 /** A buffer of uniforms that a kernel reads as `buf[pos++]` while `pos < len`, calling {@link UniformBlock.refill} otherwise. @internal */
 export class UniformBlock {
   /** Buffered uniforms. */
-  readonly buf: Float64Array;
+  declare readonly buf: Float64Array;
   /** Next unread position. */
-  pos: number;
+  declare pos: number;
   /** Number of valid entries in `buf`. */
-  len: number;
-  private readonly mt: Int32Array | null;
-  private mti: number;
-  private readonly source: Uniform | null;
+  declare len: number;
+  private declare readonly mt: Int32Array | null;
+  private declare mti: number;
+  private declare readonly source: Uniform | null;
 
   private constructor(size: number, mt: Int32Array | null, mti: number, source: Uniform | null) {
     this.buf = new Float64Array(size);
@@ -93,7 +93,7 @@ export class UniformBlock {
   }
 }
 
-// The two functions below write the MT19937 constants (N = 624, M = 397, the
+// The function below and twist (mersenne-twister.ts) write the MT19937 constants (N = 624, M = 397, the
 // masks, MATRIX_A = 0x9908b0df) as literals: the bundle turns module constants
 // into `var`s, which the engine reloads on every use (measured: 16 ns instead
 // of 8 per uniform).
@@ -130,22 +130,6 @@ function fillBlock(mt: Int32Array, buf: Float64Array, mti: number): number {
     buf[k] = ((a >>> 5) * 67108864 + (b >>> 6)) * 1.1102230246251565e-16; // (a ≫ 5)·2^26 + (b ≫ 6), times 2^-53
   }
   return i;
-}
-
-/** The MT19937 state transition (Matsumoto & Nishimura 1998), in place. */
-function twist(mt: Int32Array): void {
-  let kk = 0;
-  let y: number;
-  for (; kk < 227; kk++) {
-    y = (mt[kk] & 0x80000000) | (mt[kk + 1] & 0x7fffffff);
-    mt[kk] = mt[kk + 397] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
-  }
-  for (; kk < 623; kk++) {
-    y = (mt[kk] & 0x80000000) | (mt[kk + 1] & 0x7fffffff);
-    mt[kk] = mt[kk - 227] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
-  }
-  y = (mt[623] & 0x80000000) | (mt[0] & 0x7fffffff);
-  mt[623] = mt[396] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
 }
 
 /** The next uniform of a block, for kernels (small enough to inline: a bounds test and a load). @internal */

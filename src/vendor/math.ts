@@ -22,6 +22,7 @@ export { log1p } from './math/log1p.js';
 export { log1pFast } from './math/log1p-fast.js';
 export { expm1 } from './math/expm1.js';
 export { pow } from './math/pow.js';
+export { twoTo } from './math/two-to.js';
 export { sin } from './math/sin.js';
 export { cos } from './math/cos.js';
 export { tan } from './math/tan.js';

@@ -4,3 +4,18 @@ declare module '@stdlib/stats-kstest/lib/marsaglia.js' {
   const pKolmogorov: (d: number, n: number) => number;
   export default pKolmogorov;
 }
+/**
+ * The main function of a `@stdlib/stats-base-dists-*` package, without the
+ * package index (which attaches a `factory` the library never uses, so a
+ * bundle would take it too). Each wrapper in src/vendor/stdlib/ declares
+ * its own signature.
+ */
+declare module '@stdlib/stats-base-dists-*/lib/main.js' {
+  const main: (...args: number[]) => number;
+  export default main;
+}
+/** FDLIBM log1p's polynomial in s² (the evaluator `@stdlib/math-base-special-log1p` itself calls), shared by `log1pFast`. */
+declare module '@stdlib/math-base-special-log1p/lib/polyval_lp.js' {
+  const polyval: (z: number) => number;
+  export default polyval;
+}

@@ -7,6 +7,9 @@
 import { describe, expect, it } from 'vitest';
 import * as dm from '../../src/vendor/math.js';
 import { mersenneTwister } from '../../src/index.js';
+import { ldexp } from '../../src/vendor/math/ldexp.js';
+// the package the build replaces by the port (a dependency of the vendored @stdlib exp and pow)
+import stdlibLdexp from '@stdlib/math-base-special-ldexp';
 
 /** Distance in ulps between two doubles of the same sign (Infinity when one is not finite and they differ). */
 function ulps(a: number, b: number): number {
@@ -58,6 +61,49 @@ describe('deterministic math', () => {
     for (let k = 0; k <= 1023; k++, p *= 2) expect(dm.pow(2, k)).toBe(p);
     p = 1;
     for (let k = 0; k >= -1074; k--, p /= 2) expect(dm.pow(2, k)).toBe(p);
+  });
+
+  it('twoTo(k) is exactly 2^k: the doubles made by doubling and halving for k in [-1074, 1023], pow(2, k) and pow(0.5, -k) for every k in [-1200, 1200], and NaN for a k that is not an integer', () => {
+    // 2^k by repeated doubling / halving is exact (IEEE 754 binary64, common practice); beyond the range 0 and Infinity
+    let p = 1;
+    for (let k = 0; k <= 1100; k++, p *= 2) expect(dm.twoTo(k)).toBe(p);
+    p = 1;
+    for (let k = 0; k >= -1100; k--, p /= 2) expect(dm.twoTo(k)).toBe(p);
+    const bad: number[] = [];
+    for (let k = -1200; k <= 1200; k++) if (!Object.is(dm.twoTo(k), dm.pow(2, k)) || !Object.is(dm.twoTo(k), dm.pow(0.5, -k))) bad.push(k);
+    expect(bad).toEqual([]);
+    expect([dm.twoTo(0.5), dm.twoTo(NaN), dm.twoTo(Infinity)].every((v) => Number.isNaN(v))).toBe(true);
+  });
+
+  it('twin: the check of twoTo sees an exponent off by one (a helper that returned 2^(k+1) fails it)', () => {
+    const offByOne = (k: number): number => dm.twoTo(k + 1);
+    let bad = 0;
+    for (let k = -1200; k <= 1200; k++) if (!Object.is(offByOne(k), dm.pow(2, k))) bad++;
+    expect(bad).toBeGreaterThan(2000);
+  });
+
+  it('ldexp (the port the build gives to @stdlib exp, pow, sin/cos/tan) returns the bits of @stdlib/math-base-special-ldexp on 200,000 pairs: normal and subnormal fractions, exponents over the whole range and beyond, and the special values', () => {
+    const frac: number[] = [0, -0, NaN, Infinity, -Infinity, 1, -1, 5e-324, -5e-324, 2.2250738585072014e-308, 2.225073858507201e-308, 1.7976931348623157e308, 0.7071067811865476, 1.4142135623730951];
+    for (let i = 0; i < 2_000; i++) {
+      const m = 1 + u();
+      frac.push(m * dm.twoTo(Math.floor(-1074 + 2098 * u())) * (u() < 0.5 ? -1 : 1)); // any binary exponent, subnormals included
+    }
+    const exps = [0, 1, -1, 52, -52, 1023, 1024, -1022, -1023, -1074, -1075, -1076, 2046, -2098, 3000, -3000];
+    for (let i = 0; i < 84; i++) exps.push(Math.floor(-2200 + 4400 * u()));
+    const bad: string[] = [];
+    for (const f of frac) for (const e of exps) if (!Object.is(ldexp(f, e), stdlibLdexp(f, e))) bad.push(`ldexp(${f}, ${e}) = ${ldexp(f, e)}, @stdlib: ${stdlibLdexp(f, e)}`);
+    expect(bad.slice(0, 5)).toEqual([]);
+    expect(frac.length * exps.length).toBeGreaterThan(200_000);
+  });
+
+  it('twin: the ldexp comparison sees a port that rounds a subnormal result twice (frac·2^(exp+1)·2^-1 instead of one multiplication)', () => {
+    const twice = (f: number, e: number): number => (e < -1022 ? ldexp(ldexp(f, e + 1), -1) : ldexp(f, e));
+    let bad = 0;
+    for (let i = 0; i < 20_000; i++) {
+      const f = 1 + u();
+      if (!Object.is(twice(f, -1070), stdlibLdexp(f, -1070))) bad++;
+    }
+    expect(bad).toBeGreaterThan(1_000);
   });
 
   it('log10 of the double nearest 10^k is k for k in [-307, 308] (the figure ticks floor it)', () => {

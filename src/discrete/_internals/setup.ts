@@ -10,7 +10,7 @@ import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
 import type { CheckedDiscreteTarget } from '../validate.js';
 
 /** Largest |k| passed to logPmf: draws stay safe integers. @internal */
-export const MAX_DISCRETE_K = Number.MAX_SAFE_INTEGER;
+export const MAX_DISCRETE_K = 9007199254740991; // Number.MAX_SAFE_INTEGER (a literal: a bundle drops an unused one)
 /**
  * Absolute log tolerance of the shape checks and log margin added to every
  * hat: a hat is raised by this much (costing a factor e^1e-6 in acceptance)

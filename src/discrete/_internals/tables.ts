@@ -25,12 +25,12 @@ import { pow } from '../../vendor/math.js';
 /** Units per table: probabilities are multiples of 2^-52. @internal */
 export const TABLE_UNITS = 4503599627370496; // 2^52
 /** Largest number of entries of a finite table. @internal */
-export const MAX_TABLE_ENTRIES = 1 << 24;
+export const MAX_TABLE_ENTRIES = 16777216; // 2^24
 
 /** Tables up to this many entries build in shared scratch arrays (no user code runs while they are in use). */
 const SCRATCH_MAX = 4096;
-const f64Scratch = [new Float64Array(64), new Float64Array(64)];
-const i32Scratch = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];
+const f64Scratch = /* @__PURE__ */ (() => [new Float64Array(64), new Float64Array(64)])();
+const i32Scratch = /* @__PURE__ */ (() => [new Int32Array(64), new Int32Array(64), new Int32Array(64)])();
 
 /**
  * A work array of at least n entries (contents undefined): shared scratch

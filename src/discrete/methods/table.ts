@@ -32,7 +32,7 @@ import { exp, expm1, log } from '../../vendor/math.js';
 /** logPmf drop below the maximum at which the table stops growing (e^-40 ≈ 4e-18). @internal */
 export const TABLE_LOG_DROP = 40;
 /** Largest number of points in a table of {@link discreteSampler}. */
-export const MAX_DISCRETE_TABLE_POINTS = 1 << 20;
+export const MAX_DISCRETE_TABLE_POINTS = 1048576; // 2^20
 
 /** The layout of a table. @internal */
 export interface DiscreteTable {

@@ -48,10 +48,10 @@ import { digammaValue, trigammaValue, specialMagnitude } from './special.js';
 import { atan, cos, cosh, exp, expm1, log, log1p, pow, sin, sinh, tan, tanh } from '../../vendor/math.js';
 
 const PI = Math.PI;
-const HALF_PI = Math.PI / 2;
+const HALF_PI = 1.5707963267948966; // Math.PI / 2 (a literal: a bundle drops an unused one)
 /** Below this magnitude the period index of sin/cos/tan is computed; above it the range is the full period. */
 const PERIOD_LIMIT = /* @__PURE__ */ pow(2, 40);
-const TMP = new Float64Array(2);
+const TMP = /* @__PURE__ */ new Float64Array(2);
 
 /** Sets slot `d` to `[lo, hi]`. @internal */
 export function setI(S: Float64Array, d: number, lo: number, hi: number): void {

@@ -33,17 +33,17 @@
  */
 import { pow } from '../../vendor/math.js';
 
-const F = new Float64Array(1);
-const U = new Uint32Array(F.buffer);
+const F = /* @__PURE__ */ new Float64Array(1);
+const U = /* @__PURE__ */ (() => new Uint32Array(F.buffer))();
 /** Index of the low and high 32-bit words of a double (endianness); pure, so that bundles without the formula code drop it. */
 const HI = /* @__PURE__ */ (() => {
   F[0] = 1;
   return U[1] === 0x3ff00000 ? 1 : 0;
 })();
-const LO = 1 - HI;
+const LO = /* @__PURE__ */ (() => 1 - HI)();
 
 /** Largest finite double. @internal */
-export const MAX = Number.MAX_VALUE;
+export const MAX = 1.7976931348623157e308; // Number.MAX_VALUE (a literal: a bundle drops an unused one)
 
 /** Next double above `x` (`NaN` and `+Infinity` unchanged). @internal */
 export function nextUp(x: number): number {

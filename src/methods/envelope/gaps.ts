@@ -4,7 +4,7 @@
  * @packageDocumentation
  */
 import { ShapeViolationError } from '../../core/errors.js';
-import { pow } from '../../vendor/math.js';
+import { twoTo } from '../../vendor/math.js';
 
 /**
  * Octaves of distance beyond a zero that {@link checkBeyondZero} probes:
@@ -43,10 +43,10 @@ export function checkBeyondZero(api: string, evaluate: (x: number) => number, ze
   const dir = zero > edge ? 1 : -1;
   const delta = Math.abs(zero - edge);
   if (!(delta > 0)) return;
-  const reach = pow(2, GAP_PROBE_OCTAVES) * Math.max(delta, span);
+  const reach = twoTo(GAP_PROBE_OCTAVES) * Math.max(delta, span);
   let lastZero = zero;
   for (let k = 0; k < GAP_PROBE_MAX; k++) {
-    const d = delta * pow(2, k);
+    const d = delta * twoTo(k);
     let x = zero + dir * d;
     let last = false;
     if (!Number.isFinite(x) || d > reach || (dir > 0 ? !(x < bound) : !(x > bound))) {

@@ -19,18 +19,20 @@
  */
 export class GuideTable {
   /** Cumulative areas (with the sentinel). */
-  cum: Float64Array;
+  declare cum: Float64Array;
   /** Guide entries. */
-  guide: Int32Array;
+  declare guide: Int32Array;
   /** Number of guide entries in use. */
-  size = 0;
+  declare size: number;
   /** Sum of the areas. */
-  total = 0;
+  declare total: number;
 
   /** @param capacity - maximum number of pieces (0: storage comes later through {@link GuideTable.useStorage}) */
   constructor(capacity: number) {
     this.cum = new Float64Array(capacity);
     this.guide = new Int32Array(capacity);
+    this.size = 0;
+    this.total = 0;
   }
 
   /** Uses the given arrays (views of a caller's store, each of the same length ≥ the number of pieces) as storage. */

@@ -6,7 +6,7 @@
  * @packageDocumentation
  */
 import { ImproperDensityError, InvalidTargetError } from '../../core/errors.js';
-import { pow } from '../../vendor/math.js';
+import { twoTo } from '../../vendor/math.js';
 
 /** A probed point: x, log-density, derivative (NaN when not asked for). @internal */
 export interface Probe {
@@ -152,7 +152,7 @@ export function automaticStartPoints(s: StartSearch, lower: number, upper: numbe
         lm = p.l;
         gm = p.g;
         climbs++;
-        d *= climbs < 30 ? 2 : pow(2, Math.min(climbs - 28, 60));
+        d *= climbs < 30 ? 2 : twoTo(Math.min(climbs - 28, 60));
         if (it === SIDE_MAX_STEPS - 1) improperClimb(s, p, dir);
         continue;
       }
@@ -199,7 +199,7 @@ function firstFinite(s: StartSearch, probe: (x: number) => Probe, lo: number, hi
     for (const dir of [1, -1]) {
       const bnd = dir > 0 ? hi : lo;
       let x = x0 + dir * step;
-      if (dir > 0 ? !(x < bnd) : !(x > bnd)) x = x0 + (bnd - x0) * (1 - pow(0.5, it + 1));
+      if (dir > 0 ? !(x < bnd) : !(x > bnd)) x = x0 + (bnd - x0) * (1 - twoTo(-(it + 1)));
       if (dir > 0 ? !(x < bnd) : !(x > bnd)) continue;
       p = probe(x);
       if (p.l > -Infinity) return p;
@@ -261,7 +261,7 @@ function searchWithDerivative(s: StartSearch, probe: (x: number) => Probe, lo: n
           if (newton > 0 && newton < Infinity) step = newton;
         }
       }
-      h = Math.max(it < 30 ? 4 * h : h * pow(2, Math.min(it - 28, 60)), step);
+      h = Math.max(it < 30 ? 4 * h : h * twoTo(Math.min(it - 28, 60)), step);
       x = p.x + dir * step;
       const bnd = dir > 0 ? hi : lo;
       if (dir > 0 ? !(x < bnd) : !(x > bnd)) {
@@ -331,7 +331,7 @@ function searchWithValues(s: StartSearch, probe: (x: number) => Probe, lo: numbe
   }
   // expand in the ascent direction
   for (let it = 0; it < MODE_SEARCH_MAX_STEPS; it++) {
-    const step = Math.abs(pB.x - pA.x) * (it < 30 ? 2 : pow(2, Math.min(it - 28, 60)));
+    const step = Math.abs(pB.x - pA.x) * (it < 30 ? 2 : twoTo(Math.min(it - 28, 60)));
     const bnd = dir > 0 ? hi : lo;
     let x = pB.x + dir * step;
     if (dir > 0 ? !(x < bnd) : !(x > bnd)) {

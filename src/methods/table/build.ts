@@ -222,29 +222,12 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   const interior = (p: number, count: number): number[] => {
     const out: number[] = [];
     if (count < 2) return out;
-    // per gap of the model: mass and the constants of its inverse (expLinearMass / expLinearInverse, inlined)
+    // per gap of the model: its mass (expLinearMass), then each point by expLinearInverse
     const ng = nx.length - 1;
     const gmass = new Array<number>(ng);
-    const ga = new Array<number>(ng);
-    const gd = new Array<number>(ng);
     let G = 0;
     for (let g = 0; g < ng; g++) {
-      let A = nl[g];
-      let B = nl[g + 1];
-      if (A === -Infinity && B === -Infinity) {
-        gmass[g] = 0;
-        ga[g] = -Infinity;
-        gd[g] = 0;
-        continue;
-      }
-      if (A === -Infinity) A = B - 30;
-      else if (B === -Infinity) B = A - 30;
-      const w = nx[g + 1] - nx[g];
-      const av = p * A;
-      const d = p * (B - A);
-      ga[g] = av;
-      gd[g] = d;
-      gmass[g] = Math.abs(d) < 1e-9 ? w * exp(av + 0.5 * d) : (w * (exp(av + d) - exp(av))) / d;
+      gmass[g] = expLinearMass(nl[g], nl[g + 1], nx[g + 1] - nx[g], p);
       G += gmass[g];
     }
     let g = 0;
@@ -253,11 +236,9 @@ export function buildStripTable(inp: StripTableInput): StripTable {
       const m = (G * i) / count;
       while (g + 1 < ng && acc + gmass[g] < m) acc += gmass[g++];
       const w = nx[g + 1] - nx[g];
-      const d = gd[g];
       const rem = m - acc;
-      let sx = Math.abs(d) < 1e-9 ? rem / exp(ga[g] + 0.5 * d) : (w / d) * log1p((rem * d) / (w * exp(ga[g])));
-      if (!(sx >= 0)) sx = sx !== sx ? 0.5 * w : 0;
-      const x = nx[g] + (sx > w ? w : sx);
+      // a gap of zero mass (both ends -Infinity) can only be the last: its far end, or its middle when nothing remains
+      const x = nx[g] + (nl[g] === -Infinity && nl[g + 1] === -Infinity ? (rem < 0 ? 0 : rem > 0 ? w : 0.5 * w) : expLinearInverse(nl[g], nl[g + 1], w, p, rem));
       if (x > L && x < R) out.push(x);
     }
     return out;
@@ -392,20 +373,20 @@ export function buildStripTable(inp: StripTableInput): StripTable {
   // ----- tails --------------------------------------------------------------------------
   let left: TailPiece | null = null;
   let right: TailPiece | null = null;
-  if (lower < x[0] && l[0] > -Infinity) {
-    if (!(c[0] === c[0])) throw new ImproperDensityError(`${api}: cannot bound the left tail below ${x[0]}: the first strip has density 0 at one end`);
-    left = makeTail(kind, lower, x[0], x[0], y[0], c[0]);
-    if (!(left.logArea < Infinity)) {
-      throw new ImproperDensityError(`${api}: the left tail below ${x[0]} is not integrable under the first strip's chord (slope ${c[0]}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
+  // a tail beyond an end of the body: the extension of the outermost strip's chord (same messages for both sides)
+  const tail = (left: boolean): TailPiece => {
+    const e = left ? 0 : n;
+    const ci = c[left ? 0 : n - 1];
+    const where = `the ${left ? 'left' : 'right'} tail ${left ? 'below' : 'above'} ${x[e]}`;
+    if (!(ci === ci)) throw new ImproperDensityError(`${api}: cannot bound ${where}: the ${left ? 'first' : 'last'} strip has density 0 at one end`);
+    const p = left ? makeTail(kind, lower, x[0], x[0], y[0], ci) : makeTail(kind, x[n], upper, x[n], y[n], ci);
+    if (!(p.logArea < Infinity)) {
+      throw new ImproperDensityError(`${api}: ${where} is not integrable under the ${left ? 'first' : 'last'} strip's chord (slope ${ci}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
     }
-  }
-  if (upper > x[n] && l[n] > -Infinity) {
-    if (!(c[n - 1] === c[n - 1])) throw new ImproperDensityError(`${api}: cannot bound the right tail above ${x[n]}: the last strip has density 0 at one end`);
-    right = makeTail(kind, x[n], upper, x[n], y[n], c[n - 1]);
-    if (!(right.logArea < Infinity)) {
-      throw new ImproperDensityError(`${api}: the right tail above ${x[n]} is not integrable under the last strip's chord (slope ${c[n - 1]}); the target may not be ${kind === T_LOG ? 'log-concave' : 'T-concave'} or its tail may not decay`);
-    }
-  }
+    return p;
+  };
+  if (lower < x[0] && l[0] > -Infinity) left = tail(true);
+  if (upper > x[n] && l[n] > -Infinity) right = tail(false);
 
   // ----- regions ------------------------------------------------------------------------
   const leftArea = left === null ? 0 : exp(left.logArea);

@@ -8,25 +8,20 @@ import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.j
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
 import { notConcave, shapeError } from '../envelope/concavity.js';
-import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece, logHeight, transformValue } from '../envelope/transforms.js';
 import type { AliasCells } from './alias.js';
 import { CELL_STRIDE } from './alias.js';
 import { R_CAP, R_LEFT_TAIL, R_RIGHT_TAIL } from './strip-table.js';
-import type { PiecewiseStrips, StripTable, TailPiece } from './strip-table.js';
+import type { KernelState, StripTable, TailPiece } from './strip-table.js';
 import { exp, log } from '../../vendor/math.js';
 
 /** The largest double below 1. */
 const BELOW_ONE = 0.9999999999999999;
 
 /** A strip table with its alias cells and target: the state of a table sampler. @internal */
-export interface TableState {
-  readonly table: StripTable;
+export interface TableState extends KernelState {
   readonly cells: AliasCells;
-  readonly logDensity: (x: number) => number;
-  /** Outcome of the last slow-path candidate: true when accepted. */
-  accepted: boolean;
 }
 
 /**
@@ -122,7 +117,7 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const type = tb.regionType[r];
   const pw = tb.piecewise;
   if (type === R_LEFT_TAIL || type === R_RIGHT_TAIL) {
-    return pw === null ? hullTailCandidate(st, counters, type, pos, blk) : piecewiseTailCandidate(st, counters, pw, type, pos, blk);
+    return pw === null ? hullTailCandidate(st, counters, type, pos, blk) : pw.tail(st, counters, pw, type, pos, blk);
   }
   const i = tb.regionStrip[r];
   const a = tb.x[i];
@@ -138,7 +133,7 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   const up = tb.up[i];
   const hv = up - blk.next() * (up - tb.lo[i]);
   if (pw === null) hullCap(st, counters, i, x, hv);
-  else piecewiseCap(st, counters, pw, i, x, hv);
+  else pw.cap(st, counters, pw, i, x, hv);
   return x;
 }
 
@@ -195,72 +190,8 @@ function hullCap(st: TableState, counters: Counters, i: number, x: number, hv: n
   st.accepted = th < transformValue(kind, lf - ref);
 }
 
-/**
- * A tail region of a table built over a piecewise envelope: one of its
- * pieces picked by area (pos) and drawn from as the piecewise kernel does (a
- * fresh uniform for the position, one for acceptance). An evaluation outside
- * the piece's envelope or squeeze throws {@link EnvelopeViolationError}.
- */
-function piecewiseTailCandidate(st: TableState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock): number {
-  const t = pw.tables;
-  const ref = st.table.ref;
-  const idx = type === R_LEFT_TAIL ? pw.tailL : pw.tailR;
-  const cum = type === R_LEFT_TAIL ? pw.cumL : pw.cumR;
-  const v = pos * cum[cum.length - 1];
-  let k = 0;
-  while (k + 1 < cum.length && cum[k] <= v) k++;
-  const j = idx[k];
-  const x = pieceInverse(t, j, blk.next());
-  const u3 = blk.next();
-  if (!(x > -Infinity && x < Infinity)) {
-    st.accepted = false;
-    return x;
-  }
-  const env = pieceLogEnvelope(t, j, x);
-  const sq = pieceLogSqueeze(t, j, x);
-  if (u3 < exp(sq - env)) {
-    st.accepted = true;
-    return x;
-  }
-  const lf = evaluate(st, counters, x);
-  checkPiecewise(st.table.api, x, lf, ref, env, sq);
-  st.accepted = u3 < exp(lf - ref - env);
-  return x;
-}
-
-/** A cap of a table over a piecewise envelope at x in strip i with height hv: the piece's squeeze and envelope at x, then the target. Sets `st.accepted`. */
-function piecewiseCap(st: TableState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number): void {
-  const t = pw.tables;
-  const ref = st.table.ref;
-  let j = pw.first[i];
-  const jEnd = pw.last[i];
-  while (j < jEnd && t.hi[j] < x) j++;
-  const th = log(hv);
-  const sq = pieceLogSqueeze(t, j, x);
-  if (th < sq) {
-    st.accepted = true;
-    return;
-  }
-  const env = pieceLogEnvelope(t, j, x);
-  if (th >= env) {
-    st.accepted = false;
-    return;
-  }
-  const lf = evaluate(st, counters, x);
-  checkPiecewise(st.table.api, x, lf, ref, env, sq);
-  st.accepted = th < lf - ref;
-}
-
-/** Throws EnvelopeViolationError when lf lies above the piece's envelope or below its squeeze (relative logs env, sq). */
-function checkPiecewise(api: string, x: number, lf: number, ref: number, env: number, sq: number): void {
-  const lr = lf - ref;
-  const tol = logTolerance(ref, lr);
-  if (lr > env + tol) throw new EnvelopeViolationError(api, x, lf, env + ref, 'envelope');
-  if (lr < sq - tol) throw new EnvelopeViolationError(api, x, lf, sq + ref, 'squeeze');
-}
-
-/** Evaluates the target at x while sampling: counted, checked for NaN and +Infinity. */
-function evaluate(st: TableState, counters: Counters, x: number): number {
+/** Evaluates the target at x while sampling: counted, checked for NaN and +Infinity. @internal */
+export function evaluate(st: KernelState, counters: Counters, x: number): number {
   const lf = st.logDensity(x);
   counters.densityEvaluations++;
   return checkLogDensity(st.table.api, x, lf);

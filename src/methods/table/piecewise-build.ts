@@ -43,6 +43,7 @@ import { pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
 import type { Tables } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG } from '../envelope/transforms.js';
+import { piecewiseCap, piecewiseTailCandidate } from './piecewise-kernel.js';
 import { stripRegions } from './strip-table.js';
 import type { PiecewiseStrips, StripTable } from './strip-table.js';
 import { exp } from '../../vendor/math.js';
@@ -234,7 +235,7 @@ export function buildPiecewiseStripTable(inp: PiecewiseStripInput): { table: Str
   const rightArea = right.cum.length > 0 ? right.cum[right.cum.length - 1] : 0;
   const regions = stripRegions(n, x, logUp, up, lo, leftArea, rightArea);
   const nan = (k: number): Float64Array => new Float64Array(k).fill(NaN);
-  const pw: PiecewiseStrips = { tables: t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum };
+  const pw: PiecewiseStrips = { tables: t, first: pFirst, last: pLast, tailL: left.idx, cumL: left.cum, tailR: right.idx, cumR: right.cum, tail: piecewiseTailCandidate, cap: piecewiseCap };
   const table: StripTable = {
     api,
     kind: T_LOG,

@@ -5,6 +5,8 @@
  *
  * @packageDocumentation
  */
+import type { Counters } from '../../core/counters.js';
+import type { UniformBlock } from '../../random/uniform-block.js';
 import type { Tables } from '../envelope/piece-tables.js';
 
 /** Region types of the alias table. @internal */
@@ -84,6 +86,14 @@ export interface StripTable extends StripRegions {
   readonly piecewise: PiecewiseStrips | null;
 }
 
+/** What the kernel's rare-path steps read of a table sampler's state (`TableState` of kernel.ts). @internal */
+export interface KernelState {
+  readonly table: StripTable;
+  readonly logDensity: (x: number) => number;
+  /** Outcome of the last slow-path candidate: true when accepted. */
+  accepted: boolean;
+}
+
 /** The piecewise part of a strip table built over a piecewise envelope. @internal */
 export interface PiecewiseStrips {
   /** The piecewise envelope the table was built on. */
@@ -97,6 +107,13 @@ export interface PiecewiseStrips {
   /** Pieces of the right tail region, left to right, and their cumulative relative areas. */
   readonly tailR: Int32Array;
   readonly cumR: Float64Array;
+  /**
+   * The kernel's steps for a tail region and a cap of this envelope
+   * (`piecewiseTailCandidate`, `piecewiseCap` of piecewise-kernel.ts), set
+   * by the builder so that only the tables that have such strips bundle them.
+   */
+  readonly tail: (st: KernelState, counters: Counters, pw: PiecewiseStrips, type: number, pos: number, blk: UniformBlock) => number;
+  readonly cap: (st: KernelState, counters: Counters, pw: PiecewiseStrips, i: number, x: number, hv: number) => void;
 }
 
 /**

@@ -11,7 +11,7 @@ import type { Sampler, SamplerStats, Target } from '../../core/types.js';
 import type { CheckedTarget } from '../../core/validate.js';
 import { maximizeLog } from '../../bounds/maximize.js';
 import type { EnvelopeDescription, EnvelopePiece } from '../envelope/description.js';
-import { log, pow } from '../../vendor/math.js';
+import { twoTo } from '../../vendor/math.js';
 
 /** Change of the log-density over one scale unit (from loc, on the narrower side). */
 const SCALE_DROP = 0.5;
@@ -20,9 +20,9 @@ const ORDINARY = 20;
 /** Below |loc| ≤ this many scale units, loc is taken as 0 (x = 2^k·z is then exact). */
 const LOC_TO_ZERO = 64;
 /** At or above this spacing of the doubles at loc (in scale units) the target is left in x. */
-const FINEST_GRAIN = /* @__PURE__ */ pow(2, -10);
+const FINEST_GRAIN = /* @__PURE__ */ twoTo(-10);
 /** Above this spacing of the doubles at loc (in scale units), errors say that logDensity(z) is a staircase. */
-const COARSE_GRAIN = /* @__PURE__ */ pow(2, -40);
+const COARSE_GRAIN = /* @__PURE__ */ twoTo(-40);
 /** Smallest and largest binary exponents of a scale. */
 const K_MIN = -1074;
 const K_MAX = 1023;
@@ -149,7 +149,7 @@ export function findStandardisation(api: string, t: CheckedTarget, search: 'maxi
   // Enough at 2^k: logDensity at loc ± 2^k differs from l0 by 1/2 on a side, or both sides are out of
   // room (beyond an end of the support, or where the density is 0: an edge is a bound, not a scale).
   const enough = (k: number): boolean => {
-    const d = pow(2, k);
+    const d = twoTo(k);
     let out = 0;
     for (const dir of [1, -1] as const) {
       const end = dir > 0 ? upper : lower;
@@ -174,9 +174,9 @@ export function findStandardisation(api: string, t: CheckedTarget, search: 'maxi
     else lo = mid;
   }
   const k = Math.max(K_MIN, hi);
-  const scale = pow(2, k);
+  const scale = twoTo(k);
   if (bad) return identityOf(t, evaluations);
-  if (Math.abs(k) <= ORDINARY && Math.abs(loc) <= pow(2, ORDINARY) * scale) return identityOf(t, evaluations);
+  if (Math.abs(k) <= ORDINARY && Math.abs(loc) <= twoTo(ORDINARY) * scale) return identityOf(t, evaluations);
   // Fewer than 2^10 doubles per scale unit at loc (a pole, or a target only a few ulps wide): z cannot resolve more than x.
   if (ulpOf(loc) / scale > FINEST_GRAIN) return identityOf(t, evaluations, ulpOf(loc) / scale);
   if (Math.abs(loc) <= LOC_TO_ZERO * scale) loc = 0;
@@ -238,31 +238,22 @@ export function standardisedTarget(st: Standardisation, t: CheckedTarget, target
   if (t.mode !== undefined) out.mode = zOf(t.mode);
   if (target.modes !== undefined) out.modes = target.modes.map(zOf);
   done.add(out);
-  const { loc, scale } = st;
-  cells.set(out, (z: number): number => ulpOf(loc + scale * z) / scale);
-  maps.set(out, st);
-  sources.set(out, t);
+  origins.set(out, { st, source: t });
   return out;
 }
 
-/** The targets in x the standardised targets were built from. */
-const sources = new WeakMap<object, CheckedTarget>();
+/** Where the standardised targets came from: the map and the target in x. */
+const origins = new WeakMap<object, { readonly st: Standardisation; readonly source: CheckedTarget }>();
 
 /** The target in x a target built by {@link standardisedTarget} came from (undefined for any other target). @internal */
 export function sourceOf(target: object): CheckedTarget | undefined {
-  return sources.get(target);
+  return origins.get(target)?.source;
 }
-
-/** The maps of the standardised targets. */
-const maps = new WeakMap<object, Standardisation>();
 
 /** The map a target built by {@link standardisedTarget} came from (undefined for any other target). @internal */
 export function standardisationOf(target: object): Standardisation | undefined {
-  return maps.get(target);
+  return origins.get(target)?.st;
 }
-
-/** Cell widths of the standardised targets: logDensity(z) is constant where loc + 2^k·z rounds to the same double. */
-const cells = new WeakMap<object, (z: number) => number>();
 
 /**
  * For a target built by {@link standardisedTarget}: the width, in z, of the
@@ -271,17 +262,16 @@ const cells = new WeakMap<object, (z: number) => number>();
  * @internal
  */
 export function cellWidthOf(target: object): ((z: number) => number) | undefined {
-  return cells.get(target);
+  const o = origins.get(target);
+  if (o === undefined) return undefined;
+  const { loc, scale } = o.st;
+  return (z: number): number => ulpOf(loc + scale * z) / scale;
 }
 
 /** Gives `to` (a wrapper of `from` with the same logDensity values) the cell widths, the map and the target in x of `from`. @internal */
 export function inheritCells(from: object, to: object): void {
-  const c = cells.get(from);
-  if (c !== undefined) cells.set(to, c);
-  const m = maps.get(from);
-  if (m !== undefined) maps.set(to, m);
-  const x = sources.get(from);
-  if (x !== undefined) sources.set(to, x);
+  const o = origins.get(from);
+  if (o !== undefined) origins.set(to, o);
 }
 
 /** Spacing of the doubles at x (at least the smallest subnormal). */
@@ -289,11 +279,8 @@ function ulpOf(x: number): number {
   const a = Math.abs(x);
   if (!(a >= 2.2250738585072014e-308)) return Number.MIN_VALUE; // below the smallest normal (2^−1022)
   if (a === Infinity) return Infinity;
-  // 2^e ≤ a < 2^(e+1): a first guess from log, then corrected by exact doublings and halvings
-  let p = pow(2, Math.min(1023, Math.max(-1022, Math.floor(log(a) / Math.LN2))));
-  for (let i = 0; i < 4 && p > a; i++) p *= 0.5;
-  for (let i = 0; i < 4 && p * 2 <= a; i++) p *= 2;
-  return p * pow(2, -52) * 2;
+  // 2^(e−51) for 2^e ≤ a < 2^(e+1): twice the distance to the next double (exact), 2^972 in the top binade
+  return a >= 8.98846567431158e307 ? 3.99168061906944e292 : 2 * (nextToward(a, Infinity) - a);
 }
 
 /** The map back, x = loc + 2^k·z clamped into the support. @internal */
@@ -478,14 +465,16 @@ export function ordinaryTouchPoints(tp: readonly number[]): boolean {
 }
 
 /** Range of the touch points of a hull built in x that counts as ordinary. */
-const ORDINARY_SPAN = /* @__PURE__ */ pow(2, 30);
+const ORDINARY_SPAN = /* @__PURE__ */ twoTo(30);
 
 /**
  * The one entrance of the factories: unless `target` is already
  * standardised, builds `build` on the target of Z (or on the target itself,
  * as `mode` says) and maps the draws back. When both constructions are
  * refused, the error of the construction in x is thrown (the method's own
- * message on the target as given). @internal
+ * message on the target as given). The factories call
+ * {@link samplerXFirst} or {@link samplerZFirst} directly, so that a bundle
+ * takes only the order it uses. @internal
  */
 export function samplerStandardised<S extends Sampler>(
   api: string,
@@ -495,52 +484,75 @@ export function samplerStandardised<S extends Sampler>(
   forward: Readonly<Record<string, Forward>>,
   mode: StandardiseMode,
 ): S {
-  const inX = (): S => {
-    done.add(target);
+  return mode.order === 'x-first' ? samplerXFirst(api, target, t, build, forward, mode) : samplerZFirst(api, target, t, build, forward, mode);
+}
+
+/** `build` on the target itself, marked as standardised while it runs (so the factory does not standardise it again). */
+function builtInX<S extends Sampler>(target: Target, build: (target: Target) => S): S {
+  done.add(target);
+  try {
+    return build(target);
+  } finally {
+    done.delete(target);
+  }
+}
+
+/** {@link samplerStandardised} for `order: 'x-first'`. @internal */
+export function samplerXFirst<S extends Sampler>(
+  api: string,
+  target: Target,
+  t: CheckedTarget,
+  build: (target: Target) => S,
+  forward: Readonly<Record<string, Forward>>,
+  mode: StandardiseMode,
+): S {
+  let built: S;
+  try {
+    built = builtInX(target, build);
+  } catch (ex) {
+    if (!retryable(ex)) throw ex;
+    const st = findStandardisation(api, t, 'probe');
+    if (st.identity) throw ex;
+    if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
+    let inner: S;
     try {
-      return build(target);
-    } finally {
-      done.delete(target);
-    }
-  };
-  if (mode.order === 'x-first') {
-    let built: S;
-    try {
-      built = inX();
-    } catch (ex) {
-      if (!retryable(ex)) throw ex;
-      const st = findStandardisation(api, t, 'probe');
-      if (st.identity) throw ex;
-      if (st.grain > mode.maxGrain) throw coarseError(api, st, ex);
-      let inner: S;
-      try {
-        inner = build(standardisedTarget(st, t, target));
-      } catch (ez) {
-        if (retryable(ez)) throw ex;
-        throw noteCoordinate(ez, st);
-      }
-      return mapStandardised(inner, st, st.evaluations, forward);
-    }
-    if (mode.ordinary === undefined || (mode.ordinary as (s: S) => boolean)(built)) return built;
-    const st = findStandardisation(api, t);
-    const keep = (): S => mapStandardised(built, { ...st, identity: true, loc: 0, scale: 1, log2Scale: 0 }, st.evaluations, forward);
-    if (st.identity || st.grain > mode.maxGrain) return keep();
-    try {
-      return mapStandardised(build(standardisedTarget(st, t, target)), st, st.evaluations, forward);
+      inner = build(standardisedTarget(st, t, target));
     } catch (ez) {
-      if (retryable(ez)) return keep();
+      if (retryable(ez)) throw ex;
       throw noteCoordinate(ez, st);
     }
+    return mapStandardised(inner, st, st.evaluations, forward);
   }
+  if (mode.ordinary === undefined || (mode.ordinary as (s: S) => boolean)(built)) return built;
+  const st = findStandardisation(api, t);
+  const keep = (): S => mapStandardised(built, { ...st, identity: true, loc: 0, scale: 1, log2Scale: 0 }, st.evaluations, forward);
+  if (st.identity || st.grain > mode.maxGrain) return keep();
+  try {
+    return mapStandardised(build(standardisedTarget(st, t, target)), st, st.evaluations, forward);
+  } catch (ez) {
+    if (retryable(ez)) return keep();
+    throw noteCoordinate(ez, st);
+  }
+}
+
+/** {@link samplerStandardised} for `order: 'z-first'`. @internal */
+export function samplerZFirst<S extends Sampler>(
+  api: string,
+  target: Target,
+  t: CheckedTarget,
+  build: (target: Target) => S,
+  forward: Readonly<Record<string, Forward>>,
+  mode: StandardiseMode,
+): S {
   const st = findStandardisation(api, t);
   if (!st.identity && st.grain > mode.maxGrain) throw coarseError(api, st, undefined);
-  if (st.identity) return mapStandardised(inX(), st, st.evaluations, forward);
+  if (st.identity) return mapStandardised(builtInX(target, build), st, st.evaluations, forward);
   let inner: S;
   try {
     inner = build(standardisedTarget(st, t, target));
   } catch (ez) {
     if (!retryable(ez)) throw noteCoordinate(ez, st);
-    return inX();
+    return builtInX(target, build);
   }
   return mapStandardised(inner, st, st.evaluations, forward);
 }
@@ -554,4 +566,4 @@ function coarseError(api: string, st: Standardisation, inX: unknown): ShapeViola
 }
 
 /** The coarsest grain at which a hull or piecewise envelope built in z stays within its tolerance (2^−40 of a scale unit). @internal */
-export const FINE_GRAIN = /* @__PURE__ */ pow(2, -40);
+export const FINE_GRAIN = /* @__PURE__ */ twoTo(-40);

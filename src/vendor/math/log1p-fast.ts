@@ -4,6 +4,7 @@
  * for every x. @internal @packageDocumentation
  */
 import { log1p } from './log1p.js';
+import polyval from '@stdlib/math-base-special-log1p/lib/polyval_lp.js';
 
 /**
  * ln(1 + x), bit for bit FDLIBM's log1p, with the branch that needs no
@@ -13,7 +14,8 @@ import { log1p } from './log1p.js';
  * @remarks
  * For 2^-29 ≤ |x| and −0.2929 < x < √2 − 1 FDLIBM takes k = 0 and f = x
  * exactly, and returns f − (f²/2 − s·(f²/2 + R)) with s = f/(2 + f) and
- * R = z·P(z), z = s², P its degree-6 polynomial; this function evaluates
+ * R = z·P(z), z = s², P its degree-6 polynomial (@stdlib's own evaluator
+ * of it, so the coefficients are bundled once); this function evaluates
  * exactly those operations in the same order (so the same bits), and
  * calls {@link log1p} for every other x (argument reduction, tiny |x|,
  * NaN and the ends). Why: the full function is too large for V8 to inline,
@@ -28,7 +30,7 @@ export function log1pFast(x: number): number {
     const hfsq = 0.5 * x * x;
     const s = x / (2.0 + x);
     const z = s * s;
-    const R = z * (0.6666666666666735 + z * (0.3999999999940942 + z * (0.2857142874366239 + z * (0.22222198432149784 + z * (0.1818357216161805 + z * (0.15313837699209373 + z * 0.14798198605116586))))));
+    const R = z * polyval(z);
     return x - (hfsq - s * (hfsq + R));
   }
   // through a float64 slot: returned directly, the call's (boxed) result would make the engine box
