@@ -87,6 +87,29 @@ export interface MethodSuiteCase<S extends Sampler = Sampler> {
   readonly errors?: readonly SuiteError[];
 }
 
+/**
+ * A hand-written generator (a proposal on its uniform source, reference draws,
+ * an engine's kernel called directly) as a {@link Sampler} for the suite:
+ * `fill` is the generator, `sample()` fills one value; `stats` counts samples only.
+ */
+export function generatorSampler(fill: (out: Float64Array) => void): Sampler {
+  const stats = { samples: 0, proposals: 0, densityEvaluations: 0, setupEvaluations: 0, acceptanceRate: 0 };
+  const one = new Float64Array(1);
+  return {
+    sample(): number {
+      fill(one);
+      stats.samples++;
+      return one[0];
+    },
+    fill(out: Float64Array): Float64Array {
+      fill(out);
+      stats.samples += out.length;
+      return out;
+    },
+    stats,
+  };
+}
+
 /** Draws n values of a sampler or generator with `fill`. */
 function fillN(source: Fills, n: number): Float64Array {
   return source.fill(new Float64Array(n));

@@ -2,8 +2,8 @@ import erfc from '@stdlib/math-base-special-erfc';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { InvalidTargetError, betaTarget, gammaTarget, mersenneTwister, normalTarget, truncate } from '../../src/index.js';
-import type { Target, Uniform } from '../../src/index.js';
-import { expectFits, expectRejects } from '../helpers/statistical.js';
+import type { Sampler, Target, Uniform } from '../../src/index.js';
+import { generatorSampler, methodSuites } from '../helpers/method-suite.js';
 import { simpson } from './quadrature.js';
 
 function relErr(a: number, b: number): number {
@@ -32,6 +32,29 @@ function normalTailDraws(a: number, n: number, u: Uniform): Float64Array {
   return out;
 }
 
+// truncate(normal(0, 1), 8, Infinity).cdf fits exact tail draws (KS + AD, seed 3101) and rejects draws
+// shifted by 0.01 (seed 3102), through the shared method suite
+const tail8 = truncate(normalTarget(0, 1), 8, Infinity);
+const tailDraws = (seed: number, shift: number): Sampler => {
+  const u = mersenneTwister(seed);
+  return generatorSampler((out) => {
+    const xs = normalTailDraws(8, out.length, u);
+    for (let i = 0; i < out.length; i++) out[i] = xs[i] + shift;
+  });
+};
+methodSuites('truncate: the cdf against exact tail draws', [
+  {
+    name: 'truncate(normal(0, 1), 8, Infinity).cdf against exact tail draws; twin: draws shifted by 0.01',
+    make: (seed) => tailDraws(seed, 0),
+    biased: (seed) => tailDraws(seed, 0.01),
+    cdf: (x) => (tail8.cdf as (x: number) => number)(x),
+    n: 20_000,
+    seed: 3101,
+    twinSeed: 3102,
+    stream: false,
+  },
+]);
+
 describe('truncate', () => {
   it('truncate(normal(0, 1), 8, Infinity): sf matches erfc(x/√2)/erfc(8/√2) (@stdlib erfc) to 1e-12 relative, cdf to 1e-14 absolute', () => {
     const t = truncate(normalTarget(0, 1), 8, Infinity);
@@ -54,15 +77,6 @@ describe('truncate', () => {
     const naive = (x: number): number => (F(x) - F(8)) / (1 - F(8));
     const ref = 1 - erfc(8.01 / Math.SQRT2) / erfc(8 / Math.SQRT2);
     expect(relErr(naive(8.01), ref)).toBeGreaterThan(1e-3);
-  });
-
-  it('truncate(normal(0, 1), 8, Infinity).cdf fits exact tail draws (KS + AD) and rejects draws shifted by 0.01', () => {
-    const n = 20_000;
-    const t = truncate(normalTarget(0, 1), 8, Infinity);
-    const good = normalTailDraws(8, n, mersenneTwister(3101));
-    expectFits(good, t.cdf!, 'normal tail [8, ∞)');
-    const shifted = normalTailDraws(8, n, mersenneTwister(3102)).map((x) => x + 0.01);
-    expectRejects(shifted, t.cdf!, 'shifted normal tail');
   });
 
   it('truncate(normal(0, 1), -Infinity, -8): cdf matches erfc(−x/√2)/erfc(8/√2)', () => {

@@ -1,19 +1,19 @@
 /**
- * The piecewise envelope of the hull engine: touch points, tangent
- * (Gilks & Wild 1992) or secant (Gilks 1992) upper hulls, chord squeezes,
- * shape checks and local rebuilding after an insertion. @internal
+ * The piecewise envelope of the hull engine: storage of the touch points and
+ * pieces, the geometry (tangent (Gilks & Wild 1992) or secant (Gilks 1992)
+ * upper hulls, chord squeezes, areas, tails, rebuilding) and insertion with
+ * local rebuilding. The shape checks an insertion runs and their messages
+ * live in `shape-checks.ts`. @internal
  *
  * @packageDocumentation
  */
 import { ImproperDensityError, NonFiniteDensityError } from '../../core/errors.js';
-import { checkLogDensity } from '../../core/evaluate.js';
-import { gapError } from '../envelope/gaps.js';
-import { belowChord, shapeError, shapeName, transformedTolerance } from '../envelope/concavity.js';
+import { shapeName } from '../envelope/concavity.js';
 import { GuideTable } from '../envelope/guide-table.js';
 import type { HullView } from '../envelope/hull-view.js';
-import { HULL_LOG_TOLERANCE_RELATIVE } from '../envelope/tolerance.js';
 import { FLAT_LIMIT, T_LOG, invertPiece, logHeight, pieceConstant, pieceLogArea, transformSlope, transformValue } from '../envelope/transforms.js';
 import { exp, expm1, log } from '../../vendor/math.js';
+import { checkSecantTriple, checkTangentPair, gapBetween } from './shape-checks.js';
 
 /**
  * Under T(f) = −1/√f, a point whose log-density lies more than 600 below the
@@ -535,109 +535,6 @@ export class Hull implements HullView {
     this.touchSlope[i] = this.tangent ? transformSlope(this.kind, y, this.touchDerivative[i]) : NaN;
   }
 
-  // ----- tolerances and shape checks -----------------------------------------
-
-  /** Tolerance in transformed units for comparisons between points of log-density la, lb and transformed values ya, yb. */
-  private tolY(la: number, lb: number, ya: number, yb: number): number {
-    return transformedTolerance(this.kind, la, lb, ya, yb);
-  }
-
-  private context = '';
-
-  private shapeError(detail: string, a: number, b: number): never {
-    if (this.context !== '') detail = `${this.context}; ${detail}`;
-    throw shapeError(this.api, this.kind, detail, a, b);
-  }
-
-  /**
-   * A zero of the density at x between the touch points a < x < b: locates
-   * the gap by bisection (error path only) and throws
-   * {@link ShapeViolationError} naming it, with what was being done.
-   */
-  private gapBetween(a: number, x: number, b: number, lb: number): never {
-    const logf = this.target.logDensity;
-    return gapError(this.api, (y: number) => checkLogDensity(this.api, y, logf(y)), a, x, b, lb);
-  }
-
-  /**
-   * Tangent construction, points a < b: each tangent must lie above the
-   * other point (equivalently the chord slope lies between the tangent
-   * slopes, which therefore do not increase).
-   */
-  private checkTangentPair(xa: number, ya: number, sa: number, la: number, ga: number, xb: number, yb: number, sb: number, lb: number, gb: number): void {
-    const w = xb - xa;
-    const tol = this.tolY(la, lb, ya, yb) + HULL_LOG_TOLERANCE_RELATIVE * w * (Math.abs(sa) + Math.abs(sb));
-    const e1 = ya + sa * w - yb;
-    const e2 = yb - sb * w - ya;
-    if (!(e1 >= -tol) || !(e2 >= -tol)) {
-      this.shapeError(
-        `the slopes of the transformed density must not increase, but the tangent slopes are ${sa} at ${xa} and ${sb} at ${xb} around a chord slope of ${(yb - ya) / w} (log-density ${la} and ${lb}, derivatives ${ga} and ${gb})`,
-        xa,
-        xb,
-      );
-    }
-  }
-
-  /** Secant construction, points x0 < x1 < x2: the middle one must not lie below the chord of the outer ones. */
-  private checkSecantTriple(x0: number, y0: number, l0: number, x1: number, y1: number, l1: number, x2: number, y2: number, l2: number): void {
-    if (belowChord(this.kind, x0, y0, l0, x1, y1, l1, x2, y2, l2)) {
-      this.shapeError(
-        `the chord slopes of the transformed density must not increase, but they are ${(y1 - y0) / (x1 - x0)} on [${x0}, ${x1}] and ${(y2 - y1) / (x2 - x1)} on [${x1}, ${x2}] (log-density ${l0}, ${l1}, ${l2})`,
-        x0,
-        x2,
-      );
-    }
-  }
-
-  /**
-   * Called by the kernel when the target at x was found above the envelope
-   * or below the squeeze. Checks (x, logf(x)) against the neighbouring touch
-   * points with the value-only concavity tests (no derivative needed) and
-   * throws {@link ShapeViolationError} naming the interval when they fail —
-   * which they do whenever the hull was built from correct values, since the
-   * envelope at x is made of the neighbours' tangents or chord extensions and
-   * the squeeze of their chord. Returns when they pass, so that the caller
-   * reports an {@link EnvelopeViolationError}.
-   * @param context - what was found, for the message
-   */
-  explainViolation(x: number, l: number, context: string): void {
-    const k = this.k;
-    const tx = this.touchX;
-    const ty = this.touchValue;
-    const tl = this.touchLogDensity;
-    let p = 0;
-    while (p < k && tx[p] <= x) p++;
-    // at a touch point the target disagrees with its own earlier value: not a shape question
-    if (p >= 1 && tx[p - 1] === x) return;
-    this.context = context;
-    try {
-      if (l === -Infinity) {
-        if (p >= 1 && p < k) this.gapBetween(tx[p - 1], x, tx[p], tl[p]);
-        return;
-      }
-      const y = transformValue(this.kind, l - this.ref);
-      if (p >= 2) this.checkSecantTriple(tx[p - 2], ty[p - 2], tl[p - 2], tx[p - 1], ty[p - 1], tl[p - 1], x, y, l);
-      if (p >= 1 && p < k) this.checkSecantTriple(tx[p - 1], ty[p - 1], tl[p - 1], x, y, l, tx[p], ty[p], tl[p]);
-      if (p + 1 < k) this.checkSecantTriple(x, y, l, tx[p], ty[p], tl[p], tx[p + 1], ty[p + 1], tl[p + 1]);
-      if (this.tangent) {
-        for (let i = p - 1; i <= p; i++) {
-          if (i < 0 || i >= k) continue;
-          const tan = ty[i] + this.touchSlope[i] * (x - tx[i]);
-          const tol = this.tolY(tl[i], l, ty[i], y) + HULL_LOG_TOLERANCE_RELATIVE * Math.abs(this.touchSlope[i] * (x - tx[i]));
-          if (!(tan >= y - tol)) {
-            this.shapeError(
-              `the target lies above the tangent of the transformed density at the touch point ${tx[i]} (slope ${this.touchSlope[i]}, log-density ${tl[i]}, derivative ${this.touchDerivative[i]}) at x = ${x} (log-density ${l}); a T-concave target lies below all its tangents (or dLogDensity is wrong)`,
-              Math.min(tx[i], x),
-              Math.max(tx[i], x),
-            );
-          }
-        }
-      }
-    } finally {
-      this.context = '';
-    }
-  }
-
   // ----- insertion ------------------------------------------------------------
 
   /**
@@ -677,7 +574,7 @@ export class Hull implements HullView {
       // density 0 between two points of positive density
       let i = 0;
       while (i + 1 < k && tx[i + 1] < x) i++;
-      this.gapBetween(tx[i], x, tx[i + 1], this.touchLogDensity[i + 1]);
+      gapBetween(this, tx[i], x, tx[i + 1], this.touchLogDensity[i + 1]);
     }
     if (this.kind !== T_LOG && l - this.ref < INV_SQRT_MIN_RELATIVE_LOG_HEIGHT) return false;
     // position: first index with tx[p] > x
@@ -698,12 +595,12 @@ export class Hull implements HullView {
     if (this.tangent) {
       const ts = this.touchSlope;
       const tg = this.touchDerivative;
-      if (p > 0) this.checkTangentPair(tx[p - 1], ty[p - 1], ts[p - 1], tl[p - 1], tg[p - 1], x, y, sNew, l, g);
-      if (p < k) this.checkTangentPair(x, y, sNew, l, g, tx[p], ty[p], ts[p], tl[p], tg[p]);
+      if (p > 0) checkTangentPair(this, tx[p - 1], ty[p - 1], ts[p - 1], tl[p - 1], tg[p - 1], x, y, sNew, l, g);
+      if (p < k) checkTangentPair(this, x, y, sNew, l, g, tx[p], ty[p], ts[p], tl[p], tg[p]);
     } else {
-      if (p >= 2) this.checkSecantTriple(tx[p - 2], ty[p - 2], tl[p - 2], tx[p - 1], ty[p - 1], tl[p - 1], x, y, l);
-      if (p >= 1 && p < k) this.checkSecantTriple(tx[p - 1], ty[p - 1], tl[p - 1], x, y, l, tx[p], ty[p], tl[p]);
-      if (p + 1 < k) this.checkSecantTriple(x, y, l, tx[p], ty[p], tl[p], tx[p + 1], ty[p + 1], tl[p + 1]);
+      if (p >= 2) checkSecantTriple(this, '', tx[p - 2], ty[p - 2], tl[p - 2], tx[p - 1], ty[p - 1], tl[p - 1], x, y, l);
+      if (p >= 1 && p < k) checkSecantTriple(this, '', tx[p - 1], ty[p - 1], tl[p - 1], x, y, l, tx[p], ty[p], tl[p]);
+      if (p + 1 < k) checkSecantTriple(this, '', x, y, l, tx[p], ty[p], tl[p], tx[p + 1], ty[p + 1], tl[p + 1]);
     }
     if (k >= this.cap) {
       if (!grow) return false;

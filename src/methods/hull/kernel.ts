@@ -14,6 +14,7 @@ import { checkBeyondZero } from '../envelope/gaps.js';
 import { expScreen } from '../envelope/exp-screen.js';
 import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
+import { explainViolation } from './shape-checks.js';
 import { exp, log } from '../../vendor/math.js';
 
 /**
@@ -117,11 +118,11 @@ export function hullFill(
         const lr = lf - ref;
         const tol = logTolerance(ref, lr);
         if (lr > lenv + tol) {
-          h.explainViolation(x, lf, `target is above the envelope at x = ${x} (log target ${lf}, log envelope ${lenv + ref})`);
+          explainViolation(h, x, lf, `target is above the envelope at x = ${x} (log target ${lf}, log envelope ${lenv + ref})`);
           throw new EnvelopeViolationError(api, x, lf, lenv + ref, 'envelope');
         }
         if (lr < lsq - tol) {
-          h.explainViolation(x, lf, `target is below the squeeze at x = ${x} (log target ${lf}, log squeeze ${lsq + ref})`);
+          explainViolation(h, x, lf, `target is below the squeeze at x = ${x} (log target ${lf}, log squeeze ${lsq + ref})`);
           throw new EnvelopeViolationError(api, x, lf, lsq + ref, 'squeeze');
         }
         if (lf === -Infinity) beyondCut(h, counters, x);

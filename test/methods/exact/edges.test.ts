@@ -17,7 +17,8 @@ import {
   tableSampler,
 } from '../../../src/index.js';
 import type { Sampler, Target } from '../../../src/index.js';
-import { ALPHA, draw, expectFits, expectRejects } from '../../helpers/statistical.js';
+import { ALPHA, draw } from '../../helpers/statistical.js';
+import { methodSuite } from '../../helpers/method-suite.js';
 
 /** Chi-square p-value of counts against probabilities (upper tail of @stdlib's chi-square cdf). */
 function chiSquareP(counts: readonly number[], probs: readonly number[], n: number): number {
@@ -81,18 +82,28 @@ describe('gaps in the support (issue 17 item 2 and 5)', () => {
     }
   });
 
-  it('a support with one end at a zero (no support declared) is not a false refusal: truncated normal on [0.5, ∞) fits, with a biased twin', () => {
-    const half: Target = { logDensity: (x: number) => (x < 0.5 ? -Infinity : -0.5 * x * x) };
-    const z = 1 - normalCdf(0.5, 0, 1);
-    // @stdlib normal cdf, truncated to [0.5, ∞)
-    const cdf = (x: number): number => (x <= 0.5 ? 0 : (normalCdf(x, 0, 1) - normalCdf(0.5, 0, 1)) / z);
-    const biased = (x: number): number => (x <= 0.5 ? 0 : (normalCdf(x, 0.05, 1) - normalCdf(0.5, 0.05, 1)) / (1 - normalCdf(0.5, 0.05, 1)));
-    for (const [name, s] of [['hull', adaptiveRejectionSampler(half, { seed: 5 })], ['table', tableSampler(half, { seed: 5 })]] as const) {
-      const xs = draw(s, 50_000);
-      expectFits(xs, cdf, name);
-      expectRejects(xs, biased, `${name} against the shifted normal`);
-    }
-  });
+  // a support with one end at a zero (no support declared) is not a false refusal: truncated normal on
+  // [0.5, ∞) fits; twin: the same draws against the normal shifted by 0.05, truncated alike
+  const half: Target = { logDensity: (x: number) => (x < 0.5 ? -Infinity : -0.5 * x * x) };
+  const z = 1 - normalCdf(0.5, 0, 1);
+  // @stdlib normal cdf, truncated to [0.5, ∞)
+  const halfCdf = (x: number): number => (x <= 0.5 ? 0 : (normalCdf(x, 0, 1) - normalCdf(0.5, 0, 1)) / z);
+  const halfBiased = (x: number): number => (x <= 0.5 ? 0 : (normalCdf(x, 0.05, 1) - normalCdf(0.5, 0.05, 1)) / (1 - normalCdf(0.5, 0.05, 1)));
+  for (const [name, make] of [
+    ['adaptiveRejectionSampler', (seed: number) => adaptiveRejectionSampler(half, { seed })],
+    ['tableSampler', (seed: number) => tableSampler(half, { seed })],
+  ] as const) {
+    methodSuite({
+      name: `${name}(normal truncated to [0.5, ∞) by a zero, no support declared); twin: against the shifted normal`,
+      make,
+      biased: make,
+      cdf: halfCdf,
+      twinCdf: halfBiased,
+      n: 50_000,
+      seed: 5,
+      stream: false,
+    });
+  }
 
   it('a narrow gap between touch points (0.2, 0.2025) is found only by a candidate evaluated in it: the hull throws ShapeViolationError while sampling', () => {
     // The documented limit of a black-box target: setup does not see this gap; draws accepted by the
@@ -155,18 +166,25 @@ describe('mass beyond the largest double (issue 17 item 3): refused', () => {
     }
   });
 
-  it('the same target truncated to [−1e300, 1e300] is sampled exactly by ratio-of-uniforms (KS/AD on log(1 + |x|)), with a biased twin', () => {
+  // the same target truncated to [−1e300, 1e300] is sampled exactly by ratio-of-uniforms (KS/AD on
+  // log(1 + |x|)); P(log(1 + |X|) ≤ y | |X| ≤ 1e300) = (1 − e^(−0.01 y)) / (1 − (1 + 1e300)^(−0.01)), by hand
+  // from the above; biased twin: the law truncated at 1e200 instead (what dropping the 0.9 % of mass beyond
+  // it would give), against the same draws
+  const cdfCut = (c: number) => (y: number): number => (y <= 0 ? 0 : y >= c ? 1 : -Math.expm1(-0.01 * y) / -Math.expm1(-0.01 * c));
+  {
     const cut: Target = { ...heavy, support: [-1e300, 1e300] };
-    const s = ratioOfUniformsSampler(cut, { seed: 4, power: 110 });
-    const xs = draw(s, 50_000);
-    const ys = xs.map((x) => Math.log1p(Math.abs(x)));
-    // P(log(1 + |X|) ≤ y | |X| ≤ 1e300) = (1 − e^(−0.01 y)) / (1 − (1 + 1e300)^(−0.01)), by hand from the above
-    const top = Math.log1p(1e300);
-    const cdfCut = (c: number) => (y: number): number => (y <= 0 ? 0 : y >= c ? 1 : -Math.expm1(-0.01 * y) / -Math.expm1(-0.01 * c));
-    expectFits(ys, cdfCut(top), 'truncated at 1e300');
-    // biased twin: the law truncated at 1e200 instead (what dropping the 0.9 % of mass beyond it would give)
-    expectRejects(ys, cdfCut(Math.log1p(1e200)), 'truncated at 1e200');
-  });
+    methodSuite({
+      name: 'ratioOfUniformsSampler(heavy tail truncated to [−1e300, 1e300]), on log(1 + |x|); twin: against the law truncated at 1e200',
+      make: (seed) => ratioOfUniformsSampler(cut, { seed, power: 110 }),
+      biased: (seed) => ratioOfUniformsSampler(cut, { seed, power: 110 }),
+      map: (x) => Math.log1p(Math.abs(x)),
+      cdf: cdfCut(Math.log1p(1e300)),
+      twinCdf: cdfCut(Math.log1p(1e200)),
+      n: 50_000,
+      seed: 4,
+      stream: false,
+    });
+  }
 
   // the same law on the scale c, f(x) ∝ (1 + |x|/c)^−1.01: P(|X| > y) = (1 + y/c)^−0.01 (by hand, as
   // above); per side beyond 1.8e308: c = 1e10, (1.8e298)^−0.01/2 = 5.2e-4; c = 1e100, (1.8e208)^−0.01/2 = 4.1e-3.
@@ -189,15 +207,24 @@ describe('mass beyond the largest double (issue 17 item 3): refused', () => {
     }
   });
 
-  it('truncated to [−1e300, 1e300] on the scale c = 1e10, ratio-of-uniforms (built in z) samples it exactly (KS/AD on log(1 + |x|/c)), with a biased twin', () => {
+  // truncated to [−1e300, 1e300] on the scale c = 1e10, ratio-of-uniforms (built in z) samples it exactly
+  // (KS/AD on log(1 + |x|/c)); P(log(1 + |X|/c) ≤ y | |X| ≤ 1e300) = (1 − e^(−0.01 y)) / (1 − (1 + 1e300/c)^(−0.01)),
+  // by hand as above; twin: against the law truncated at 1e200
+  {
     const c = 1e10;
     const cut: Target = { ...scaled(c), support: [-1e300, 1e300] };
-    const ys = draw(ratioOfUniformsSampler(cut, { seed: 4, power: 110 }), 50_000).map((x) => Math.log1p(Math.abs(x / c)));
-    // P(log(1 + |X|/c) ≤ y | |X| ≤ 1e300) = (1 − e^(−0.01 y)) / (1 − (1 + 1e300/c)^(−0.01)), by hand as above
-    const cdfCut = (top: number) => (y: number): number => (y <= 0 ? 0 : y >= top ? 1 : -Math.expm1(-0.01 * y) / -Math.expm1(-0.01 * top));
-    expectFits(ys, cdfCut(Math.log1p(1e300 / c)), 'scaled, truncated at 1e300');
-    expectRejects(ys, cdfCut(Math.log1p(1e200 / c)), 'scaled, truncated at 1e200');
-  });
+    methodSuite({
+      name: 'ratioOfUniformsSampler(heavy tail on the scale 1e10 truncated to [−1e300, 1e300]), on log(1 + |x|/c); twin: against the law truncated at 1e200',
+      make: (seed) => ratioOfUniformsSampler(cut, { seed, power: 110 }),
+      biased: (seed) => ratioOfUniformsSampler(cut, { seed, power: 110 }),
+      map: (x) => Math.log1p(Math.abs(x / c)),
+      cdf: cdfCut(Math.log1p(1e300 / c)),
+      twinCdf: cdfCut(Math.log1p(1e200 / c)),
+      n: 50_000,
+      seed: 4,
+      stream: false,
+    });
+  }
 });
 
 describe('granularity of the doubles (issue 17 item 4): the draw is the exact draw rounded to nearest', () => {

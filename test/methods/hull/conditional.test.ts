@@ -9,10 +9,11 @@
  * Distribution over a changing sequence: each step draws x_k from its own
  * target F_k, so u_k = F_k(x_k) are independent uniforms when every draw is
  * exact (probability integral transform, common practice). KS and
- * Anderson–Darling test the u_k against uniform at ALPHA = 1e-4; F_k comes from
- * @stdlib (gamma, normal cdfs), independent of the code under test. The biased
- * twin draws from a slightly wrong conditional (rate 3 % too high, or sd 6 %
- * too large) and the same check must reject it.
+ * Anderson–Darling test the u_k against uniform at ALPHA = 1e-4 through the
+ * shared method suite (test/helpers/method-suite.ts); F_k comes from @stdlib
+ * (gamma, normal cdfs), independent of the code under test. The biased twin
+ * draws from a slightly wrong conditional (rate 3 % too high, or sd 6 % too
+ * large) and the same check must reject it.
  */
 import { describe, expect, it } from 'vitest';
 import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
@@ -28,8 +29,8 @@ import {
   normalTarget,
   substream,
 } from '../../../src/index.js';
-import type { Target } from '../../../src/index.js';
-import { expectFits, expectRejects } from '../../helpers/statistical.js';
+import type { ConditionalSampler, Sampler, Target } from '../../../src/index.js';
+import { methodSuites } from '../../helpers/method-suite.js';
 
 /** The bench/gibbs.mjs conditional: gamma(a, b)-shaped, (a, b) set by the step. */
 function benchConditional(tangents: boolean): { set(i: number): void; target: Target; shape(): number; rate(): number } {
@@ -210,71 +211,113 @@ describe('conditionalSampler: evaluations per one-draw step (counts, not times)'
   }
 });
 
-describe('conditionalSampler: draws from a changing sequence of conditionals (probability integral transform)', () => {
-  const N = 20_000;
+// Draws from a changing sequence of conditionals (probability integral transform), through the shared
+// method suite: each case is a sampler of u_k = F_k(x_k) (one step of the sequence per value), the
+// reference cdf is the uniform one, n = 20,000 steps at a fixed seed.
+const N = 20_000;
 
-  /** u_k = F_k(x_k) for N steps; `bias` scales what the sampler is given (1: the true conditional). */
-  function gammaPit(tangents: boolean, bias: number, seed: number): Float64Array {
-    let a = 2;
-    let b = 1;
-    const target: Target = tangents
-      ? { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - bias * b * t, dLogDensity: (t) => (a - 1) / t - bias * b }
-      : { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - bias * b * t };
-    const s = conditionalSampler({ seed });
-    const pit = new Float64Array(N);
-    for (let k = 0; k < N; k++) {
-      // a chain-like walk of the parameters: shape in [1, 30], rate over four decades
-      a = 1 + 29 * (0.5 + 0.5 * Math.sin(k * 0.37));
-      b = Math.exp(4.6 * Math.sin(k * 0.011));
-      pit[k] = gammaCdf(s.draw(target), a, b);
+/** u_k = F_k(x_k) as a sampler of uniforms: `step(k)` gives the k-th value; `sample` and `fill` walk one sequence. */
+function pitSampler(s: ConditionalSampler, step: (k: number) => number): Sampler {
+  let k = 0;
+  return {
+    sample: () => step(k++),
+    fill(out: Float64Array): Float64Array {
+      for (let i = 0; i < out.length; i++) out[i] = step(k++);
+      return out;
+    },
+    get stats() {
+      return s.stats;
+    },
+  };
+}
+
+/** Gamma conditionals; `bias` scales the rate the sampler is given (1: the true conditional). */
+function gammaPit(tangents: boolean, bias: number, seed: number): Sampler {
+  let a = 2;
+  let b = 1;
+  const target: Target = tangents
+    ? { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - bias * b * t, dLogDensity: (t) => (a - 1) / t - bias * b }
+    : { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - bias * b * t };
+  const s = conditionalSampler({ seed });
+  return pitSampler(s, (k) => {
+    // a chain-like walk of the parameters: shape in [1, 30], rate over four decades
+    a = 1 + 29 * (0.5 + 0.5 * Math.sin(k * 0.37));
+    b = Math.exp(4.6 * Math.sin(k * 0.011));
+    return gammaCdf(s.draw(target), a, b);
+  });
+}
+
+/** Normal conditionals; `bias` scales the sd the sampler is given. */
+function normalPit(bias: number, seed: number): Sampler {
+  const s = conditionalSampler({ seed, derivativeFree: true });
+  let second = NaN;
+  return pitSampler(s, (k) => {
+    // means jump around, scales vary over six decades (the warm start must recover)
+    if (k % 3 === 1 && second === second) {
+      const u = second;
+      second = NaN;
+      return u;
     }
-    return pit;
-  }
-
-  function normalPit(bias: number, seed: number): Float64Array {
-    const s = conditionalSampler({ seed, derivativeFree: true });
-    const pit = new Float64Array(N);
-    for (let k = 0; k < N; k++) {
-      // means jump around, scales vary over six decades (the warm start must recover)
-      const mu = 50 * Math.sin(k * 1.7);
-      const sd = Math.exp(6.9 * Math.sin(k * 0.05));
-      // two draws per target at every third step (fill), else one
-      if (k % 3 === 0 && k + 1 < N) {
-        const out = s.retarget(normalTarget(mu, sd * bias)).fill(new Float64Array(2));
-        pit[k] = normalCdf(out[0], mu, sd);
-        pit[++k] = normalCdf(out[1], mu, sd);
-      } else {
-        pit[k] = normalCdf(s.draw(normalTarget(mu, sd * bias)), mu, sd);
-      }
+    const mu = 50 * Math.sin(k * 1.7);
+    const sd = Math.exp(6.9 * Math.sin(k * 0.05));
+    // two draws per target at every third step (fill), else one
+    if (k % 3 === 0) {
+      const out = s.retarget(normalTarget(mu, sd * bias)).fill(new Float64Array(2));
+      second = normalCdf(out[1], mu, sd);
+      return normalCdf(out[0], mu, sd);
     }
-    return pit;
-  }
-
-  const uniformCdf = (u: number): number => (u < 0 ? 0 : u > 1 ? 1 : u);
-
-  it('gamma conditionals (tangents): F_k(x_k) is uniform (KS, AD at 1e-4); biased twin (rate 3 % high) rejected', () => {
-    expectFits(gammaPit(true, 1, 2027), uniformCdf, 'gamma tangents');
-    expectRejects(gammaPit(true, 1.03, 2027), uniformCdf, 'gamma tangents, rate 3 % high');
+    return normalCdf(s.draw(normalTarget(mu, sd * bias)), mu, sd);
   });
+}
 
-  it('gamma conditionals (secants): F_k(x_k) is uniform; biased twin rejected', () => {
-    expectFits(gammaPit(false, 1, 2028), uniformCdf, 'gamma secants');
-    expectRejects(gammaPit(false, 1.03, 2028), uniformCdf, 'gamma secants, rate 3 % high');
+/** gammaTarget conditionals on [0, inf), shape 1 (mode at the boundary) alternating with shape 40; `bias` scales the rate given. */
+function mixedShapePit(bias: number, seed: number): Sampler {
+  const s = conditionalSampler({ seed });
+  return pitSampler(s, (k) => {
+    const shape = k % 2 === 0 ? 1 : 40;
+    const rate = 0.1 + (k % 13);
+    return gammaCdf(s.draw(gammaTarget(shape, rate * bias)), shape, rate);
   });
+}
 
-  it('normal conditionals with jumping means and scales over six decades (secants, mode hints): uniform; biased twin (sd 6 % large) rejected', () => {
-    expectFits(normalPit(1, 2029), uniformCdf, 'normal');
-    expectRejects(normalPit(1.06, 2029), uniformCdf, 'normal, sd 6 % large');
-  });
+const uniformCdf = (u: number): number => (u < 0 ? 0 : u > 1 ? 1 : u);
 
-  it('gammaTarget conditionals on [0, inf) with shape 1 (mode at the boundary) mixed with shape 40: uniform', () => {
-    const s = conditionalSampler({ seed: 2030 });
-    const pit = new Float64Array(N);
-    for (let k = 0; k < N; k++) {
-      const shape = k % 2 === 0 ? 1 : 40;
-      const rate = 0.1 + (k % 13);
-      pit[k] = gammaCdf(s.draw(gammaTarget(shape, rate)), shape, rate);
-    }
-    expectFits(pit, uniformCdf, 'gamma shapes 1 and 40');
-  });
-});
+methodSuites('conditionalSampler: draws from a changing sequence of conditionals (probability integral transform)', [
+  {
+    name: 'conditionalSampler: gamma conditionals (tangents), F_k(x_k) uniform; twin: rate 3 % high',
+    make: (seed) => gammaPit(true, 1, seed),
+    biased: (seed) => gammaPit(true, 1.03, seed),
+    cdf: uniformCdf,
+    n: N,
+    seed: 2027,
+    support: [0, 1],
+  },
+  {
+    name: 'conditionalSampler: gamma conditionals (secants), F_k(x_k) uniform; twin: rate 3 % high',
+    make: (seed) => gammaPit(false, 1, seed),
+    biased: (seed) => gammaPit(false, 1.03, seed),
+    cdf: uniformCdf,
+    n: N,
+    seed: 2028,
+    support: [0, 1],
+  },
+  {
+    name: 'conditionalSampler: normal conditionals with jumping means and scales over six decades (secants, mode hints); twin: sd 6 % large',
+    make: (seed) => normalPit(1, seed),
+    biased: (seed) => normalPit(1.06, seed),
+    cdf: uniformCdf,
+    n: N,
+    seed: 2029,
+    support: [0, 1],
+  },
+  {
+    name: 'conditionalSampler: gammaTarget conditionals with shape 1 (mode at the boundary) mixed with shape 40; twin: rate 3 % high',
+    make: (seed) => mixedShapePit(1, seed),
+    biased: (seed) => mixedShapePit(1.03, seed),
+    cdf: uniformCdf,
+    n: N,
+    seed: 2030,
+    support: [0, 1],
+    stream: false, // checked on the three cases above
+  },
+]);

@@ -17,7 +17,9 @@ import { betaTarget } from '../../../src/targets/beta.js';
 import { gammaTarget } from '../../../src/targets/gamma.js';
 import { normalTarget } from '../../../src/targets/normal.js';
 import { studentTTarget } from '../../../src/targets/student-t.js';
-import { expectFits, expectRate, expectRejects } from '../../helpers/statistical.js';
+import type { Sampler } from '../../../src/core/types.js';
+import { expectRate } from '../../helpers/statistical.js';
+import { generatorSampler, methodSuites } from '../../helpers/method-suite.js';
 
 describe('tableSampler counts', () => {
   it('tableSampler accepts Z / envelope area of its proposals (normalized targets, Z = 1), at 10 and 1,000 strips', () => {
@@ -63,28 +65,37 @@ describe('tableSampler counts', () => {
   });
 });
 
-describe('tableSampler biased twin: a table whose caps are never accepted', () => {
-  it('draws from the sure rectangles and tails only (upper lines forced to −∞) are rejected; the intact table at the same n and seed fits', () => {
-    // with 10 strips about half of the envelope's area is in the caps, so
-    // dropping them draws from the lower step function instead of the normal
-    const make = (broken: boolean): Float64Array => {
-      const setup = setupHull('twin', normalTarget(0, 1), { seed: 5 }, ['seed']);
-      const counters = new Counters();
-      const table = buildStripTable({ api: 'twin', hull: setup.hull, logDensity: setup.target.logDensity, counters, strips: 10, tailMass: 1e-6 });
-      if (broken) {
-        // no upper lines (every cap candidate is rejected above them) and no chord squeeze
-        table.leftLineSlope.fill(-Infinity);
-        table.rightLineSlope.fill(-Infinity);
-        table.chordSlope.fill(NaN);
-      }
-      const cells = buildAliasCells(table);
-      const out = new Float64Array(20_000);
-      const st = { table, cells, logDensity: setup.target.logDensity, accepted: false };
-      tableFill(st, out, out.length, counters, UniformBlock.fromOwnedMersenneTwister(mersenneTwister(5)), 1_000_000);
-      return out;
-    };
-    const cdf = (x: number): number => normalCdf(x, 0, 1);
-    expectFits(make(false), cdf, 'intact 10-strip table');
-    expectRejects(make(true), cdf, 'caps dropped');
+// tableSampler biased twin: a table whose caps are never accepted. Draws from the sure rectangles and tails
+// only (upper lines forced to −∞) are rejected; the intact table at the same n and seed fits (shared method
+// suite; the kernel is called directly, so the stream checks are those of tableSampler elsewhere).
+// With 10 strips about half of the envelope's area is in the caps, so dropping them draws from the lower
+// step function instead of the normal.
+const tableKernel = (broken: boolean, seed: number): Sampler => {
+  const setup = setupHull('twin', normalTarget(0, 1), { seed }, ['seed']);
+  const counters = new Counters();
+  const table = buildStripTable({ api: 'twin', hull: setup.hull, logDensity: setup.target.logDensity, counters, strips: 10, tailMass: 1e-6 });
+  if (broken) {
+    // no upper lines (every cap candidate is rejected above them) and no chord squeeze
+    table.leftLineSlope.fill(-Infinity);
+    table.rightLineSlope.fill(-Infinity);
+    table.chordSlope.fill(NaN);
+  }
+  const cells = buildAliasCells(table);
+  const st = { table, cells, logDensity: setup.target.logDensity, accepted: false };
+  const block = UniformBlock.fromOwnedMersenneTwister(mersenneTwister(seed));
+  return generatorSampler((out) => {
+    tableFill(st, out, out.length, counters, block, 1_000_000);
   });
-});
+};
+
+methodSuites('tableSampler biased twin: a table whose caps are never accepted', [
+  {
+    name: 'table kernel, intact 10-strip table of normal(0, 1); twin: caps dropped',
+    make: (seed) => tableKernel(false, seed),
+    biased: (seed) => tableKernel(true, seed),
+    cdf: (x) => normalCdf(x, 0, 1),
+    n: 20_000,
+    seed: 5,
+    stream: false,
+  },
+]);

@@ -3,7 +3,9 @@ import gammaCdf from '@stdlib/stats-base-dists-gamma-cdf';
 import { describe, expect, it } from 'vitest';
 import { adaptiveRejectionSampler, betaTarget, chiSquareTarget, exactSampler, gammaTarget, ratioOfUniformsSampler, truncate } from '../../../src/index.js';
 import type { Sampler, Target } from '../../../src/index.js';
-import { draw, expectFits, expectInSupport, expectRate, expectRejects } from '../../helpers/statistical.js';
+import { draw, expectRate } from '../../helpers/statistical.js';
+import { methodSuites } from '../../helpers/method-suite.js';
+import type { MethodSuiteCase } from '../../helpers/method-suite.js';
 
 /** Draws per KS/AD check (modest: the suite must stay fast). */
 const N = 3000;
@@ -36,29 +38,38 @@ const builders: [string, (t: Target, seed: number) => Sampler][] = [
   ["ratioOfUniformsSampler({ poleAt: 'auto' })", (t, seed) => ratioOfUniformsSampler(t, { seed, poleAt: 'auto' })],
 ];
 
-describe('densities with a pole at an end: exact draws through the change of variables', () => {
-  // Seeds 900, 901, …: fixed. (Seed 523 gives KS p ≈ 1e-4 for the hull on truncate(beta(0.5, 0.5), 0.999, 1)
-  // also when the density of Y is written out directly without this module, i.e. an unlucky stream, not a bias.)
+// Seeds 900, 901, …: fixed. (Seed 523 gives KS p ≈ 1e-4 for the hull on truncate(beta(0.5, 0.5), 0.999, 1)
+// also when the density of Y is written out directly without this module, i.e. an unlucky stream, not a bias.)
+// Through the shared method suite (test/helpers/method-suite.ts); the stream checks of these paths are in
+// properties.test.ts, so they are not repeated here.
+const poleCases: MethodSuiteCase[] = [];
+{
   let seed = 900;
   for (const c of cases) {
     for (const [bname, build] of builders) {
       // exactSampler on every case; the option of the hull / ratio-of-uniforms samplers on the first five
       if (bname !== 'exactSampler' && !cases.slice(0, 5).includes(c)) continue;
-      const s = seed++;
-      it(`${bname}(${c.name}) passes KS and AD at 1e-4`, () => {
-        const t = c.make(1);
-        const xs = draw(build(t, s), N);
-        expectInSupport(xs, t.support[0], t.support[1]);
-        for (const x of xs) if (x === t.support[0] || x === t.support[1]) expect.fail(`draw at the end ${x}`);
-        expectFits(xs, t.cdf, `${bname} ${c.name}`);
-      });
-      it(`biased twin: ${bname} on ${c.name} with a shape ×${c.twin} is rejected at the same n`, () => {
-        const xs = draw(build(c.make(c.twin), s), N);
-        expectRejects(xs, c.make(1).cdf, `${bname} ${c.name} twin`);
+      const t = c.make(1);
+      poleCases.push({
+        name: `${bname}(${c.name}); twin: shape ×${c.twin}`,
+        make: (s) => build(t, s),
+        biased: (s) => build(c.make(c.twin), s),
+        cdf: t.cdf,
+        n: N,
+        seed: seed++,
+        support: [t.support[0], t.support[1]],
+        afterFit: (_s, xs) => {
+          for (const x of xs) if (x === t.support[0] || x === t.support[1]) expect.fail(`draw at the end ${x}`);
+        },
+        stream: false,
       });
     }
   }
+}
 
+methodSuites('densities with a pole at an end: exact draws through the change of variables (KS and AD at 1e-4, biased twins)', poleCases);
+
+describe('densities with a pole at an end: the reference cdfs', () => {
   it('the reference cdfs near the poles agree with closed forms: gamma(1/2) cdf = erf(√x), beta(1/2, 1/2) cdf = (2/π)·asin(√x)', () => {
     // common practice (from memory): P(1/2, x) = erf(√x); the arcsine law; erf from @stdlib erfc
     for (const x of [1e-14, 1e-9, 3e-7, 1e-6, 0.3, 2]) {

@@ -15,10 +15,11 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ksCheck } from '../../../src/checks/ks.js';
 import { ShapeViolationError } from '../../../src/core/errors.js';
-import type { Target } from '../../../src/core/types.js';
+import type { Sampler, Target } from '../../../src/core/types.js';
 import { checkTarget } from '../../../src/core/validate.js';
 import { adaptiveRejectionSampler } from '../../../src/methods/adaptive-rejection.js';
 import { exactSampler } from '../../../src/methods/auto.js';
+import type { ExactSampler } from '../../../src/methods/auto.js';
 import { evaluateEnvelope } from '../../../src/methods/envelope/description.js';
 import { piecewiseSampler } from '../../../src/methods/piecewise.js';
 import { ratioOfUniformsSampler } from '../../../src/methods/ratio-of-uniforms.js';
@@ -26,7 +27,9 @@ import { tableSampler } from '../../../src/methods/table-sampler.js';
 import { findStandardisation, xOf } from '../../../src/methods/transform/standardise.js';
 import { exponentialTarget } from '../../../src/targets/exponential.js';
 import { normalTarget } from '../../../src/targets/normal.js';
-import { ALPHA, draw, expectFits, expectInSupport, expectRejects } from '../../helpers/statistical.js';
+import { ALPHA, draw } from '../../helpers/statistical.js';
+import { methodSuite, methodSuites } from '../../helpers/method-suite.js';
+import type { MethodSuiteCase } from '../../helpers/method-suite.js';
 
 /** The N(μ, σ²) cdf in standardised units (@stdlib). */
 const normalCdfOf = (mu: number, sd: number) => (x: number): number => normalCdf((x - mu) / sd, 0, 1);
@@ -68,87 +71,141 @@ describe('the standardisation', () => {
   });
 });
 
-describe('issue 17 item 1: the reproduced failures, at fixed seeds', () => {
-  it('ratioOfUniformsSampler(normal(0, s)) for s = 1e-96 and 1e-99 (were: EnvelopeViolationError, every draw 0) fits; a sampler of sd 1.1·s is rejected', () => {
-    for (const s of [1e-96, 1e-99]) {
-      const xs = draw(ratioOfUniformsSampler(normalTarget(0, s), { seed: 17 }), 20_000);
-      expect(distinct(xs)).toBeGreaterThan(19_000);
-      expectFits(xs, normalCdfOf(0, s), `rou sd ${s}`);
-      expectRejects(draw(ratioOfUniformsSampler(normalTarget(0, 1.1 * s), { seed: 17 }), 20_000), normalCdfOf(0, s), `rou sd ${s}, twin`);
-    }
-  });
+// The reproduced failures of issue 17 item 1, at fixed seeds, through the shared method suite
+// (test/helpers/method-suite.ts): each fits at n = 20,000 and its biased twin (the same method on a slightly
+// wrong target, same seed) is rejected. The stream checks are not repeated for these scales (stream: false).
+const N = 20_000;
+/** At least 19,000 distinct values among the draws: the old failure was a point mass. */
+const notAPointMass = (_s: unknown, xs: Float64Array): void => {
+  expect(distinct(xs)).toBeGreaterThan(19_000);
+};
 
-  it('an exponential of rate 1e200: ratio-of-uniforms (was all 0), tableSampler, piecewise fast and exactSampler({ expectedDraws }) (were stalls) fit; rate 1.1e200 is rejected', () => {
-    const cdf = expCdfOf(0, 1e200);
-    const makers = [
-      (r: number) => ratioOfUniformsSampler(exponentialTarget(r), { seed: 5 }),
-      (r: number) => tableSampler(exponentialTarget(r), { seed: 5 }),
-      (r: number) => piecewiseSampler(exponentialTarget(r), { seed: 5, fast: true }),
-      (r: number) => exactSampler(exponentialTarget(r), { seed: 5, expectedDraws: 100_000 }),
-    ];
-    for (const [i, make] of makers.entries()) {
-      const xs = draw(make(1e200), 20_000);
-      expectInSupport(xs, 0, Infinity);
-      expectFits(xs, cdf, `exp(1e200), maker ${i}`);
-      expectRejects(draw(make(1.1e200), 20_000), cdf, `exp(1.1e200) twin, maker ${i}`);
-    }
+const reproduced: MethodSuiteCase[] = [];
+// ratioOfUniformsSampler(normal(0, s)) for s = 1e-96 and 1e-99 (were: EnvelopeViolationError, every draw 0); twin: sd 1.1·s
+for (const sd of [1e-96, 1e-99]) {
+  reproduced.push({
+    name: `ratioOfUniformsSampler(normal(0, ${sd})); twin: sd ×1.1`,
+    make: (seed) => ratioOfUniformsSampler(normalTarget(0, sd), { seed }),
+    biased: (seed) => ratioOfUniformsSampler(normalTarget(0, 1.1 * sd), { seed }),
+    cdf: normalCdfOf(0, sd),
+    n: N,
+    seed: 17,
+    afterFit: notAPointMass,
+    stream: false,
   });
-
-  it('normal(1e300, 1e290) (was ImproperDensityError "no decay found" from exactSampler, "found no mass" from ratio-of-uniforms) fits; μ + 0.1σ is rejected', () => {
-    const cdf = normalCdfOf(1e300, 1e290);
-    for (const make of [(m: number) => exactSampler(normalTarget(m, 1e290), { seed: 3 }), (m: number) => ratioOfUniformsSampler(normalTarget(m, 1e290), { seed: 3 })]) {
-      const xs = draw(make(1e300), 20_000);
-      expect(distinct(xs)).toBeGreaterThan(19_000);
-      expectFits(xs, cdf, 'normal(1e300, 1e290)');
-      expectRejects(draw(make(1e300 + 1e289), 20_000), cdf, 'normal(1e300 + 0.1σ, 1e290) twin');
-    }
+}
+// an exponential of rate 1e200: ratio-of-uniforms (was all 0), tableSampler, piecewise fast and
+// exactSampler({ expectedDraws }) (were stalls); twin: rate 1.1e200
+const expMakers: [string, (r: number, seed: number) => Sampler][] = [
+  ['ratioOfUniformsSampler', (r, seed) => ratioOfUniformsSampler(exponentialTarget(r), { seed })],
+  ['tableSampler', (r, seed) => tableSampler(exponentialTarget(r), { seed })],
+  ['piecewiseSampler({ fast: true })', (r, seed) => piecewiseSampler(exponentialTarget(r), { seed, fast: true })],
+  ['exactSampler({ expectedDraws: 100000 })', (r, seed) => exactSampler(exponentialTarget(r), { seed, expectedDraws: 100_000 })],
+];
+for (const [name, make] of expMakers) {
+  reproduced.push({
+    name: `${name}(exponential(1e200)); twin: rate 1.1e200`,
+    make: (seed) => make(1e200, seed),
+    biased: (seed) => make(1.1e200, seed),
+    cdf: expCdfOf(0, 1e200),
+    n: N,
+    seed: 5,
+    support: [0, Infinity],
+    stream: false,
   });
-
-  it('an exponential on [1e300, ∞) (was ImproperDensityError from exactSampler and piecewise, "found no mass" from ratio-of-uniforms) with those and the hull and on [1e300, 1e301] (was "still increasing towards -Infinity") fit; scale 1.1e300 is rejected', () => {
-    const cdf = expCdfOf(1e300, 1e-300);
-    const b = 1e301;
-    const cdfB = (x: number): number => cdf(x) / cdf(b);
-    const cases: [string, (scale: number) => Target, (x: number) => number][] = [
-      ['[1e300, ∞)', (sc) => shiftedExp(1e300, sc), cdf],
-      ['[1e300, 1e301]', (sc) => shiftedExp(1e300, sc, b), cdfB],
-    ];
-    for (const [name, target, c] of cases) {
-      for (const make of [
-        (t: Target) => exactSampler(t, { seed: 8 }),
-        (t: Target) => adaptiveRejectionSampler(t, { seed: 8 }),
-        (t: Target) => ratioOfUniformsSampler(t, { seed: 8 }),
-        (t: Target) => piecewiseSampler(t, { seed: 8 }),
-      ]) {
-        const xs = draw(make(target(1e300)), 20_000);
-        expectInSupport(xs, 1e300, name.endsWith('∞)') ? Infinity : b);
-        expectFits(xs, c, name);
-        expectRejects(draw(make(target(1.1e300)), 20_000), c, `${name} twin`);
-      }
-    }
+}
+// normal(1e300, 1e290) (was ImproperDensityError "no decay found" from exactSampler, "found no mass" from
+// ratio-of-uniforms); twin: μ + 0.1σ
+for (const [name, make] of [
+  ['exactSampler', (m: number, seed: number) => exactSampler(normalTarget(m, 1e290), { seed })],
+  ['ratioOfUniformsSampler', (m: number, seed: number) => ratioOfUniformsSampler(normalTarget(m, 1e290), { seed })],
+] as const) {
+  reproduced.push({
+    name: `${name}(normal(1e300, 1e290)); twin: μ + 0.1σ`,
+    make: (seed) => make(1e300, seed),
+    biased: (seed) => make(1e300 + 1e289, seed),
+    cdf: normalCdfOf(1e300, 1e290),
+    n: N,
+    seed: 3,
+    afterFit: notAPointMass,
+    stream: false,
   });
-
-  it('normal(0, 1e-200) (was "positive density at only 1 point" from exactSampler, "no start point" from the hull) fits with exactSampler, the hull and piecewise; sd 1.1e-200 is rejected', () => {
-    const cdf = normalCdfOf(0, 1e-200);
-    for (const make of [
-      (s: number) => exactSampler(normalTarget(0, s), { seed: 4 }),
-      (s: number) => adaptiveRejectionSampler(normalTarget(0, s), { seed: 4 }),
-      (s: number) => piecewiseSampler(normalTarget(0, s), { seed: 4 }),
-    ]) {
-      expectFits(draw(make(1e-200), 20_000), cdf, 'normal(0, 1e-200)');
-      expectRejects(draw(make(1.1e-200), 20_000), cdf, 'normal(0, 1.1e-200) twin');
+}
+// an exponential on [1e300, ∞) (was ImproperDensityError from exactSampler and piecewise, "found no mass" from
+// ratio-of-uniforms) with those and the hull, and on [1e300, 1e301] (was "still increasing towards -Infinity");
+// twin: scale 1.1e300
+{
+  const cdf = expCdfOf(1e300, 1e-300);
+  const b = 1e301;
+  const cdfB = (x: number): number => cdf(x) / cdf(b);
+  const shifted: [string, (scale: number) => Target, (x: number) => number, number][] = [
+    ['[1e300, ∞)', (sc) => shiftedExp(1e300, sc), cdf, Infinity],
+    ['[1e300, 1e301]', (sc) => shiftedExp(1e300, sc, b), cdfB, b],
+  ];
+  const makers: [string, (t: Target, seed: number) => Sampler][] = [
+    ['exactSampler', (t, seed) => exactSampler(t, { seed })],
+    ['adaptiveRejectionSampler', (t, seed) => adaptiveRejectionSampler(t, { seed })],
+    ['ratioOfUniformsSampler', (t, seed) => ratioOfUniformsSampler(t, { seed })],
+    ['piecewiseSampler', (t, seed) => piecewiseSampler(t, { seed })],
+  ];
+  for (const [name, target, c, upper] of shifted) {
+    for (const [mname, make] of makers) {
+      reproduced.push({
+        name: `${mname}(exponential on ${name}, scale 1e300); twin: scale 1.1e300`,
+        make: (seed) => make(target(1e300), seed),
+        biased: (seed) => make(target(1.1e300), seed),
+        cdf: c,
+        n: N,
+        seed: 8,
+        support: [1e300, upper],
+        stream: false,
+      });
     }
+  }
+}
+// normal(0, 1e-200) (was "positive density at only 1 point" from exactSampler, "no start point" from the hull)
+// with exactSampler, the hull and piecewise; twin: sd 1.1e-200
+for (const [name, make] of [
+  ['exactSampler', (sd: number, seed: number) => exactSampler(normalTarget(0, sd), { seed })],
+  ['adaptiveRejectionSampler', (sd: number, seed: number) => adaptiveRejectionSampler(normalTarget(0, sd), { seed })],
+  ['piecewiseSampler', (sd: number, seed: number) => piecewiseSampler(normalTarget(0, sd), { seed })],
+] as const) {
+  reproduced.push({
+    name: `${name}(normal(0, 1e-200)); twin: sd 1.1e-200`,
+    make: (seed) => make(1e-200, seed),
+    biased: (seed) => make(1.1e-200, seed),
+    cdf: normalCdfOf(0, 1e-200),
+    n: N,
+    seed: 4,
+    stream: false,
   });
+}
+// where the doubles are coarse on the target scale (2^-40 to 2^-10 of σ) exactSampler samples with
+// ratio-of-uniforms (the refusals of the hulls and piecewise are checked below); twin: μ + 0.1σ
+// (doubles at 3e-290, in [2^-962, 2^-961), are 2^-1014 ≈ 5.8e-306 apart: 5.8e-6 σ ≈ 2^-17.4 σ)
+const coarse = {
+  name: 'exactSampler(normal(3e-290, 1e-300)), coarse doubles; twin: μ + 0.1σ',
+  make: (seed: number) => exactSampler(normalTarget(3e-290, 1e-300), { seed }),
+  beforeFit: (s: ExactSampler) => {
+    expect(s.choice.method).toBe('ratio-of-uniforms');
+    expect(s.choice.reason).toMatch(/staircase/);
+  },
+  biased: (seed: number) => exactSampler(normalTarget(3e-290 + 1e-301, 1e-300), { seed }),
+  cdf: normalCdfOf(3e-290, 1e-300),
+  n: N,
+  seed: 6,
+  stream: false,
+};
 
-  it('where the doubles are coarse on the target scale (2^-40 to 2^-10 of σ), the hulls and piecewise refuse with a ShapeViolationError naming the staircase; exactSampler samples with ratio-of-uniforms and fits', () => {
+methodSuites('issue 17 item 1: the reproduced failures fit at fixed seeds; biased twins rejected', reproduced);
+methodSuite<ExactSampler>(coarse);
+
+describe('issue 17 item 1: refusals and descriptions', () => {
+  it('where the doubles are coarse on the target scale (2^-40 to 2^-10 of σ), the hulls and piecewise refuse with a ShapeViolationError naming the staircase', () => {
     const t = normalTarget(3e-290, 1e-300); // doubles at 3e-290 (in [2^-962, 2^-961)) are 2^-1014 ≈ 5.8e-306 apart: 5.8e-6 σ ≈ 2^-17.4 σ
     expect(() => adaptiveRejectionSampler(t)).toThrow(ShapeViolationError);
     expect(() => tableSampler(t)).toThrow(/staircase/);
     expect(() => piecewiseSampler(normalTarget(1e300, 1e290))).toThrow(/staircase/);
-    const s = exactSampler(t, { seed: 6 });
-    expect(s.choice.method).toBe('ratio-of-uniforms');
-    expect(s.choice.reason).toMatch(/staircase/);
-    expectFits(draw(s, 20_000), normalCdfOf(3e-290, 1e-300), 'coarse normal');
-    expectRejects(draw(exactSampler(normalTarget(3e-290 + 1e-301, 1e-300), { seed: 6 }), 20_000), normalCdfOf(3e-290, 1e-300), 'coarse normal twin');
   });
 
   it('descriptions are in x: the hull of normal(0, 1e290), built in z, has envelope ≥ target ≥ squeeze at points of x', () => {
@@ -168,15 +225,19 @@ describe('issue 17 item 1: the reproduced failures, at fixed seeds', () => {
   });
 });
 
-describe('large-n fixed cases', () => {
-  it('exactSampler at n = 1e5: normal(1e300, 1e290), normal(0, 1e-300), normal(-1e-300, 1e300) fit; a 0.05σ shift is rejected', () => {
-    for (const [mu, sd] of [[1e300, 1e290], [0, 1e-300], [-1e-300, 1e300]] as const) {
-      const cdf = normalCdfOf(mu, sd);
-      expectFits(draw(exactSampler(normalTarget(mu, sd), { seed: 11 }), 100_000), cdf, `normal(${mu}, ${sd})`);
-      expectRejects(draw(exactSampler(normalTarget(mu + 0.05 * sd, sd), { seed: 11 }), 100_000), cdf, `normal(${mu} + 0.05σ, ${sd}) twin`);
-    }
-  });
-});
+// exactSampler at n = 1e5: normal(1e300, 1e290), normal(0, 1e-300), normal(-1e-300, 1e300) fit; a 0.05σ shift is rejected
+methodSuites(
+  'large-n fixed cases',
+  ([[1e300, 1e290], [0, 1e-300], [-1e-300, 1e300]] as const).map(([mu, sd]) => ({
+    name: `exactSampler(normal(${mu}, ${sd})), n = 1e5; twin: μ + 0.05σ`,
+    make: (seed: number) => exactSampler(normalTarget(mu, sd), { seed }),
+    biased: (seed: number) => exactSampler(normalTarget(mu + 0.05 * sd, sd), { seed }),
+    cdf: normalCdfOf(mu, sd),
+    n: 100_000,
+    seed: 11,
+    stream: false,
+  })),
+);
 
 /** The spacing of the doubles at x. */
 const ulp = (x: number): number => Math.max(Math.abs(x) * 2 ** -52, 2 ** -1074);
