@@ -17,6 +17,15 @@ export interface CheckedTarget {
   readonly mode: number | undefined;
 }
 
+/** A {@link CheckedTarget} being written (the validation's output). */
+type MutableCheckedTarget = { -readonly [K in keyof CheckedTarget]: CheckedTarget[K] };
+
+/** The optional bound members a target may carry, each checked to be a function when given. */
+const BOUND_MEMBERS = ['logDensityBounds', 'dLogDensityBounds', 'd2LogDensityBounds'] as const;
+
+/** Placeholder of a checked target's logDensity before it is bound. */
+const unbound = (): number => NaN;
+
 /**
  * Validates a target: `logDensity` is a function, `dLogDensity` (if any) is a
  * function, the support is `[lower, upper]` with `lower < upper` and no NaN,
@@ -24,6 +33,49 @@ export interface CheckedTarget {
  * @internal
  */
 export function checkTarget(api: string, target: Target): CheckedTarget {
+  const out: MutableCheckedTarget = { logDensity: unbound, dLogDensity: undefined, lower: -Infinity, upper: Infinity, mode: undefined };
+  validateTarget(api, target, out);
+  out.logDensity = target.logDensity.bind(target);
+  out.dLogDensity = target.dLogDensity !== undefined ? target.dLogDensity.bind(target) : undefined;
+  return out;
+}
+
+/**
+ * {@link checkTarget} for a sampler that is given one target after another
+ * (a Gibbs sampler's full conditionals, often the same object whose
+ * closures read the chain's state): the same checks and errors on every
+ * call, written into one object that the next call overwrites, and the
+ * bound functions kept while the target object and its functions are the
+ * same as last time (binding anew would allocate two functions per step).
+ * @internal
+ */
+export class CheckedTargetCache {
+  private readonly out: MutableCheckedTarget = { logDensity: unbound, dLogDensity: undefined, lower: -Infinity, upper: Infinity, mode: undefined };
+  private owner: Target | undefined = undefined;
+  private rawLogDensity: unknown = undefined;
+  private rawDLogDensity: unknown = undefined;
+
+  /**
+   * Checks `target` as {@link checkTarget} does; the object returned is
+   * valid until the next call.
+   */
+  check(api: string, target: Target): CheckedTarget {
+    const out = this.out;
+    validateTarget(api, target, out);
+    if (target !== this.owner || target.logDensity !== this.rawLogDensity || target.dLogDensity !== this.rawDLogDensity) {
+      this.owner = undefined;
+      out.logDensity = target.logDensity.bind(target);
+      out.dLogDensity = target.dLogDensity !== undefined ? target.dLogDensity.bind(target) : undefined;
+      this.owner = target;
+      this.rawLogDensity = target.logDensity;
+      this.rawDLogDensity = target.dLogDensity;
+    }
+    return out;
+  }
+}
+
+/** The checks of {@link checkTarget}; writes the support ends and the mode hint into `out`. */
+function validateTarget(api: string, target: Target, out: MutableCheckedTarget): void {
   if (target === null || typeof target !== 'object') {
     throw new InvalidTargetError(`${api}: target must be an object with a logDensity function, got ${target === null ? 'null' : typeof target}`);
   }
@@ -33,12 +85,15 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
   if (target.dLogDensity !== undefined && typeof target.dLogDensity !== 'function') {
     throw new InvalidTargetError(`${api}: target.dLogDensity must be a function when given, got ${typeof target.dLogDensity}`);
   }
-  for (const name of ['logDensityBounds', 'dLogDensityBounds', 'd2LogDensityBounds'] as const) {
+  for (let i = 0; i < BOUND_MEMBERS.length; i++) {
+    const name = BOUND_MEMBERS[i];
     if (target[name] !== undefined && typeof target[name] !== 'function') {
       throw new InvalidTargetError(`${api}: target.${name} must be a function when given, got ${typeof target[name]}`);
     }
   }
-  const [lower, upper] = checkSupport(api, 'target.support', target.support);
+  checkSupportInto(api, 'target.support', target.support, out);
+  const lower = out.lower;
+  const upper = out.upper;
   if (target.modes !== undefined) {
     if (!Array.isArray(target.modes)) {
       throw new InvalidTargetError(`${api}: target.modes must be an array of numbers when given, got ${typeof target.modes}`);
@@ -49,7 +104,7 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
       }
     }
   }
-  let mode = target.mode;
+  const mode = target.mode;
   if (mode !== undefined) {
     if (typeof mode !== 'number' || !Number.isFinite(mode)) {
       throw new InvalidTargetError(`${api}: target.mode must be a finite number when given, got ${showValue(mode)}`);
@@ -58,15 +113,23 @@ export function checkTarget(api: string, target: Target): CheckedTarget {
       throw new InvalidTargetError(`${api}: target.mode = ${mode} lies outside the support [${lower}, ${upper}]`);
     }
   }
-  const ld = target.logDensity.bind(target);
-  const dld = target.dLogDensity !== undefined ? target.dLogDensity.bind(target) : undefined;
-  mode = mode === undefined ? undefined : mode;
-  return { logDensity: ld, dLogDensity: dld, lower, upper, mode };
+  out.mode = mode;
 }
 
 /** Validates a support pair. @internal */
 export function checkSupport(api: string, name: string, support: readonly [number, number] | undefined): [number, number] {
-  if (support === undefined) return [-Infinity, Infinity];
+  const ends = { lower: -Infinity, upper: Infinity };
+  checkSupportInto(api, name, support, ends);
+  return [ends.lower, ends.upper];
+}
+
+/** {@link checkSupport} writing the ends into `out` (no allocation). */
+function checkSupportInto(api: string, name: string, support: readonly [number, number] | undefined, out: { lower: number; upper: number }): void {
+  if (support === undefined) {
+    out.lower = -Infinity;
+    out.upper = Infinity;
+    return;
+  }
   if (!Array.isArray(support) || support.length !== 2) {
     throw badValue(name, `${api}: ${name} must be a pair [lower, upper], got ${showValue(support)}`);
   }
@@ -81,7 +144,8 @@ export function checkSupport(api: string, name: string, support: readonly [numbe
   if (lower === Infinity || upper === -Infinity) {
     throw badValue(name, `${api}: ${name} is empty, got [${lower}, ${upper}]`);
   }
-  return [lower, upper];
+  out.lower = lower;
+  out.upper = upper;
 }
 
 /**

@@ -8,14 +8,16 @@ import { Counters } from '../core/counters.js';
 import { wrapDraws } from '../core/draws.js';
 import { InvalidOptionError, InvalidTargetError } from '../core/errors.js';
 import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
-import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxRejections, showValue } from '../core/validate.js';
+import { CheckedTargetCache, checkInteger, checkOptionKeys, resolveBoolean, resolveMaxRejections, showValue } from '../core/validate.js';
+import type { CheckedTarget } from '../core/validate.js';
 import type { EnvelopeDescription } from './envelope/description.js';
 import { T_INV_SQRT, T_LOG } from './envelope/transforms.js';
 import type { TransformName } from './envelope/transforms.js';
 import { describeHull } from './hull/describe.js';
 import { Hull } from './hull/hull.js';
 import { hullFill } from './hull/kernel.js';
-import { DEFAULT_MAX_PIECES, buildHull } from './hull/setup.js';
+import { DEFAULT_MAX_PIECES, SetupEvaluator, buildHull } from './hull/setup.js';
+import { SetupProbes } from './hull/setup-probes.js';
 import type { HullReuse, ResolvedHullOptions } from './hull/setup.js';
 import { ProbePool, hullCentre, warmStartPoints } from './hull/warm-start.js';
 import type { WarmCentre } from './hull/warm-start.js';
@@ -163,11 +165,27 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
   let hasTarget = false;
   let targets = 0;
   let derivatives = 0;
-  let centre: WarmCentre | undefined;
+  // everything a step needs is made here, once: the checked target, the setup's evaluator and probing
+  // state, the options object and the warm centre are rewritten per target (a step allocates no closures)
+  const checked = new CheckedTargetCache();
+  const evaluator = new SetupEvaluator(API, counters);
+  const probes = new SetupProbes(hull, 1);
+  const centre: WarmCentre = { centre: 0, scale: 1 };
+  let warmNext = false;
   const pool = new ProbePool();
-  const warmStart: HullReuse['start'] = (search, lower, upper, mode) => warmStartPoints(search, lower, upper, mode, centre as WarmCentre, pool);
-  const reuseCold: HullReuse = { hull, counters, start: undefined };
-  const reuseWarm: HullReuse = { hull, counters, start: warmStart };
+  const warmStart: HullReuse['start'] = (search, lower, upper, mode) => warmStartPoints(search, lower, upper, mode, centre, pool);
+  const reuseCold: HullReuse = { hull, counters, evaluator, probes, start: undefined };
+  const reuseWarm: HullReuse = { hull, counters, evaluator, probes, start: warmStart };
+  const o: { -readonly [K in keyof ResolvedHullOptions]: ResolvedHullOptions[K] } = {
+    target: undefined as unknown as CheckedTarget,
+    kind,
+    tangent: false,
+    maxPieces,
+    maxRejections,
+    startPoints: undefined,
+    uniform,
+    ownsUniform,
+  };
   // the one sample/fill wrapper (core/draws.ts); retarget forgets a failure of the previous target
   const draws = wrapDraws(API, (out, n) => {
     if (!hasTarget) throw new InvalidTargetError(`${API}: no target to draw from: call retarget(target) first (or the last retarget threw)`);
@@ -177,22 +195,24 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
   const sampler: ConditionalSampler = {
     retarget(target: Target): ConditionalSampler {
       // what the previous target's hull tells about the next one; nothing for the first target or after a failure
-      centre = warm && hasTarget && !draws.failed() ? hullCentre(hull, centre ?? { centre: 0, scale: 1 }) : undefined;
+      if (warm && hasTarget && !draws.failed()) {
+        // the first estimate falls back on centre 0, scale 1; later ones on the previous estimate
+        if (!warmNext) {
+          centre.centre = 0;
+          centre.scale = 1;
+        }
+        hullCentre(hull, centre, centre);
+        warmNext = true;
+      } else {
+        warmNext = false;
+      }
       if (hasTarget) derivatives += hull.derivativeEvaluations;
       hasTarget = false;
       draws.clearFailure();
-      const t = checkTarget(API, target);
-      const o: ResolvedHullOptions = {
-        target: t,
-        kind,
-        tangent: t.dLogDensity !== undefined && !derivativeFree,
-        maxPieces,
-        maxRejections,
-        startPoints: undefined,
-        uniform,
-        ownsUniform,
-      };
-      buildHull(API, o, centre !== undefined ? reuseWarm : reuseCold);
+      const t = checked.check(API, target);
+      o.target = t;
+      o.tangent = t.dLogDensity !== undefined && !derivativeFree;
+      buildHull(API, o, warmNext ? reuseWarm : reuseCold);
       hasTarget = true;
       targets++;
       return sampler;

@@ -19,3 +19,13 @@ declare module '@stdlib/math-base-special-log1p/lib/polyval_lp.js' {
   const polyval: (z: number) => number;
   export default polyval;
 }
+/** FDLIBM exp's polynomial in r² (the evaluator `@stdlib/math-base-special-exp` itself calls), shared by `exp`. */
+declare module '@stdlib/math-base-special-exp/lib/polyval_p.js' {
+  const polyval: (t: number) => number;
+  export default polyval;
+}
+/** FDLIBM expm1's polynomial (the evaluator `@stdlib/math-base-special-expm1` itself calls), shared by `expm1`. */
+declare module '@stdlib/math-base-special-expm1/lib/polyval_q.js' {
+  const polyval: (z: number) => number;
+  export default polyval;
+}

@@ -25,8 +25,18 @@ export class SetupProbes {
    */
   constructor(
     private readonly hull: Hull,
-    private readonly scale: number,
+    private scale: number,
   ) {}
+
+  /** Starts over for a new target in the same hull (a sampler that reuses its hull keeps one of these). */
+  reset(scale: number): this {
+    this.scale = scale;
+    this.leftStep = 0;
+    this.rightStep = 0;
+    this.leftGrowth = 2;
+    this.rightGrowth = 2;
+    return this;
+  }
 
   /**
    * The next point setup should probe so that the envelope becomes valid

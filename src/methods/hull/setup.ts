@@ -124,15 +124,84 @@ export function setupHull(api: string, target: Target, options: HullOptionsInput
 }
 
 /**
+ * The counted, checked evaluations of hull setup (the {@link StartSearch}
+ * the start-point search reads). A sampler that builds one hull after
+ * another keeps one and resets it per target, so that a Gibbs step creates
+ * no closures. @internal
+ */
+export class SetupEvaluator implements StartSearch {
+  useDerivative = false;
+  /** `dLogDensity` calls since the last {@link SetupEvaluator.reset}. */
+  derivativeCalls = 0;
+  private logf: (x: number) => number;
+  private dlogf: ((x: number) => number) | undefined = undefined;
+
+  /**
+   * @param api - API name for messages
+   * @param counters - where setup evaluations are counted
+   */
+  constructor(
+    readonly api: string,
+    private readonly counters: Counters,
+  ) {
+    this.logf = (): number => NaN;
+  }
+
+  /** Points the evaluations at a new target's functions. */
+  reset(t: CheckedTarget, tangent: boolean): this {
+    this.logf = t.logDensity;
+    this.dlogf = t.dLogDensity;
+    this.useDerivative = tangent;
+    this.derivativeCalls = 0;
+    return this;
+  }
+
+  /** Counted, checked log-density. */
+  readonly evaluate = (x: number): number => {
+    this.counters.setupEvaluations++;
+    return evalLog(this.api, this.logf, x);
+  };
+
+  /** Counted, checked derivative (NaN and non-numbers are errors; ±Infinity is returned). */
+  readonly derivative = (x: number): number => {
+    this.derivativeCalls++;
+    const g = (this.dlogf as (y: number) => number)(x);
+    if (g !== g || typeof g !== 'number') nonFiniteDerivative(this.api, x, g);
+    return g;
+  };
+}
+
+/**
  * What a sampler that reuses one hull for a sequence of targets brings to
  * {@link buildHull}: the hull to reset (its storage is kept), the counters
- * to add to, and optionally a start other than the automatic one. @internal
+ * to add to, the evaluator and probing state to reset (bound to `counters`
+ * and `hull`), and optionally a start other than the automatic one. @internal
  */
 export interface HullReuse {
   readonly hull: Hull;
   readonly counters: Counters;
+  readonly evaluator: SetupEvaluator;
+  readonly probes: SetupProbes;
   /** Start points from what is known of earlier targets; undefined: the automatic start (as a fresh hull). */
   readonly start: ((s: StartSearch, lower: number, upper: number, mode: number | undefined) => StartResult) | undefined;
+}
+
+/** True when a start probe can become a touch point (finite value, and a finite derivative with tangents). */
+function usable(p: Probe, tangent: boolean): boolean {
+  return p.l > -Infinity && (!tangent || Number.isFinite(p.g));
+}
+
+/**
+ * Where a zero of the density cut the support during setup (the hull's
+ * effective end moved inward from `checkedLower`/`checkedUpper`): look
+ * beyond it (issue 17: never a one-sided sample).
+ */
+function checkCuts(api: string, evaluate: (x: number) => number, hull: Hull, checkedLower: number, checkedUpper: number): void {
+  const k = hull.k;
+  if (k === 0) return;
+  const span = hull.touchX[k - 1] - hull.touchX[0];
+  if (hull.lower > checkedLower) checkBeyondZero(api, evaluate, hull.lower, hull.touchX[0], checkedLower, span);
+  if (hull.upper < checkedUpper) checkBeyondZero(api, evaluate, hull.upper, hull.touchX[k - 1], checkedUpper, span);
 }
 
 /**
@@ -141,45 +210,36 @@ export interface HullReuse {
  * same hull as a fresh one). @internal
  */
 export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse): HullSetup {
-  const { target: t, kind, tangent, maxPieces, maxRejections, uniform } = o;
+  const t = o.target;
+  const kind = o.kind;
+  const tangent = o.tangent;
+  const maxPieces = o.maxPieces;
   const start = o.startPoints;
   const counters = reuse === undefined ? new Counters() : reuse.counters;
-  const logf = t.logDensity;
-  const dlogf = t.dLogDensity;
-  let derivativeCalls = 0;
-  const evaluate = (x: number): number => {
-    counters.setupEvaluations++;
-    return evalLog(api, logf, x);
-  };
-  const derivative = (x: number): number => {
-    derivativeCalls++;
-    const g = (dlogf as (y: number) => number)(x);
-    if (g !== g || typeof g !== 'number') nonFiniteDerivative(api, x, g);
-    return g;
-  };
-  const probe = (x: number): Probe => {
-    const l = evaluate(x);
-    const g = tangent && l > -Infinity ? derivative(x) : NaN;
-    return { x, l, g };
-  };
+  const ev = (reuse === undefined ? new SetupEvaluator(api, counters) : reuse.evaluator).reset(t, tangent);
+  const evaluate = ev.evaluate;
 
   let probes: Probe[];
   let scale: number;
   if (start === undefined) {
-    const search: StartSearch = { api, useDerivative: tangent, evaluate, derivative };
-    const r = reuse?.start !== undefined ? reuse.start(search, t.lower, t.upper, t.mode) : automaticStartPoints(search, t.lower, t.upper, t.mode);
+    const r = reuse?.start !== undefined ? reuse.start(ev, t.lower, t.upper, t.mode) : automaticStartPoints(ev, t.lower, t.upper, t.mode);
     probes = r.probes;
     scale = r.scale;
   } else {
-    probes = start.map(probe);
+    probes = start.map((x) => {
+      const l = evaluate(x);
+      return { x, l, g: tangent && l > -Infinity ? ev.derivative(x) : NaN };
+    });
     scale = start.length > 1 ? start[start.length - 1] - start[0] : Math.max(1, Math.abs(start[0]) * 1e-8);
   }
-  const usable = (p: Probe): boolean => p.l > -Infinity && (!tangent || Number.isFinite(p.g));
   let ref = -Infinity;
   let nUsable = 0;
-  for (const p of probes) {
-    if (usable(p) && p.l > ref) ref = p.l;
-    if (usable(p)) nUsable++;
+  for (let i = 0; i < probes.length; i++) {
+    const p = probes[i];
+    if (usable(p, tangent)) {
+      if (p.l > ref) ref = p.l;
+      nUsable++;
+    }
   }
   if (nUsable === 0) {
     throw new InvalidTargetError(
@@ -187,30 +247,23 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
     );
   }
   const cap = Math.max(Math.floor(maxPieces / 2), nUsable) + 4;
-  const fns = { logDensity: logf, dLogDensity: dlogf };
-  const hull = reuse === undefined ? new Hull(api, kind, tangent, fns, t.lower, t.upper, ref, cap) : reuse.hull.reset(fns, tangent, t.lower, t.upper, ref, cap, reuse.start !== undefined);
-  const next = new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1);
+  // the checked target is the hull's target (its logDensity and dLogDensity are what the kernel calls)
+  const hull = reuse === undefined ? new Hull(api, kind, tangent, t, t.lower, t.upper, ref, cap) : reuse.hull.reset(t, tangent, t.lower, t.upper, ref, cap, reuse.start !== undefined);
+  const next = reuse === undefined ? new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1) : reuse.probes.reset(scale > 0 && scale < Infinity ? scale : 1);
   // the start points first without pieces, then every piece once (the same hull as inserting them one by one)
-  for (const p of probes) if (usable(p)) hull.insert(p.x, p.l, p.g, true, false);
+  for (let i = 0; i < probes.length; i++) {
+    const p = probes[i];
+    if (usable(p, tangent)) hull.insert(p.x, p.l, p.g, true, false);
+  }
   hull.rebuildAll();
-  for (const p of probes) if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
+  for (let i = 0; i < probes.length; i++) {
+    const p = probes[i];
+    if (p.l === -Infinity) hull.insert(p.x, p.l, p.g, true);
+  }
   // a zero that cuts the support: look beyond it (issue 17: never a one-sided sample)
-  let checkedLower = t.lower;
-  let checkedUpper = t.upper;
-  const checkCuts = (): void => {
-    const k = hull.k;
-    if (k === 0) return;
-    const span = hull.touchX[k - 1] - hull.touchX[0];
-    if (hull.lower > checkedLower) {
-      checkBeyondZero(api, evaluate, hull.lower, hull.touchX[0], checkedLower, span);
-      checkedLower = hull.lower;
-    }
-    if (hull.upper < checkedUpper) {
-      checkBeyondZero(api, evaluate, hull.upper, hull.touchX[k - 1], checkedUpper, span);
-      checkedUpper = hull.upper;
-    }
-  };
-  checkCuts();
+  checkCuts(api, evaluate, hull, t.lower, t.upper);
+  const checkedLower = hull.lower;
+  const checkedUpper = hull.upper;
   let stuck = 0;
   let refinements = 0;
   for (;;) {
@@ -221,23 +274,24 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
         `${api}: no integrable envelope after ${SETUP_MAX_REFINEMENTS} setup refinements on [${hull.lower}, ${hull.upper}] (${hull.k} touch points from ${hull.touchX[0]} to ${hull.touchX[hull.k - 1]}); the target may not be ${hull.shapeName()} or its tails may not decay`,
       );
     }
-    const p = probe(x);
-    if (tangent && p.l > -Infinity && !Number.isFinite(p.g)) {
+    const l = evaluate(x);
+    const g = tangent && l > -Infinity ? ev.derivative(x) : NaN;
+    if (tangent && l > -Infinity && !Number.isFinite(g)) {
       if (++stuck > 20) break;
       continue;
     }
-    if (!hull.insert(p.x, p.l, p.g, true) && ++stuck > 20) break;
+    if (!hull.insert(x, l, g, true) && ++stuck > 20) break;
   }
-  checkCuts();
+  checkCuts(api, evaluate, hull, checkedLower, checkedUpper);
   const top = hull.maxRelativeHeight();
   // a warm start skips the second build where the log hull's top is near its reference (the kernel works
   // with relative values; the reference only keeps the areas in range)
   const keepRef = reuse?.start !== undefined && kind === T_LOG && Math.abs(top) <= 32;
   if (!keepRef && top > -Infinity && top < Infinity) hull.rebase(hull.ref + top);
   hull.maxK = Math.max(Math.floor(maxPieces / 2), hull.k);
-  hull.derivativeEvaluations = derivativeCalls;
+  hull.derivativeEvaluations = ev.derivativeCalls;
   hull.buildGuide();
-  return { hull, target: t, counters, uniform, maxRejections, ownsUniform: o.ownsUniform };
+  return { hull, target: t, counters, uniform: o.uniform, maxRejections: o.maxRejections, ownsUniform: o.ownsUniform };
 }
 
 function checkStartPoints(api: string, pts: readonly number[], lower: number, upper: number): number[] {

@@ -49,13 +49,13 @@ export function warmStartPoints(s: StartSearch, lower: number, upper: number, mo
   if (left > lower && left < c) pool.probe(s, left);
   if (!useD && c > lower && c < upper) pool.probe(s, c);
   if (right < upper && right > c) pool.probe(s, right);
-  if (pool.probes.length === 0) pool.probe(s, c);
+  if (pool.size() === 0) pool.probe(s, c);
   for (let extra = 0; extra < WARM_MAX_EXTRA_PROBES; extra++) {
     const x = nextBracketProbe(pool, useD, lower, upper, sigma);
     if (x !== x) break;
     pool.probe(s, x);
   }
-  return { probes: pool.probes, scale: sigma };
+  return { probes: pool.finish(), scale: sigma };
 }
 
 /** A point one scale from the centre, moved halfway to a finite end it would cross. */
@@ -84,17 +84,29 @@ export class ProbePool {
   /** The finite probes sorted by x (scratch of {@link nextBracketProbe}). */
   readonly sorted: Probe[] = [];
   private readonly store: PooledProbe[] = [];
+  /** Probes of the current start (`probes` is cut to this length by {@link ProbePool.finish}). */
+  private count = 0;
 
-  /** Forgets the probes (their objects are reused). */
+  /**
+   * Forgets the probes (their objects are reused). The arrays keep their
+   * length until {@link ProbePool.finish}: `length = 0` would drop their
+   * backing stores, and every push after it would allocate a new one.
+   */
   clear(): void {
-    this.probes.length = 0;
+    this.count = 0;
+  }
+
+  /** Cuts {@link ProbePool.probes} to the probes of the current start and returns it. */
+  finish(): Probe[] {
+    if (this.probes.length !== this.count) this.probes.length = this.count;
+    return this.probes;
   }
 
   /** Evaluates the log-density (and the derivative when the search uses it and the value is finite) at x and keeps the probe. */
   probe(s: StartSearch, x: number): void {
     const l = s.evaluate(x);
     const g = s.useDerivative && l > -Infinity ? s.derivative(x) : NaN;
-    const n = this.probes.length;
+    const n = this.count++;
     let p = this.store[n];
     if (p === undefined) {
       p = { x, l, g };
@@ -104,14 +116,28 @@ export class ProbePool {
       p.l = l;
       p.g = g;
     }
-    this.probes.push(p);
+    if (n < this.probes.length) this.probes[n] = p;
+    else this.probes.push(p);
+  }
+
+  /** Number of probes of the current start. */
+  size(): number {
+    return this.count;
   }
 
   /** The finite probes in increasing x, in {@link ProbePool.sorted} (insertion sort: few probes). */
   sortByX(): Probe[] {
     const a = this.sorted;
-    a.length = 0;
-    for (const p of this.probes) if (p.l > -Infinity) a.push(p);
+    const all = this.probes;
+    let m = 0;
+    for (let i = 0; i < this.count; i++) {
+      const p = all[i];
+      if (!(p.l > -Infinity)) continue;
+      if (m < a.length) a[m] = p;
+      else a.push(p);
+      m++;
+    }
+    if (a.length !== m) a.length = m;
     for (let i = 1; i < a.length; i++) {
       const p = a[i];
       let j = i - 1;
@@ -194,19 +220,21 @@ function nextBracketProbe(pool: ProbePool, useD: boolean, lower: number, upper: 
  * between the two touch points where it changes sign, and the scale of a
  * quadratic log-density with that derivative change; without, the vertex
  * and curvature of the parabola through the highest touch point and its
- * neighbours. Returns `fallback` for what cannot be estimated.
+ * neighbours. Takes `fallback`'s values for what cannot be estimated.
+ * Writes the estimate into `into` (which may be `fallback` itself; a fresh
+ * object when not given) and returns it.
  * @internal
  */
-export function hullCentre(h: Hull, fallback: WarmCentre): WarmCentre {
+export function hullCentre(h: Hull, fallback: WarmCentre, into: WarmCentre = { centre: 0, scale: 1 }): WarmCentre {
   const k = h.k;
   const tx = h.touchX;
   const tl = h.touchLogDensity;
   let centre = NaN;
   let scale = NaN;
-  if (k === 0) return fallback;
+  if (k === 0) return copyCentre(fallback.centre, fallback.scale, into);
   let im = -1;
   for (let i = 0; i < k; i++) if (tl[i] > -Infinity && (im < 0 || tl[i] > tl[im])) im = i;
-  if (im < 0) return fallback;
+  if (im < 0) return copyCentre(fallback.centre, fallback.scale, into);
   if (h.tangent) {
     const tg = h.touchDerivative;
     for (let i = 0; i + 1 < k; i++) {
@@ -237,5 +265,11 @@ export function hullCentre(h: Hull, fallback: WarmCentre): WarmCentre {
     const w = k >= 2 ? (tx[k - 1] - tx[0]) / (k - 1) : fallback.scale;
     scale = w > 0 && w < Infinity ? w : fallback.scale;
   }
-  return { centre, scale };
+  return copyCentre(centre, scale, into);
+}
+
+function copyCentre(centre: number, scale: number, into: WarmCentre): WarmCentre {
+  into.centre = centre;
+  into.scale = scale;
+  return into;
 }

@@ -1,5 +1,105 @@
-/** e^x − 1, accurate near 0: `@stdlib/math-base-special-expm1` (pure JavaScript, IEEE basic arithmetic only; bundled). @internal @packageDocumentation */
+/**
+ * e^x − 1, accurate near 0: the algorithm of `@stdlib/math-base-special-expm1`
+ * (FDLIBM's s_expm1.c) step for step, the same bits for every x, with its
+ * word-level constructions of powers of two read from a table.
+ * @internal @packageDocumentation
+ */
 import impl from '@stdlib/math-base-special-expm1';
+import polyvalQ from '@stdlib/math-base-special-expm1/lib/polyval_q.js';
+import { POW2 } from './pow2-table.js';
 
-/** e^x − 1, accurate near 0, the same bits on every engine. @internal */
-export const expm1: (x: number) => number = impl;
+const OVERFLOW_THRESHOLD = 7.09782712893383973096e2;
+const LN2_HI = 6.9314718036912381649e-1;
+const LN2_LO = 1.90821492927058770002e-10;
+const LN2_INV = 1.442695040888963387e0;
+const LN2x56 = 3.88162421113569373274e1;
+const LN2_HALFX3 = 1.03972077083991796413e0;
+const HALF_LN2 = 0.34657359027997264;
+const TWO_M54 = 5.551115123125783e-17; // 2^-54
+
+/** Scratch slot of the rare path (see {@link expm1}). */
+const SLOT = /* @__PURE__ */ new Float64Array(1);
+
+/**
+ * e^x − 1, accurate near 0, the same bits on every engine: bit for bit
+ * `@stdlib/math-base-special-expm1`.
+ *
+ * @remarks
+ * The same operations in the same order as the package; where it builds a
+ * double from words — 2^k, 1 − 2^−k, 2^−k (each exact, all with a zero low
+ * word) and the test |x| < 2^−54 on the high word — this function takes
+ * the same exact values from a table of powers of two, or compares with
+ * 2^−54. The one case that adds k = 1024 to an exponent field goes to the
+ * package itself. Checked bit for bit against the package in
+ * test/vendor/exp.test.ts. Why: the package's word helpers were most of the
+ * cost of the e^x − 1 every hull piece's area needs.
+ * @internal
+ */
+export function expm1(x0: number): number {
+  let x = x0;
+  if (x === Infinity || x !== x) return x;
+  if (x === -Infinity) return -1;
+  if (x === 0) return x;
+  const sign = x < 0;
+  const y0 = sign ? -x : x;
+  if (y0 >= LN2x56) {
+    if (sign) return -1;
+    if (y0 >= OVERFLOW_THRESHOLD) return Infinity;
+  }
+  let k = 0;
+  let c = 0;
+  if (y0 > HALF_LN2) {
+    let hi: number;
+    let lo: number;
+    if (y0 < LN2_HALFX3) {
+      if (sign) {
+        hi = x + LN2_HI;
+        lo = -LN2_LO;
+        k = -1;
+      } else {
+        hi = x - LN2_HI;
+        lo = LN2_LO;
+        k = 1;
+      }
+    } else {
+      k = (sign ? LN2_INV * x - 0.5 : LN2_INV * x + 0.5) | 0;
+      hi = x - k * LN2_HI;
+      lo = k * LN2_LO;
+    }
+    x = hi - lo;
+    c = hi - x - lo;
+  } else if (y0 < TWO_M54) {
+    return x;
+  }
+  const halfX = 0.5 * x;
+  const z = x * halfX;
+  const r1 = 1.0 + z * polyvalQ(z);
+  let t = 3.0 - r1 * halfX;
+  let e = z * ((r1 - t) / (6.0 - x * t));
+  if (k === 0) return x - (x * e - z);
+  e = x * (e - c) - c;
+  e -= z;
+  if (k === -1) return 0.5 * (x - e) - 0.5;
+  if (k === 1) {
+    if (x < -0.25) return -2.0 * (e - (x + 0.5));
+    return 1.0 + 2.0 * (x - e);
+  }
+  if (k <= -2 || k > 56) {
+    if (k === 1024) {
+      SLOT[0] = impl(x0);
+      return SLOT[0];
+    }
+    // k ≥ −56 here (x ≤ −56·ln 2 returned −1 above)
+    return (1.0 - (e - x)) * POW2[k + 1022] - 1.0;
+  }
+  let y: number;
+  if (k < 20) {
+    t = 1 - POW2[1022 - k]; // 1 − 2^−k, exact
+    y = t - (e - x);
+  } else {
+    t = POW2[1022 - k]; // 2^−k
+    y = x - (e + t);
+    y += 1.0;
+  }
+  return y * POW2[k + 1022];
+}
