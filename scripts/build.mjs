@@ -19,7 +19,7 @@ import { chmodSync, existsSync, readFileSync, readdirSync, rmSync, writeFileSync
 import { createRequire } from 'node:module';
 import { join, resolve } from 'node:path';
 import { build } from 'esbuild';
-import { replaced, stdlibEsm, stdlibGlue, stdlibLdexp, stdlibMainOnly, stdlibPure } from './esbuild-stdlib.mjs';
+import { REPLACED, replaced, stdlibEsm, stdlibGlue, stdlibLdexp, stdlibMainOnly, stdlibPure } from './esbuild-stdlib.mjs';
 
 const require = createRequire(import.meta.url);
 const tsc = require.resolve('typescript/bin/tsc');
@@ -118,7 +118,9 @@ const heading = (names) => `${names.length} package(s): ${names.slice(0, 3).join
 let md = '# Third-party licenses\n\nThe bundles in `dist/` (`dist/*.js`, `dist/chunks/`, `dist/vendor/`, `dist/node/`, `dist/cli/`, `dist/cjs/index.js`)\n';
 md += 'contain the following packages, unmodified, from the npm registry:\n\n';
 for (const p of list) md += `- ${p.name}@${p.version} (${p.license})\n`;
-md += `\nReplaced at build time by the JavaScript built-ins they detect or wrap (so not contained): ${[...replaced].sort().join(', ')}.\n`;
+const ported = [...replaced].filter((n) => n in REPLACED).sort();
+md += `\nReplaced at build time by the JavaScript built-ins they detect or wrap (so not contained): ${[...replaced].filter((n) => !(n in REPLACED)).sort().join(', ')}.\n`;
+md += `\nReplaced at build time by the library's own ports of their algorithms, step for step and compared bit for bit with the packages in its tests (src/vendor/math/; where a port imports a polynomial file of the package, that file is contained and the package listed above): ${ported.join(', ')}.\n`;
 md += '\n## NOTICE files\n\nThe NOTICE texts of these packages (Apache License 2.0, section 4(d)); each distinct text appears once, with the packages it covers.\n';
 for (const [text, names] of group('notice')) md += `\n### ${heading(names)}\n\n\`\`\`\n${text}\n\`\`\`\n`;
 md += '\n## License texts\n\nEach distinct text appears once, with the packages it covers.\n';

@@ -82,18 +82,27 @@ export const stdlibEsm = {
 };
 
 /**
- * `@stdlib/math-base-special-ldexp`, imported by the @stdlib functions exp, pow and the argument
- * reduction of sin/cos/tan, is given src/vendor/math/ldexp.ts instead: the same algorithm step for
- * step (compared bit for bit in test/vendor/math.test.ts) on one DataView, without the six word-helper
- * packages it needs (listed as replaced in dist/THIRD_PARTY_LICENSES.md).
+ * @stdlib packages that the bundled @stdlib functions import and that are given our own modules
+ * instead, each the package's algorithm step for step (compared bit for bit with the package in
+ * test/vendor/math.test.ts and test/vendor/exp.test.ts) and listed as replaced in
+ * dist/THIRD_PARTY_LICENSES.md: `@stdlib/math-base-special-ldexp` (imported by exp, pow and the
+ * argument reduction of sin/cos/tan) on one DataView, without the six word-helper packages it
+ * needs; `@stdlib/math-base-special-exp` and `@stdlib/math-base-special-expm1` with their powers of
+ * two from a table (so that a bundle holds one exp and one expm1, the fast ones).
  */
-const LDEXP = new URL('../src/vendor/math/ldexp.ts', import.meta.url).pathname;
+export const REPLACED = {
+  '@stdlib/math-base-special-ldexp': new URL('../src/vendor/math/ldexp.ts', import.meta.url).pathname,
+  '@stdlib/math-base-special-exp': new URL('../src/vendor/math/exp.ts', import.meta.url).pathname,
+  '@stdlib/math-base-special-expm1': new URL('../src/vendor/math/expm1.ts', import.meta.url).pathname,
+};
 export const stdlibLdexp = {
   name: 'stdlib-ldexp',
   setup(b) {
-    b.onResolve({ filter: /^@stdlib\/math-base-special-ldexp$/ }, () => {
-      replaced.add('@stdlib/math-base-special-ldexp');
-      return { path: LDEXP, sideEffects: false };
+    b.onResolve({ filter: /^@stdlib\/math-base-special-(ldexp|exp|expm1)$/ }, (args) => {
+      const path = REPLACED[args.path];
+      if (path === undefined) return undefined;
+      replaced.add(args.path);
+      return { path, sideEffects: false };
     });
   },
 };

@@ -3,9 +3,9 @@
  * step for step, the same bits for every x, with the scaling by 2^k made
  * one multiplication. @internal @packageDocumentation
  */
-import impl from '@stdlib/math-base-special-exp';
 import polyvalP from '@stdlib/math-base-special-exp/lib/polyval_p.js';
 import { POW2 } from './pow2-table.js';
+import { ldexp } from './ldexp.js';
 
 const LN2_HI = 6.93147180369123816490e-1;
 const LN2_LO = 1.90821492927058770002e-10;
@@ -28,12 +28,14 @@ const SLOT = /* @__PURE__ */ new Float64Array(1);
  * from a table: both are y·2^k rounded once to a double (exact when the
  * result is normal; ldexp builds a subnormal result with one
  * multiplication by 2^−52 as well), so the bits agree; the few x with k
- * outside that range (results near the overflow and underflow ends) go to
- * the package itself. Why: the package's ldexp, a word-level routine, was
+ * outside that range (results near the overflow and underflow ends) take
+ * the vendored ldexp, the package's own algorithm (./ldexp.ts). Why: the package's ldexp, a word-level routine, was
  * more than half the cost of every exp in the sampling kernels and in a
  * Gibbs step's setup. Checked bit for bit against the package in
  * test/vendor/exp.test.ts. The rare path returns through a Float64Array
- * slot, so that the engine need not box every result.
+ * slot, so that the engine need not box every result. The build gives this
+ * function to the bundled @stdlib functions that import the package
+ * (scripts/esbuild-stdlib.mjs), so a bundle holds one exp.
  * @internal
  */
 export function exp(x: number): number {
@@ -51,6 +53,8 @@ export function exp(x: number): number {
   const c = r - t * polyvalP(t);
   const y = 1.0 - (lo - (r * c) / (2.0 - c) - hi);
   if (k >= -1022 && k <= 1023) return y * POW2[k + 1022];
-  SLOT[0] = impl(x);
+  SLOT[0] = ldexp(y, k);
   return SLOT[0];
 }
+
+export default exp;

@@ -4,7 +4,6 @@
  * word-level constructions of powers of two read from a table.
  * @internal @packageDocumentation
  */
-import impl from '@stdlib/math-base-special-expm1';
 import polyvalQ from '@stdlib/math-base-special-expm1/lib/polyval_q.js';
 import { POW2 } from './pow2-table.js';
 
@@ -17,9 +16,6 @@ const LN2_HALFX3 = 1.03972077083991796413e0;
 const HALF_LN2 = 0.34657359027997264;
 const TWO_M54 = 5.551115123125783e-17; // 2^-54
 
-/** Scratch slot of the rare path (see {@link expm1}). */
-const SLOT = /* @__PURE__ */ new Float64Array(1);
-
 /**
  * e^x − 1, accurate near 0, the same bits on every engine: bit for bit
  * `@stdlib/math-base-special-expm1`.
@@ -29,10 +25,12 @@ const SLOT = /* @__PURE__ */ new Float64Array(1);
  * double from words — 2^k, 1 − 2^−k, 2^−k (each exact, all with a zero low
  * word) and the test |x| < 2^−54 on the high word — this function takes
  * the same exact values from a table of powers of two, or compares with
- * 2^−54. The one case that adds k = 1024 to an exponent field goes to the
- * package itself. Checked bit for bit against the package in
+ * 2^−54; where it adds k = 1024 to an exponent field, it multiplies by
+ * 2 and 2^1023 (exact there). Checked bit for bit against the package in
  * test/vendor/exp.test.ts. Why: the package's word helpers were most of the
- * cost of the e^x − 1 every hull piece's area needs.
+ * cost of the e^x − 1 every hull piece's area needs. The build gives this
+ * function to the bundled @stdlib functions that import the package
+ * (scripts/esbuild-stdlib.mjs).
  * @internal
  */
 export function expm1(x0: number): number {
@@ -85,12 +83,12 @@ export function expm1(x0: number): number {
     return 1.0 + 2.0 * (x - e);
   }
   if (k <= -2 || k > 56) {
-    if (k === 1024) {
-      SLOT[0] = impl(x0);
-      return SLOT[0];
-    }
+    const y = 1.0 - (e - x);
+    // the package adds 1024 to y's exponent field; y ≤ 1 here (x < 1024·ln 2), so y·2·2^1023 is
+    // that value exactly (Infinity when y = 1, as the field's overflow gives)
+    if (k === 1024) return y * 2 * POW2[2045] - 1.0;
     // k ≥ −56 here (x ≤ −56·ln 2 returned −1 above)
-    return (1.0 - (e - x)) * POW2[k + 1022] - 1.0;
+    return y * POW2[k + 1022] - 1.0;
   }
   let y: number;
   if (k < 20) {
@@ -103,3 +101,5 @@ export function expm1(x0: number): number {
   }
   return y * POW2[k + 1022];
 }
+
+export default expm1;
