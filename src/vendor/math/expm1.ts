@@ -16,6 +16,9 @@ const LN2_HALFX3 = 1.03972077083991796413e0;
 const HALF_LN2 = 0.34657359027997264;
 const TWO_M54 = 5.551115123125783e-17; // 2^-54
 
+/** Scratch slot of the full algorithm's results (see {@link expm1}). */
+const SLOT = /* @__PURE__ */ new Float64Array(1);
+
 /**
  * e^x − 1, accurate near 0, the same bits on every engine: bit for bit
  * `@stdlib/math-base-special-expm1`.
@@ -33,7 +36,46 @@ const TWO_M54 = 5.551115123125783e-17; // 2^-54
  * (scripts/esbuild-stdlib.mjs).
  * @internal
  */
-export function expm1(x0: number): number {
+export function expm1(x: number): number {
+  // the common arguments of the hull's areas: −56·ln 2 < x ≤ 0.5·ln 2, away from 0 (k ≤ 0 below)
+  if (x > -LN2x56 && x <= HALF_LN2 && (x >= TWO_M54 || x <= -TWO_M54)) {
+    let k = 0;
+    let c = 0;
+    let r = x;
+    if (x < -HALF_LN2) {
+      let hi: number;
+      let lo: number;
+      if (x > -LN2_HALFX3) {
+        hi = x + LN2_HI;
+        lo = -LN2_LO;
+        k = -1;
+      } else {
+        k = (LN2_INV * x - 0.5) | 0;
+        hi = x - k * LN2_HI;
+        lo = k * LN2_LO;
+      }
+      r = hi - lo;
+      c = hi - r - lo;
+    }
+    const halfX = 0.5 * r;
+    const z = r * halfX;
+    const r1 = 1.0 + z * polyvalQ(z);
+    const t = 3.0 - r1 * halfX;
+    let e = z * ((r1 - t) / (6.0 - r * t));
+    if (k === 0) return r - (r * e - z);
+    e = r * (e - c) - c;
+    e -= z;
+    if (k === -1) return 0.5 * (r - e) - 0.5;
+    return (1.0 - (e - r)) * POW2[k + 1022] - 1.0;
+  }
+  // every other argument (special values, tiny |x|, x > 0.5·ln 2, x ≤ −56·ln 2) through a float64
+  // slot: returned directly, the call's (boxed) result would make the engine box every result
+  SLOT[0] = expm1Full(x);
+  return SLOT[0];
+}
+
+/** The whole algorithm, every branch (see {@link expm1}). */
+function expm1Full(x0: number): number {
   let x = x0;
   if (x === Infinity || x !== x) return x;
   if (x === -Infinity) return -1;
