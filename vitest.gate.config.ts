@@ -1,8 +1,8 @@
 import { defineConfig } from 'vitest/config';
 
 // The bench gate's stability test alone: timing-sensitive, so no other test file runs beside it.
-// Opt-in (`npm run test:gate`): the gate's stability and sensitivity goals are not met on the
-// development machine (see the file's header).
+// Opt-in (`npm run test:gate`): the gate's stability and sensitivity need a quiet machine (measured
+// figures in the file's header).
 export default defineConfig({
   test: {
     include: ['test/cli/bench-gate.test.ts'],

@@ -30,7 +30,30 @@ const CASES = {
   'rejectionSampler normal, Cauchy proposal': (ed) => ed.rejectionSampler(ed.normalTarget(0, 1), { proposal: ed.cauchyProposal(0, 1), seed: 1 }),
   'discreteSampler Poisson(30)': (ed) => ed.discreteSampler(ed.poissonTarget(30), { seed: 1 }),
   'weightedIndexSampler 5 weights': (ed) => ed.weightedIndexSampler(new Float64Array([1, 2, 3, 4, 5]), { seed: 1 }),
+  // a Gibbs step per "draw": the bench/gibbs.mjs workload (a gamma-shaped conditional whose shape and
+  // rate change every step), one conditionalSampler, one target object whose closures read the state
+  'conditionalSampler step, tangents (per step)': (ed) => gibbsSteps(ed, true),
+  'conditionalSampler step, secants (per step)': (ed) => gibbsSteps(ed, false),
 };
+
+function gibbsSteps(ed, tangents) {
+  let a = 2.5;
+  let b = 1.3;
+  const conditional = tangents
+    ? { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - b * t, dLogDensity: (t) => (a - 1) / t - b }
+    : { support: [0, Infinity], logDensity: (t) => (a - 1) * Math.log(t) - b * t };
+  const s = ed.conditionalSampler({ seed: 1 });
+  return {
+    fill(out) {
+      for (let i = 0; i < out.length; i++) {
+        a = 1.5 + (i % 11) * 0.4;
+        b = 0.5 + (i % 7) * 0.25;
+        out[i] = s.draw(conditional);
+      }
+      return out;
+    },
+  };
+}
 
 const child = opt('--case', undefined);
 if (child !== undefined) {
