@@ -23,7 +23,7 @@ function countCheck(line: string): void {
  *
  * Suite-wide false-positive rate: a full run makes about 440 acceptance
  * checks at ALPHA (217 calls of expectFits, two tests each, counted with
- * EXACTDRAW_COUNT_CHECKS in the `npm test` run of 2026-12-03, plus 6 direct
+ * EXACTDRAW_COUNT_CHECKS in the `npm test` runs of 2026-12-03 and -04, plus 6 direct
  * p-value checks) and 31 binomial rate checks at z = 4.4 (two-sided 1.1e-5
  * each; counted on 2026-12-02), so a correct implementation fails with
  * probability at most about 440·1e-4 + 31·1.1e-5 ≈ 4.4 % (union bound) for a
