@@ -12,12 +12,28 @@ import { T_LOG, logHeight } from '../envelope/transforms.js';
 import { SETUP_MAX_RELATIVE_HEIGHT } from './hull.js';
 import type { Hull } from './hull.js';
 
+/**
+ * How far (log units) an interior piece of a valid hull may rise above the
+ * highest touch point before setup probes its peak anyway: e^4 ≈ 55 times
+ * the largest density seen. A hull built from well-placed start points
+ * never comes near it (tangents at the mode ± one scale of a normal rise 1
+ * unit above their touch points); one built from a single start point far
+ * from the mode can (a normal started at 7 got touch points −4, 4, 6, 7 and
+ * a peak 16 units high at 0: acceptance 0.0017, and with a small
+ * `maxPieces` the kernel never adds the points that would fix it). @internal
+ */
+export const SETUP_QUALITY_LOG_HEIGHT = 4;
+
+/** At most this many setup probes are spent on {@link SETUP_QUALITY_LOG_HEIGHT} per target. @internal */
+export const SETUP_QUALITY_PROBES = 8;
+
 /** Next setup probes for a hull (keeps the outward step lengths). @internal */
 export class SetupProbes {
   private leftStep = 0;
   private rightStep = 0;
   private leftGrowth = 2;
   private rightGrowth = 2;
+  private qualityProbes = 0;
 
   /**
    * @param hull - the hull being set up
@@ -35,6 +51,7 @@ export class SetupProbes {
     this.rightStep = 0;
     this.leftGrowth = 2;
     this.rightGrowth = 2;
+    this.qualityProbes = 0;
     return this;
   }
 
@@ -84,15 +101,32 @@ export class SetupProbes {
     }
     if (worst === 0) return this.towardBound(-1);
     if (worst === last) return this.towardBound(1);
-    if (worst > 0) {
-      // probe where the line peaks: the end of the piece that is not a touch point
-      const i = (worst - 1) >> 1;
-      const z = (worst & 1) === 1 ? h.hi[worst] : h.lo[worst];
-      const a = tx[i];
-      const b = tx[i + 1];
-      return z > a && z < b ? z : a + 0.5 * (b - a);
+    if (worst > 0) return this.peakOf(worst);
+    // valid: an interior piece far above every touch point still gets its peak probed, a few times
+    if (this.qualityProbes >= SETUP_QUALITY_PROBES) return NaN;
+    let high = -1;
+    let highH = topTouch - h.ref + SETUP_QUALITY_LOG_HEIGHT;
+    for (let j = 1; j < last; j++) {
+      if (!(h.width[j] > 0)) continue;
+      const height = logHeight(h.kind, h.highValue[j]);
+      if (height > highH) {
+        high = j;
+        highH = height;
+      }
     }
-    return NaN;
+    if (high < 0) return NaN;
+    this.qualityProbes++;
+    return this.peakOf(high);
+  }
+
+  /** Where the line of interior piece j peaks: the end of the piece that is not a touch point (or the middle of its interval). */
+  private peakOf(j: number): number {
+    const h = this.hull;
+    const i = (j - 1) >> 1;
+    const z = (j & 1) === 1 ? h.hi[j] : h.lo[j];
+    const a = h.touchX[i];
+    const b = h.touchX[i + 1];
+    return z > a && z < b ? z : a + 0.5 * (b - a);
   }
 
   /** A point outside the touch points on side `side`, further out at each call. */

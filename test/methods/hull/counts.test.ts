@@ -49,4 +49,18 @@ describe('adaptiveRejectionSampler evaluation counts', () => {
     // regression guard: 3.57 evaluations per fresh draw were observed (printed above); 6 is a margin
     expect(tangent.evals).toBeLessThanOrEqual(6);
   });
+
+  it('one start point far from the mode and a small maxPieces: setup probes the peak of a piece far above every touch point (acceptance 0.0017 before)', () => {
+    // normal(0, 1) from startPoints [7] with maxPieces 6: setup needs touch points -4, 4, 6, 7 for a
+    // valid hull, whose pieces meet at 0 sixteen log units above the highest touch point; with the cap
+    // reached the kernel adds no point, so the acceptance stayed at 0.0017 (590 candidates per draw)
+    const s = adaptiveRejectionSampler(normalTarget(0, 1), { startPoints: [7], maxPieces: 6, seed: 1 });
+    s.fill(new Float64Array(10_000));
+    const st = s.stats;
+    const touch = s.envelope.touchPoints;
+    console.log(`normal(0,1) from startPoints [7], maxPieces 6: touch points ${touch.join(', ')}; acceptance ${st.acceptanceRate.toFixed(4)}; setup ${st.setupEvaluations}`);
+    expect(touch.some((x) => x > -4 && x < 4)).toBe(true);
+    // regression guard: 0.556 observed (seed 1, printed above), 0.0017 before the quality probe
+    expect(st.acceptanceRate).toBeGreaterThan(0.3);
+  });
 });
