@@ -370,14 +370,14 @@ export class Hull implements HullView {
       area = Infinity;
     } else if (this.kind === T_LOG && w > 0 && th > -Infinity && th < 700 && s * w >= FLAT_LIMIT) {
       // the common case: expm1 computed once for both; with `quickAreas` e^tH·q/sig (two transcendental
-      // calls instead of four), else pieceLogArea's arithmetic (the same bits as the description's log area)
-      if (w === Infinity) {
-        q = 1;
-        area = this.quickAreas ? exp(th) / s : exp(th - log(s));
-      } else {
-        q = -expm1(-s * w);
-        area = this.quickAreas ? (exp(th) * q) / s : exp(th + log(q) - log(s));
-      }
+      // calls instead of four), else pieceLogArea's arithmetic (the same bits as the description's log
+      // area). One call site of exp for all four forms, so that the engine inlines it (with one site
+      // per form it inlined the first and called the others, boxing argument and result)
+      const quick = this.quickAreas;
+      const tail = w === Infinity;
+      q = tail ? 1 : -expm1(-s * w);
+      const e = exp(quick ? th : tail ? th - log(s) : th + log(q) - log(s));
+      area = !quick ? e : tail ? e / s : (e * q) / s;
     } else {
       q = pieceConstant(this.kind, th, s, w);
       area = exp(pieceLogArea(this.kind, th, s, w));
