@@ -10,15 +10,19 @@ const size = Number(process.argv[2] ?? 1e6);
 const rounds = Number(process.argv[3] ?? 5);
 const next = mersenneTwister(101);
 const out = new Float64Array(size);
-const fill = () => {
-  for (let i = 0; i < out.length; i++) out[i] = next();
+// the output array is a parameter, as in the harness's cases (`fill(out)`) and in a user's fill
+// function: a loop over an array the closure captures as a constant let V8 fold its length and bounds
+// checks, and ran about 9 % faster here (7.8 vs 8.5 ns per uniform, 2026-12-04), which made the
+// self-check fail on a difference of loop forms rather than of harnesses
+const fill = (o) => {
+  for (let i = 0; i < o.length; i++) o[i] = next();
 };
-fill();
-fill();
+fill(out);
+fill(out);
 const t = [];
 for (let r = 0; r < rounds; r++) {
   const a = performance.now();
-  fill();
+  fill(out);
   const b = performance.now();
   let sum = 0;
   for (let i = 0; i < out.length; i += 97) sum += out[i];
