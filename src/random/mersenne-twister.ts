@@ -75,6 +75,14 @@ export function rawStateOf(u: MersenneTwister): Uint32Array | undefined {
   return f === undefined ? undefined : f();
 }
 
+/** MT19937's tempering of one state word (as an int32; `>>> 0` makes it the 32-bit output). @internal */
+export function temper(y: number): number {
+  y ^= y >>> 11;
+  y ^= (y << 7) & 0x9d2c5680;
+  y ^= (y << 15) & 0xefc60000;
+  return y ^ (y >>> 18);
+}
+
 /**
  * The MT19937 state transition (Matsumoto & Nishimura 1998), in place on the
  * 624 words, viewed as an Int32Array (the same bits as the unsigned words:
@@ -169,12 +177,7 @@ export function generatorFromState(state: Uint32Array): MersenneTwister {
       twist(words);
       i = 0;
     }
-    let r = mt[i++];
-    r ^= r >>> 11;
-    r ^= (r << 7) & 0x9d2c5680;
-    r ^= (r << 15) & 0xefc60000;
-    r ^= r >>> 18;
-    return r >>> 0;
+    return temper(words[i++]) >>> 0;
   };
   // ((a >> 5)·2^26 + (b >> 6))/2^53 for two consecutive outputs a, b (as @stdlib's normalized()).
   const u = ((): number => (((uint32() >>> 5) * TWO_26 + (uint32() >>> 6)) * TWO_M53)) as MersenneTwister;

@@ -28,7 +28,7 @@
  */
 import type { Uniform } from '../core/types.js';
 import type { MersenneTwister } from './mersenne-twister.js';
-import { rawStateOf, twist } from './mersenne-twister.js';
+import { rawStateOf, temper, twist } from './mersenne-twister.js';
 
 const N = 624;
 /** Offsets in the `@stdlib/random-base-mt19937` state array: | version | sections | 624 | ...state | 1 | index | ... */
@@ -110,46 +110,25 @@ function fillBlock(mt: Int32Array, buf: Float64Array, mti: number): number {
   const n = buf.length;
   let k = 0;
   while (k < n) {
-    if (i >= 623) {
-      // a pair that starts at the last word or past the end of the state: one value, twisting where needed
-      if (i >= 624) {
-        twist(mt);
-        i = 0;
-      }
-      let a = mt[i++];
-      a ^= a >>> 11;
-      a ^= (a << 7) & 0x9d2c5680;
-      a ^= (a << 15) & 0xefc60000;
-      a ^= a >>> 18;
-      if (i >= 624) {
-        twist(mt);
-        i = 0;
-      }
-      let b = mt[i++];
-      b ^= b >>> 11;
-      b ^= (b << 7) & 0x9d2c5680;
-      b ^= (b << 15) & 0xefc60000;
-      b ^= b >>> 18;
-      buf[k++] = ((a >>> 5) * 67108864 + (b >>> 6)) * 1.1102230246251565e-16; // (a ≫ 5)·2^26 + (b ≫ 6), times 2^-53
+    if (i >= 624) {
+      twist(mt);
+      i = 0;
+    }
+    if (i === 623) {
+      // a pair across a twist: the last word of this state, the first of the next
+      const a = temper(mt[623]);
+      twist(mt);
+      i = 1;
+      buf[k++] = ((a >>> 5) * 67108864 + (temper(mt[0]) >>> 6)) * 1.1102230246251565e-16;
       continue;
     }
-    // the pairs left in the state, without the end-of-state tests (same words, same order: the same
-    // values as one value at a time; about 5 % faster per uniform, measured 2026-12-04)
+    // the pairs left in the state, without end-of-state tests (the same words in the same order as one
+    // value at a time; about 5 % faster per uniform, measured 2026-12-04)
     const pairs = (624 - i) >> 1;
     const end = k + pairs < n ? k + pairs : n;
-    for (; k < end; k++) {
-      let a = mt[i];
-      let b = mt[i + 1];
-      i += 2;
-      a ^= a >>> 11;
-      a ^= (a << 7) & 0x9d2c5680;
-      a ^= (a << 15) & 0xefc60000;
-      a ^= a >>> 18;
-      b ^= b >>> 11;
-      b ^= (b << 7) & 0x9d2c5680;
-      b ^= (b << 15) & 0xefc60000;
-      b ^= b >>> 18;
-      buf[k] = ((a >>> 5) * 67108864 + (b >>> 6)) * 1.1102230246251565e-16;
+    for (; k < end; k++, i += 2) {
+      // (a ≫ 5)·2^26 + (b ≫ 6), times 2^-53
+      buf[k] = ((temper(mt[i]) >>> 5) * 67108864 + (temper(mt[i + 1]) >>> 6)) * 1.1102230246251565e-16;
     }
   }
   return i;
