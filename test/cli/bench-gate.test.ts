@@ -7,8 +7,9 @@
  * - Stability: 20 gated runs of unchanged code against one baseline must all pass.
  * Measured with the gate on ratios to the raw uniform row, each case in 6 processes
  * (src/cli/bench.ts REPLICAS) and the noise taken from the per-round ratios (src/cli/gate.ts):
- * 2026-12-04 on a quiet machine (nothing else running, load average below 1.8), run alone:
- * sensitivity passed, stability 20/20 passed; but every one of the 20 runs reported a row as
+ * 2026-12-04 on a quiet machine (nothing else running, load average below 1.8), run alone, twice
+ * (the second on the session's final build): sensitivity passed, stability 20/20 passed, both
+ * times; but every one of the 20 runs reported a row as
  * "TOO NOISY": 3 standard errors of this run and the baseline were 25-42 % on this 2-core virtual
  * machine, above the 20 % tolerance, so the gate flags only changes beyond the noise there (and says
  * so), and a slowdown well below 1.5x can pass unflagged. Earlier (2026-12-03, before the replicas):
