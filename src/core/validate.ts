@@ -63,7 +63,6 @@ export class CheckedTargetCache {
     const out = this.out;
     validateTarget(api, target, out);
     if (target !== this.owner || target.logDensity !== this.rawLogDensity || target.dLogDensity !== this.rawDLogDensity) {
-      this.owner = undefined;
       out.logDensity = target.logDensity.bind(target);
       out.dLogDensity = target.dLogDensity !== undefined ? target.dLogDensity.bind(target) : undefined;
       this.owner = target;

@@ -16,7 +16,7 @@ import { resolveUniform } from '../../random/resolve.js';
 import { Hull, nonFiniteDerivative } from './hull.js';
 import { checkBeyondZero } from '../envelope/gaps.js';
 import { SetupProbes } from './setup-probes.js';
-import { automaticStartPoints } from './start.js';
+import { automaticStartPoints, probeSlope } from './start.js';
 import type { Probe, StartResult, StartSearch } from './start.js';
 import { T_INV_SQRT, T_LOG } from '../envelope/transforms.js';
 
@@ -228,7 +228,7 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
   } else {
     probes = start.map((x) => {
       const l = evaluate(x);
-      return { x, l, g: tangent && l > -Infinity ? ev.derivative(x) : NaN };
+      return { x, l, g: probeSlope(ev, x, l) };
     });
     scale = start.length > 1 ? start[start.length - 1] - start[0] : Math.max(1, Math.abs(start[0]) * 1e-8);
   }
@@ -249,7 +249,8 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
   const cap = Math.max(Math.floor(maxPieces / 2), nUsable) + 4;
   // the checked target is the hull's target (its logDensity and dLogDensity are what the kernel calls)
   const hull = reuse === undefined ? new Hull(api, kind, tangent, t, t.lower, t.upper, ref, cap) : reuse.hull.reset(t, tangent, t.lower, t.upper, ref, cap, reuse.start !== undefined);
-  const next = reuse === undefined ? new SetupProbes(hull, scale > 0 && scale < Infinity ? scale : 1) : reuse.probes.reset(scale > 0 && scale < Infinity ? scale : 1);
+  const step = scale > 0 && scale < Infinity ? scale : 1;
+  const next = reuse === undefined ? new SetupProbes(hull, step) : reuse.probes.reset(step);
   // the start points first without pieces, then every piece once (the same hull as inserting them one by one)
   for (let i = 0; i < probes.length; i++) {
     const p = probes[i];
@@ -275,7 +276,7 @@ export function buildHull(api: string, o: ResolvedHullOptions, reuse?: HullReuse
       );
     }
     const l = evaluate(x);
-    const g = tangent && l > -Infinity ? ev.derivative(x) : NaN;
+    const g = probeSlope(ev, x, l);
     if (tangent && l > -Infinity && !Number.isFinite(g)) {
       if (++stuck > 20) break;
       continue;

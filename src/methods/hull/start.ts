@@ -27,6 +27,15 @@ export interface StartSearch {
   readonly derivative: (x: number) => number;
 }
 
+/**
+ * The derivative a probe at x with log-density l carries: evaluated (counted,
+ * checked) when the search uses derivatives and l is finite, else NaN.
+ * @internal
+ */
+export function probeSlope(s: StartSearch, x: number, l: number): number {
+  return s.useDerivative && l > -Infinity ? s.derivative(x) : NaN;
+}
+
 /** Result of {@link automaticStartPoints}. @internal */
 export interface StartResult {
   /** Every point evaluated, in order. */
@@ -81,8 +90,7 @@ export function automaticStartPoints(s: StartSearch, lower: number, upper: numbe
   let hi = upper;
   const probe = (x: number): Probe => {
     const l = s.evaluate(x);
-    const g = useD && l > -Infinity ? s.derivative(x) : NaN;
-    const p = { x, l, g };
+    const p = { x, l, g: probeSlope(s, x, l) };
     probes.push(p);
     return p;
   };

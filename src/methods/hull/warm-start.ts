@@ -6,6 +6,7 @@
  * @packageDocumentation
  */
 import type { Hull } from './hull.js';
+import { probeSlope } from './start.js';
 import type { Probe, StartResult, StartSearch } from './start.js';
 
 /** Where the previous target's mass was: a centre (its mode estimate) and a length scale. @internal */
@@ -105,7 +106,7 @@ export class ProbePool {
   /** Evaluates the log-density (and the derivative when the search uses it and the value is finite) at x and keeps the probe. */
   probe(s: StartSearch, x: number): void {
     const l = s.evaluate(x);
-    const g = s.useDerivative && l > -Infinity ? s.derivative(x) : NaN;
+    const g = probeSlope(s, x, l);
     const n = this.count++;
     let p = this.store[n];
     if (p === undefined) {

@@ -29,9 +29,9 @@ const SLOT = /* @__PURE__ */ new Float64Array(1);
  * result is normal; ldexp builds a subnormal result with one
  * multiplication by 2^−52 as well), so the bits agree; the few x with k
  * outside that range (results near the overflow and underflow ends) take
- * the vendored ldexp, the package's own algorithm (./ldexp.ts). Why: the package's ldexp, a word-level routine, was
- * more than half the cost of every exp in the sampling kernels and in a
- * Gibbs step's setup. Checked bit for bit against the package in
+ * the vendored ldexp, the package's own algorithm (./ldexp.ts). Why: the
+ * package's ldexp, a word-level routine, was more than half the cost of
+ * every exp in the sampling kernels and in a Gibbs step's setup. Checked bit for bit against the package in
  * test/vendor/exp.test.ts. The rare path returns through a Float64Array
  * slot, so that the engine need not box every result. The build gives this
  * function to the bundled @stdlib functions that import the package

@@ -70,66 +70,51 @@ export function expm1(x: number): number {
   }
   // every other argument (special values, tiny |x|, x > 0.5·ln 2, x ≤ −56·ln 2) through a float64
   // slot: returned directly, the call's (boxed) result would make the engine box every result
-  SLOT[0] = expm1Full(x);
+  SLOT[0] = expm1Rest(x);
   return SLOT[0];
 }
 
-/** The whole algorithm, every branch (see {@link expm1}). */
-function expm1Full(x0: number): number {
-  let x = x0;
-  if (x === Infinity || x !== x) return x;
-  if (x === -Infinity) return -1;
-  if (x === 0) return x;
-  const sign = x < 0;
-  const y0 = sign ? -x : x;
-  if (y0 >= LN2x56) {
-    if (sign) return -1;
-    if (y0 >= OVERFLOW_THRESHOLD) return Infinity;
+/**
+ * The package's other branches, for the arguments {@link expm1} does not
+ * take itself: NaN, ±Infinity, ±0 and |x| < 2^−54 (returned as they are),
+ * x ≤ −56·ln 2 (−1), and x > 0.5·ln 2 (k ≥ 1, up to the overflow).
+ */
+function expm1Rest(x0: number): number {
+  if (x0 === Infinity || x0 !== x0) return x0;
+  if (x0 <= -LN2x56) return -1;
+  // what is left below 0.5·ln 2 is ±0 and |x| < 2^-54, where e^x − 1 rounds to x
+  if (!(x0 > HALF_LN2)) return x0;
+  if (x0 >= OVERFLOW_THRESHOLD) return Infinity;
+  let k: number;
+  let hi: number;
+  let lo: number;
+  if (x0 < LN2_HALFX3) {
+    hi = x0 - LN2_HI;
+    lo = LN2_LO;
+    k = 1;
+  } else {
+    k = (LN2_INV * x0 + 0.5) | 0;
+    hi = x0 - k * LN2_HI;
+    lo = k * LN2_LO;
   }
-  let k = 0;
-  let c = 0;
-  if (y0 > HALF_LN2) {
-    let hi: number;
-    let lo: number;
-    if (y0 < LN2_HALFX3) {
-      if (sign) {
-        hi = x + LN2_HI;
-        lo = -LN2_LO;
-        k = -1;
-      } else {
-        hi = x - LN2_HI;
-        lo = LN2_LO;
-        k = 1;
-      }
-    } else {
-      k = (sign ? LN2_INV * x - 0.5 : LN2_INV * x + 0.5) | 0;
-      hi = x - k * LN2_HI;
-      lo = k * LN2_LO;
-    }
-    x = hi - lo;
-    c = hi - x - lo;
-  } else if (y0 < TWO_M54) {
-    return x;
-  }
+  const x = hi - lo;
+  const c = hi - x - lo;
   const halfX = 0.5 * x;
   const z = x * halfX;
   const r1 = 1.0 + z * polyvalQ(z);
   let t = 3.0 - r1 * halfX;
   let e = z * ((r1 - t) / (6.0 - x * t));
-  if (k === 0) return x - (x * e - z);
   e = x * (e - c) - c;
   e -= z;
-  if (k === -1) return 0.5 * (x - e) - 0.5;
   if (k === 1) {
     if (x < -0.25) return -2.0 * (e - (x + 0.5));
     return 1.0 + 2.0 * (x - e);
   }
-  if (k <= -2 || k > 56) {
+  if (k > 56) {
     const y = 1.0 - (e - x);
     // the package adds 1024 to y's exponent field; y ≤ 1 here (x < 1024·ln 2), so y·2·2^1023 is
     // that value exactly (Infinity when y = 1, as the field's overflow gives)
     if (k === 1024) return y * 2 * POW2[2045] - 1.0;
-    // k ≥ −56 here (x ≤ −56·ln 2 returned −1 above)
     return y * POW2[k + 1022] - 1.0;
   }
   let y: number;
