@@ -141,8 +141,11 @@ const KNOWN = ['startPoints', 'maxPieces', 'derivativeFree', 'transform', 'maxRe
  * hint; points are added until the envelope is integrable (tails that never
  * decay throw {@link ImproperDensityError}).
  *
- * Stream: each candidate consumes three uniforms (piece, position in the
- * piece, acceptance). Counts: `stats.setupEvaluations` counts `logDensity`
+ * Stream: each candidate consumes two or three uniforms: one selects the
+ * piece; the position in the piece is the rest of that uniform when the
+ * piece holds at least 2^-12 of the envelope's area (at least 41 of its 53
+ * bits remain) and a fresh uniform otherwise; the last is the acceptance
+ * variable. Counts: `stats.setupEvaluations` counts `logDensity`
  * calls of the setup, `stats.densityEvaluations` those while sampling;
  * `dLogDensity` calls are reported in `envelope.derivativeEvaluations`.
  * After a {@link ShapeViolationError}, {@link EnvelopeViolationError} or

@@ -105,7 +105,7 @@ const KNOWN = ['warmStart', 'maxPieces', 'derivativeFree', 'transform', 'maxReje
  * and rate change at every step) this takes 3–4 evaluations per one-draw
  * step instead of 9 (figures: CHANGELOG.md).
  *
- * **Stream.** Each candidate consumes three uniforms, as in
+ * **Stream.** Each candidate consumes two or three uniforms, as in
  * {@link adaptiveRejectionSampler}; the stream continues from target to
  * target. With `warmStart: false` the sampler gives, for every target, the
  * draws that a fresh `adaptiveRejectionSampler(target, { uniform })` would

@@ -17,15 +17,25 @@ import type { Hull } from './hull.js';
 import { explainViolation } from './shape-checks.js';
 import { exp, log } from '../../vendor/math.js';
 
+/** Share of the envelope's mass from which a piece's position reuses the rest of the piece-selecting uniform (2^-12). */
+export const SHARE_FLOOR = 0.000244140625;
+/** The largest double below 1. */
+const BELOW_ONE = 0.9999999999999999;
+
 /**
  * Fills `out[0..n)` with draws from the target under the hull `h`.
  *
  * @remarks
- * Per proposal the kernel consumes exactly three uniforms, read through
+ * Per proposal the kernel consumes two or three uniforms, read through
  * `blk` (blocks of an owned MT19937, or one value at a time from an injected
  * source: the same values in the same order either way): u1 selects a
- * piece through the guide table, u2 inverts the piece's envelope cdf, u3 is
- * the acceptance variable. The candidate is accepted without evaluating the
+ * piece j through the guide table; the position inverts the piece's
+ * envelope cdf at the rest of u1 within the piece, (u1·total − cum[j−1]) /
+ * area[j], which given j is uniform on [0, 1), when the piece holds at least
+ * {@link SHARE_FLOOR} = 2^-12 of the envelope's area (so that at least 41 of
+ * u1's 53 bits remain for it), and at a fresh uniform u2 otherwise (the
+ * tails, and the pieces of a large hull); the last uniform, u3, is the
+ * acceptance variable. The candidate is accepted without evaluating the
  * target when u3 < squeeze/envelope (strict, so that u3 = 0 under a zero
  * squeeze still evaluates). Otherwise logDensity is evaluated (and counted),
  * checked for NaN/+Infinity, against the envelope and against the squeeze
@@ -65,6 +75,8 @@ export function hullFill(
   const cum = gt.cum;
   const guide = gt.guide;
   const kind = h.kind;
+  const area = h.area;
+  const share = SHARE_FLOOR;
   const isLog = kind === T_LOG;
   const logf = h.target.logDensity;
   const ref = h.ref;
@@ -83,7 +95,17 @@ export function hullFill(
         let j = guide[(u1 * gt.size) | 0];
         const v = u1 * gt.total;
         while (cum[j] <= v) j++;
-        const u2 = nextUniform(blk);
+        // the position in the piece: the rest of u1 (uniform given j) where the piece holds at least
+        // SHARE_FLOOR of the envelope's mass, so that at least 41 of its 53 bits remain; else a fresh uniform
+        const aj = area[j];
+        let u2: number;
+        if (aj >= gt.total * share) {
+          u2 = (v - (j === 0 ? 0 : cum[j - 1])) / aj;
+          if (!(u2 >= 0)) u2 = 0;
+          else if (u2 >= 1) u2 = BELOW_ONE;
+        } else {
+          u2 = nextUniform(blk);
+        }
         const d = invertPiece(kind, pq[j], sig[j], wd[j], u2);
         let x = hx[j] + dir[j] * d;
         if (x < lo[j]) x = lo[j];

@@ -178,13 +178,13 @@ describe('conditionalSampler: same draws as fresh samplers where promised', () =
   });
 
   it('conditionalSampler (warm start), seed 1, gamma(2 + 0.5 i, 1 + 0.25 i) for i = 0..5: golden draws', () => {
-    // Stream-stability snapshot recorded from this implementation on 2026-12-03 (a regression guard, not a
+    // Stream-stability snapshot recorded from this implementation on 2026-12-03, re-recorded 2026-12-04 for the two-uniform candidate (CHANGELOG, Stream changes) (a regression guard, not a
     // correctness reference): a change here changes users' Gibbs streams and must be noted in CHANGELOG.md
     // (DEVELOPERS.md, "Stream-stability policy").
     const s = conditionalSampler({ seed: 1 });
     const out: number[] = [];
     for (let i = 0; i < 6; i++) out.push(s.draw(gammaTarget(2 + 0.5 * i, 1 + 0.25 * i)));
-    expect(out).toEqual([1.6366177890013396, 0.6935514085362124, 1.0636009853355815, 1.4562700416193612, 0.9904503843007375, 3.0623144558922917]);
+    expect(out).toEqual([1.4762579781046616, 0.19829529505836244, 1.1025638433990685, 0.5829323742224852, 1.612203211574125, 1.6525160809328248]);
   });
 });
 

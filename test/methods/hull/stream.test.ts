@@ -8,6 +8,7 @@ import { betaTarget } from '../../../src/targets/beta.js';
 import { gammaTarget } from '../../../src/targets/gamma.js';
 import { normalTarget } from '../../../src/targets/normal.js';
 import { truncate } from '../../../src/targets/truncate.js';
+import { mersenneTwister } from '../../../src/random/mersenne-twister.js';
 import { draw, expectInSupport, expectRate, expectReproducible } from '../../helpers/statistical.js';
 
 describe('adaptiveRejectionSampler streams', () => {
@@ -28,7 +29,8 @@ describe('adaptiveRejectionSampler streams', () => {
   it('adaptiveRejectionSampler(normal(0, 1), seed 1): golden first five draws', () => {
     // Stream-stability snapshot recorded from this implementation (not a
     // correctness reference): a change here changes users' streams and must be
-    // noted in CHANGELOG.md (DEVELOPERS.md, "Stream-stability policy").
+    // noted in CHANGELOG.md (DEVELOPERS.md, "Stream-stability policy"). Re-recorded on
+    // 2026-12-04 for the two-uniform candidate (CHANGELOG.md, Stream changes).
     const xs = draw(adaptiveRejectionSampler(normalTarget(0, 1), { seed: 1 }), 5);
     expect(Array.from(xs)).toEqual(GOLDEN);
   });
@@ -57,6 +59,53 @@ describe('adaptiveRejectionSampler streams', () => {
     expect(Math.abs(m)).toBeLessThan(0.04); // 5.7 standard errors of the mean (1/sqrt(20000))
     // log of the envelope area >= log Z = -700 + log(sqrt(2π)) (normalizing constant of a normal, common practice)
     expect(s.envelope.logEnvelopeArea).toBeGreaterThanOrEqual(-700 + 0.5 * Math.log(2 * Math.PI));
+  });
+});
+
+describe('adaptiveRejectionSampler: uniforms per candidate (stream contract)', () => {
+  // 2^-12: the share of the envelope's area from which a piece's position reuses the piece-selecting uniform
+  const FLOOR = -12 * Math.LN2;
+
+  it('consumes two uniforms per proposal when every piece holds at least 2^-12 of the envelope area', () => {
+    const src = mersenneTwister(11);
+    let calls = 0;
+    const s = adaptiveRejectionSampler(normalTarget(0, 1), { uniform: () => (calls++, src()), startPoints: [-1, 0, 1], maxPieces: 6 });
+    const e = s.envelope;
+    expect(e.touchPoints).toEqual([-1, 0, 1]);
+    for (const p of e.pieces) if (p.upper > p.lower) expect(p.logArea - e.logEnvelopeArea).toBeGreaterThan(FLOOR);
+    const before = calls;
+    s.fill(new Float64Array(2000));
+    expect(s.stats.proposals).toBeGreaterThan(2000);
+    expect(calls - before).toBe(2 * s.stats.proposals);
+  });
+
+  it('the position in a large piece is the rest of u1: u1 = 0.001 gives the left tail at r = u1 · total / area (truncated exponential inverse cdf)', () => {
+    // the tangent at −1 of log φ has slope 1: the left tail is ∝ e^(x + 1) on (−∞, −1], whose inverse cdf
+    // measured from −1 is x = −1 + log(1 − r) (exponential distribution, common practice)
+    const seq = [0.001, 0];
+    let i = 0;
+    const s = adaptiveRejectionSampler(normalTarget(0, 1), { uniform: () => seq[i++ % 2], startPoints: [-1, 0, 1], maxPieces: 6 });
+    const e = s.envelope;
+    expect(e.pieces[0].slope).toBe(1);
+    const r = 0.001 * Math.exp(e.logEnvelopeArea - e.pieces[0].logArea);
+    const x = s.sample();
+    expect(i).toBe(2); // u1 and the acceptance variable u3 = 0 (accepted: the target is positive)
+    expect(x).toBeCloseTo(-1 + Math.log(1 - r), 12);
+  });
+
+  it('a piece below 2^-12 of the area takes a fresh uniform for the position: the right tail beyond 7', () => {
+    // the tangent at 7 has slope −7: the tail ∝ e^(−7(x − 7)), inverse cdf x = 7 − log(1 − u2)/7 (common practice);
+    // its share is about φ(7)/7 / 1 ≈ 1.3e-12 (φ(7) = 9.1e-12, from memory), far below 2^-12
+    const seq = [0.9999999999999999, 0.3, 0];
+    let i = 0;
+    const s = adaptiveRejectionSampler(normalTarget(0, 1), { uniform: () => seq[i++ % 3], startPoints: [-1, 0, 1, 7], maxPieces: 8 });
+    const e = s.envelope;
+    const last = e.pieces[e.pieces.length - 1];
+    expect(last.lower).toBe(7);
+    expect(last.logArea - e.logEnvelopeArea).toBeLessThan(FLOOR);
+    const x = s.sample();
+    expect(i).toBe(3);
+    expect(x).toBeCloseTo(7 - Math.log(0.7) / 7, 12);
   });
 });
 
@@ -110,4 +159,4 @@ describe('adaptiveRejectionSampler envelope description', () => {
 });
 
 /** Snapshot of adaptiveRejectionSampler(normalTarget(0, 1), { seed: 1 }), first five draws (recorded, not a reference). */
-const GOLDEN: number[] = [-0.6075786998209686, -0.0973564292315926, -0.24645828971541972, 0.307859570158462, -0.8933832902046916];
+const GOLDEN: number[] = [-0.6276676677321548, -1.0005877257358409, -2.405026540863183, -0.9878402807043046, -0.19802625804459179];

@@ -175,10 +175,10 @@ describe('stream snapshots of the transformed paths (regression guards, not refe
   it('exactSampler(gamma(0.5)), exactSampler(beta(0.5, 0.5), fast path), the hull and ratio-of-uniforms with poleAt', () => {
     expect(first(exactSampler(gammaTarget(0.5), { seed: 7 }))).toMatchInlineSnapshot(`
       [
-        0.0015298140664681311,
-        1.3316600780836096,
-        0.6322275576328157,
-        0.2982087847372107,
+        0.10672134377665322,
+        0.6694342965225406,
+        0.3377764305696608,
+        0.004258158724463623,
       ]
     `);
     expect(first(exactSampler(betaTarget(0.5, 0.5), { seed: 7, expectedDraws: 1e5 }))).toMatchInlineSnapshot(`
@@ -191,10 +191,10 @@ describe('stream snapshots of the transformed paths (regression guards, not refe
     `);
     expect(first(adaptiveRejectionSampler(betaTarget(0.3, 2), { seed: 7, poleAt: 'lower' }))).toMatchInlineSnapshot(`
       [
-        0.0001016094372309005,
-        0.08837059734413251,
-        0.050589542993566446,
-        0.032915933027427895,
+        0.012579525758722704,
+        0.04663807047984121,
+        0.7516961716795303,
+        0.029740017342009338,
       ]
     `);
     expect(first(ratioOfUniformsSampler(betaTarget(2, 0.3), { seed: 7, poleAt: 'upper' }))).toMatchInlineSnapshot(`
