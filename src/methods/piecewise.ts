@@ -282,8 +282,10 @@ const KNOWN = ['breakpoints', 'scanPoints', 'targetAreaRatio', 'maxPieces', 'der
  * **Sampling.** Pieces are chosen by a guide table (Chen & Asau 1974) over
  * their areas (log-sum-exp); an exponential piece is inverted exactly with
  * expm1/log1p forms (flat pieces, slope·width < 1e-15, as uniform). Each
- * proposal consumes three uniforms (piece, position, acceptance), which is
- * part of the stream contract. A candidate under the squeeze is accepted
+ * proposal consumes two or three uniforms, which is part of the stream
+ * contract: one selects the piece; the position is the rest of that uniform
+ * when the piece holds at least 2^-12 of the envelope's area and a fresh
+ * uniform otherwise; the last is the acceptance variable. A candidate under the squeeze is accepted
  * without evaluation; every evaluation is checked for NaN/+Infinity and
  * against envelope and squeeze (tolerance 1e-9 + 1e-12·|log f| in log
  * space); a violation throws {@link EnvelopeViolationError} with x unless

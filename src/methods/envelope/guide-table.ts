@@ -77,3 +77,25 @@ export class GuideTable {
     return j;
   }
 }
+
+/**
+ * Share of the envelope's area from which a selected piece's position
+ * reuses the rest of the piece-selecting uniform (2^-12): at least 41 of
+ * its 53 bits then remain for the position. @internal
+ */
+export const SHARE_FLOOR = 0.000244140625;
+
+/**
+ * The rest of the piece-selecting uniform within the selected piece j:
+ * with `v = u1·total` and `cum[j−1] ≤ v < cum[j]`, (v − cum[j−1]) / area
+ * is uniform on [0, 1) given j (clamped there against rounding). Returns
+ * −1 when the piece holds less than {@link SHARE_FLOOR} of `total` (the
+ * caller then reads a fresh uniform). Used by the hull and piecewise
+ * kernels; small enough for the engine to inline.
+ * @internal
+ */
+export function restOfUniform(cum: Float64Array, j: number, area: number, v: number, total: number): number {
+  if (!(area >= total * 0.000244140625)) return -1;
+  const u = (v - (j === 0 ? 0 : cum[j - 1])) / area;
+  return u >= 0 ? (u < 1 ? u : 0.9999999999999999) : 0;
+}

@@ -12,15 +12,12 @@ import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece } from '../envelope/transforms.js';
 import { checkBeyondZero } from '../envelope/gaps.js';
 import { expScreen } from '../envelope/exp-screen.js';
+import { restOfUniform } from '../envelope/guide-table.js';
+import type { SHARE_FLOOR } from '../envelope/guide-table.js';
 import { nonFiniteDerivative } from './hull.js';
 import type { Hull } from './hull.js';
 import { explainViolation } from './shape-checks.js';
 import { exp, log } from '../../vendor/math.js';
-
-/** Share of the envelope's mass from which a piece's position reuses the rest of the piece-selecting uniform (2^-12). */
-export const SHARE_FLOOR = 0.000244140625;
-/** The largest double below 1. */
-const BELOW_ONE = 0.9999999999999999;
 
 /**
  * Fills `out[0..n)` with draws from the target under the hull `h`.
@@ -76,7 +73,6 @@ export function hullFill(
   const guide = gt.guide;
   const kind = h.kind;
   const area = h.area;
-  const share = SHARE_FLOOR;
   const isLog = kind === T_LOG;
   const logf = h.target.logDensity;
   const ref = h.ref;
@@ -95,16 +91,18 @@ export function hullFill(
         let j = guide[(u1 * gt.size) | 0];
         const v = u1 * gt.total;
         while (cum[j] <= v) j++;
-        // the position in the piece: the rest of u1 (uniform given j) where the piece holds at least
-        // SHARE_FLOOR of the envelope's mass, so that at least 41 of its 53 bits remain; else a fresh uniform
-        const aj = area[j];
-        let u2: number;
-        if (aj >= gt.total * share) {
-          u2 = (v - (j === 0 ? 0 : cum[j - 1])) / aj;
-          if (!(u2 >= 0)) u2 = 0;
-          else if (u2 >= 1) u2 = BELOW_ONE;
-        } else {
-          u2 = nextUniform(blk);
+        // the position in the piece: the rest of u1, or a fresh uniform in a piece below SHARE_FLOOR
+        let u2 = restOfUniform(cum, j, area[j], v, gt.total);
+        if (u2 < 0) {
+          // nextUniform written out: at a third call site V8 did not inline it, and boxed every u1 (16 bytes
+          // per draw, bench/alloc.mjs)
+          let p = blk.pos;
+          if (p >= blk.len) {
+            blk.refill();
+            p = 0;
+          }
+          blk.pos = p + 1;
+          u2 = blk.buf[p];
         }
         const d = invertPiece(kind, pq[j], sig[j], wd[j], u2);
         let x = hx[j] + dir[j] * d;

@@ -8,7 +8,8 @@ import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.j
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
 import { nextUniform } from '../../random/uniform-block.js';
-import type { GuideTable } from '../envelope/guide-table.js';
+import type { GuideTable, SHARE_FLOOR } from '../envelope/guide-table.js';
+import { restOfUniform } from '../envelope/guide-table.js';
 import type { Tables } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { invertPiece, pieceLogEnvelopeAt } from '../envelope/transforms.js';
@@ -44,9 +45,11 @@ export interface KernelState {
  * dropped; `pending*` describe it).
  *
  * @remarks
- * Per proposal exactly three uniforms: u1 picks a piece through the guide
- * table (Chen & Asau 1974), u2 inverts the piece's envelope cdf, u3 is the
- * acceptance variable. A candidate with u3 < squeeze/envelope is accepted
+ * Per proposal two or three uniforms, as in the hull kernel: u1 picks a
+ * piece through the guide table (Chen & Asau 1974); the position inverts the
+ * piece's envelope cdf at the rest of u1 within the piece when the piece
+ * holds at least {@link SHARE_FLOOR} = 2^-12 of the area, else at a fresh
+ * uniform; the last is the acceptance variable. A candidate with u3 < squeeze/envelope is accepted
  * without evaluating the target; otherwise logDensity is evaluated, checked
  * for NaN/+Infinity and against envelope and squeeze, and the candidate is
  * accepted when u3 < f/envelope. No allocation.
@@ -72,6 +75,7 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
   const guide = gt.guide;
   const size = gt.size;
   const total = gt.total;
+  const area = t.area;
   const ref = t.ref;
   const logf = s.logf;
   const c = s.counters;
@@ -85,7 +89,9 @@ export function piecewiseFill(s: KernelState, out: Float64Array, start: number, 
       let j = guide[(u1 * size) | 0];
       const v = u1 * total;
       while (cum[j] <= v) j++;
-      const u2 = nextUniform(blk);
+      // the position in the piece: the rest of u1, or a fresh uniform in a piece below SHARE_FLOOR
+      let u2 = restOfUniform(cum, j, area[j], v, total);
+      if (u2 < 0) u2 = nextUniform(blk);
       const sg = sig[j];
       const kj = kind[j];
       const d = invertPiece(kj, pq[j], sg, wd[j], u2);
