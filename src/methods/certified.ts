@@ -159,7 +159,9 @@ const KNOWN = ['targetAcceptance', 'maxCells', 'refine', 'maxRejections', 'seed'
  * candidates fell in are split (three `logDensityBounds` and two
  * `dLogDensityBounds` calls each), in batches, and the table rebuilt, until
  * the acceptance bound reaches 0.999 or `maxCells`. Each candidate consumes
- * three uniforms (cell, position, acceptance).
+ * two or three uniforms: the cell; the position, which is the rest of the
+ * cell-selecting uniform when the cell holds at least 2^-12 of the
+ * envelope's area and a fresh uniform otherwise; the acceptance variable.
  *
  * **What is proven.** When the bounds are true, the envelope dominates the
  * density everywhere and the draws are exact. The library cannot verify the

@@ -10,7 +10,8 @@ import { checkLogDensity } from '../../core/evaluate.js';
 import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
 import type { Uniform } from '../../core/types.js';
-import { GuideTable } from '../envelope/guide-table.js';
+import { GuideTable, restOfUniform } from '../envelope/guide-table.js';
+import type { SHARE_FLOOR } from '../envelope/guide-table.js';
 import { logSumExp } from './build.js';
 import type { BoundsOracle, CellStore } from './cells.js';
 import { splitCell, splitPoint } from './cells.js';
@@ -145,8 +146,10 @@ export function minRatio(c: CellStore, j: number): number {
 }
 
 /**
- * Fills `out[0..n)` with draws. Three uniforms per candidate: cell, position,
- * acceptance. @internal
+ * Fills `out[0..n)` with draws. Two or three uniforms per candidate: the
+ * cell; the position, the rest of the cell-selecting uniform when the cell
+ * holds at least {@link SHARE_FLOOR} = 2^-12 of the envelope's area, else a
+ * fresh uniform; the acceptance variable. @internal
  */
 export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): void {
   const u = s.uniform;
@@ -154,6 +157,7 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
   const logf = s.logDensity;
   const maxRej = s.maxRejections;
   let h = s.hot;
+  let lin = s.lin;
   let cum = s.guide.cum;
   let guide = s.guide.guide;
   let size = s.guide.size;
@@ -170,7 +174,9 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       const b = h[o + 1];
       const p = h[o + 2];
       const r = h[o + 4];
-      const u2 = u();
+      // the position in the cell: the rest of u1, or a fresh uniform in a cell below SHARE_FLOOR (as the hull kernel)
+      let u2 = restOfUniform(cum, j, lin[j], v1, total);
+      if (u2 < 0) u2 = u();
       let x: number;
       if (r === 0) {
         x = a + u2 * (b - a);
@@ -204,6 +210,7 @@ export function certifiedFill(s: CertifiedState, out: Float64Array, n: number): 
       if (++rejections >= maxRej) throw new StalledSamplerError(s.api, rejections, cnt.samples, cnt.proposals);
       if (s.refining && s.marked[j] === 0 && s.cells.stuck[j] === 0 && refineLater(s, j)) {
         h = s.hot;
+        lin = s.lin;
         cum = s.guide.cum;
         guide = s.guide.guide;
         size = s.guide.size;

@@ -4,7 +4,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { certifiedSampler, envelopeSvg, evaluateEnvelope, substream } from '../../../src/index.js';
-import { draw, expectInSupport, expectReproducible } from '../../helpers/statistical.js';
+import { draw, expectInSupport, expectRate, expectReproducible } from '../../helpers/statistical.js';
 import { jumpTarget, mixture, workedTarget } from './hand-bounds.js';
 
 describe('certifiedSampler streams', () => {
@@ -29,19 +29,47 @@ describe('certifiedSampler streams', () => {
     expect(Array.from(xs)).toEqual(ys);
   });
 
+  it('certifiedSampler consumes two uniforms per candidate, plus one for each candidate in a cell below 2^-12 of the area (stream contract)', () => {
+    // cells are chosen in proportion to their envelope areas, so the candidates in cells below 2^-12 of the
+    // total are Binomial(candidates, S) with S the summed share of those cells (order-free: the cells are
+    // stored in split order, the description sorts them); rate test at z = 4.4 (two-sided p about 1e-5)
+    const src = substream(11, 0);
+    let calls = 0;
+    const s = certifiedSampler(t, { refine: false, uniform: () => (calls++, src()) });
+    const e = s.envelope;
+    const shareBelow = (floor: number): number => {
+      let sum = 0;
+      for (const p of e.pieces) {
+        const a = Math.exp(p.logArea - e.logEnvelopeArea);
+        if (a < floor) sum += a;
+      }
+      return sum;
+    };
+    draw(s, 200_000);
+    const candidates = s.stats.proposals;
+    const fresh = calls - 2 * candidates; // 66 expected (S = 3.3e-4 on this target, measured 2026-12-04)
+    expect(fresh).toBeGreaterThan(0);
+    expect(fresh).toBeLessThan(candidates);
+    expectRate(fresh, candidates, shareBelow(2 ** -12), 'candidates in cells below 2^-12');
+    // twin: the same count is rejected against a floor of 2^-9 (a rule with another share)
+    expect(shareBelow(2 ** -9)).toBeGreaterThan(1.5 * shareBelow(2 ** -12));
+    expect(() => expectRate(fresh, candidates, shareBelow(2 ** -9))).toThrow();
+  });
+
   it('certifiedSampler(0.7·N(0,1) + 0.3·N(6, 0.001²), seed 42): golden first six draws', () => {
     // Stream-stability snapshot recorded from this implementation (a regression
     // guard, not a correctness reference): a change here changes users' streams
-    // and must be noted in CHANGELOG.md under "Stream changes".
+    // and must be noted in CHANGELOG.md under "Stream changes". Re-recorded on 2026-12-04 for the
+    // two-uniform candidate.
     const xs = draw(certifiedSampler(t, { seed: 42 }), 6);
     expect(Array.from(xs)).toMatchInlineSnapshot(`
       [
-        0.6514918070047122,
-        -2.0316768391615714,
-        -0.9824582379724853,
-        -1.2523856682280432,
-        6.002047352045731,
-        0.40308918451583914,
+        0.5913484664798084,
+        0.5325107116207588,
+        5.999276186941063,
+        -0.9915233895204287,
+        -2.1843445213777177,
+        0.07384848095802163,
       ]
     `);
   });
