@@ -7,10 +7,12 @@
 import { Counters } from '../core/counters.js';
 import { EnvelopeViolationError, InvalidOptionError, InvalidTargetError, NonFiniteDensityError, StalledSamplerError } from '../core/errors.js';
 import { checkLogDensity } from '../core/evaluate.js';
-import type { Sampler, SamplerOptions, SamplerStats, Target, Uniform } from '../core/types.js';
+import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/types.js';
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
+import type { MersenneTwister } from '../random/mersenne-twister.js';
+import { UniformBlock, nextUniform } from '../random/uniform-block.js';
 import { checkMassBeyondDoubles, computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
 import { areaX, pointX } from './transform/standardise.js';
@@ -238,7 +240,9 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const map = standardisationOf(target);
   const source = sourceOf(target);
   rect.evaluations += map !== undefined && source !== undefined ? checkMassBeyondDoubles(api, source, rect, power, map, markFinal) : checkMassBeyondDoubles(api, t, rect, power);
-  return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, uniform);
+  // an owned MT19937 is read in blocks (the same values in the same order as one call at a time)
+  const blk = options.uniform === undefined ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, blk);
 }
 
 /** The sampler; all constants fixed at construction, one flat kernel for sample and fill. */
@@ -268,7 +272,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     },
     private readonly squeeze: ((x: number) => number) | undefined,
     private readonly maxRejections: number,
-    private readonly uniform: Uniform,
+    private readonly blk: UniformBlock,
   ) {
     this.r1 = power + 1;
     this.vWidth = rect.vMax - rect.vMin;
@@ -323,7 +327,7 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
   /** The kernel: fills out[0..n) (constants in locals, no allocation). */
   private run(out: Float64Array, n: number): void {
     const api = this.api;
-    const uniform = this.uniform;
+    const blk = this.blk;
     const logf = this.logf;
     const squeeze = this.squeeze;
     const c = this.counters;
@@ -345,8 +349,8 @@ class RatioOfUniforms implements RatioOfUniformsSampler {
     for (let i = 0; i < n; i++) {
       let rejections = 0;
       for (;;) {
-        const u = 1 - uniform();
-        const v = vMin + vWidth * uniform();
+        const u = 1 - nextUniform(blk);
+        const v = vMin + vWidth * nextUniform(blk);
         c.proposals++;
         const q = unitPower ? v / u : v / pow(u, r);
         const x = s + q;
