@@ -94,8 +94,8 @@ export function hullFill(
         // the position in the piece: the rest of u1, or a fresh uniform in a piece below SHARE_FLOOR
         let u2 = restOfUniform(cum, j, area[j], v, gt.total);
         if (u2 < 0) {
-          // nextUniform written out: at a third call site V8 did not inline it, and boxed every u1 (16 bytes
-          // per draw, bench/alloc.mjs)
+          // nextUniform written out: V8 did not inline a third call site, and u2, merged with that call's
+          // boxed result, was boxed on every draw (16 bytes per draw, bench/alloc.mjs)
           let p = blk.pos;
           if (p >= blk.len) {
             blk.refill();
