@@ -95,17 +95,22 @@ export function temper(y: number): number {
  */
 export function twist(mt: Int32Array): void {
   let kk = 0;
-  let y: number;
-  for (; kk < 227; kk++) {
-    y = (mt[kk] & 0x80000000) | (mt[kk + 1] & 0x7fffffff);
-    mt[kk] = mt[kk + 397] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
-  }
-  for (; kk < 623; kk++) {
-    y = (mt[kk] & 0x80000000) | (mt[kk + 1] & 0x7fffffff);
-    mt[kk] = mt[kk - 227] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
-  }
-  y = (mt[623] & 0x80000000) | (mt[0] & 0x7fffffff);
-  mt[623] = mt[396] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
+  for (; kk < 227; kk++) twistWord(mt, kk, kk + 1, kk + 397);
+  for (; kk < 623; kk++) twistWord(mt, kk, kk + 1, kk - 227);
+  twistWord(mt, 623, 0, 396);
+}
+
+/**
+ * One word of the MT19937 state transition, in place: word `kk` from its own
+ * upper bit, the lower bits of word `next` and word `far` (M = 397 ahead,
+ * cyclically). Returns the new word. Used by {@link twist} and by the block
+ * generator of uniform-block.ts (small enough for the engine to inline). @internal
+ */
+export function twistWord(mt: Int32Array, kk: number, next: number, far: number): number {
+  const y = (mt[kk] & 0x80000000) | (mt[next] & 0x7fffffff);
+  const w = mt[far] ^ (y >>> 1) ^ (-(y & 1) & 0x9908b0df);
+  mt[kk] = w;
+  return w;
 }
 
 /** `init_genrand(s)` on the 624 words (Matsumoto & Nishimura's reference seeding). */

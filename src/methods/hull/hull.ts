@@ -349,15 +349,8 @@ export class Hull implements HullView {
     const ax = this.lineAnchor[j];
     const at = this.lineValue[j];
     const sl = this.lineSlope[j];
-    let hx: number;
-    let dir: number;
-    if (sl > 0) {
-      hx = hi;
-      dir = -1;
-    } else {
-      hx = lo;
-      dir = 1;
-    }
+    const hx = sl > 0 ? hi : lo;
+    const dir = sl > 0 ? -1 : 1;
     const w = hi - lo;
     const s = Math.abs(sl);
     // a line rising towards an infinite end (or flat on an infinite piece) is not integrable

@@ -109,15 +109,8 @@ function expLinearInverse(A: number, B: number, w: number, p: number, m: number)
 }
 
 function makeTail(kind: number, lo: number, hi: number, ax: number, ay: number, slope: number): TailPiece {
-  let hx: number;
-  let dir: number;
-  if (slope > 0) {
-    hx = hi;
-    dir = -1;
-  } else {
-    hx = lo;
-    dir = 1;
-  }
+  const hx = slope > 0 ? hi : lo;
+  const dir = slope > 0 ? -1 : 1;
   const w = hi - lo;
   const sig = Math.abs(slope);
   const th = hx === Infinity || hx === -Infinity ? Infinity : ay + slope * (hx - ax);

@@ -7,6 +7,7 @@ import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError, StalledSamplerError } from '../../core/errors.js';
 import { checkLogDensity } from '../../core/evaluate.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
+import { nextUniform } from '../../random/uniform-block.js';
 import { notConcave, shapeError } from '../envelope/concavity.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { T_LOG, invertPiece, logHeight, transformValue } from '../envelope/transforms.js';
@@ -131,7 +132,7 @@ function slowCandidate(st: TableState, counters: Counters, j: number, v: number,
   }
   // cap: a height uniform on (m_i, M_i] (1 − u keeps it above m_i ≥ 0, so it never is 0)
   const up = tb.up[i];
-  const hv = up - blk.next() * (up - tb.lo[i]);
+  const hv = up - nextUniform(blk) * (up - tb.lo[i]);
   if (pw === null) hullCap(st, counters, i, x, hv);
   else pw.cap(st, counters, pw, i, x, hv);
   return x;
@@ -150,7 +151,7 @@ function hullTailCandidate(st: TableState, counters: Counters, type: number, pos
   const lenv = logHeight(kind, p.anchorValue + p.slope * (x - p.anchor));
   const lf = evaluate(st, counters, x);
   if (lf - ref > lenv + tolLog(ref, lf)) violation(st, x, lf, lenv + ref, 'envelope', type === R_LEFT_TAIL ? -1 : tb.n);
-  const u = blk.next();
+  const u = nextUniform(blk);
   st.accepted = u < exp(lf - ref - lenv);
   return x;
 }

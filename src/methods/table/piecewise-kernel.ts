@@ -10,6 +10,7 @@
 import type { Counters } from '../../core/counters.js';
 import { EnvelopeViolationError } from '../../core/errors.js';
 import type { UniformBlock } from '../../random/uniform-block.js';
+import { nextUniform } from '../../random/uniform-block.js';
 import { pieceInverse, pieceLogEnvelope, pieceLogSqueeze } from '../envelope/piece-tables.js';
 import { logTolerance } from '../envelope/tolerance.js';
 import { evaluate } from './kernel.js';
@@ -33,8 +34,8 @@ export function piecewiseTailCandidate(st: KernelState, counters: Counters, pw: 
   let k = 0;
   while (k + 1 < cum.length && cum[k] <= v) k++;
   const j = idx[k];
-  const x = pieceInverse(t, j, blk.next());
-  const u3 = blk.next();
+  const x = pieceInverse(t, j, nextUniform(blk));
+  const u3 = nextUniform(blk);
   if (!(x > -Infinity && x < Infinity)) {
     st.accepted = false;
     return x;
