@@ -24,9 +24,10 @@ function countCheck(line: string): void {
  * Suite-wide false-positive rate: a full run makes about 440 acceptance
  * checks at ALPHA (217 calls of expectFits, two tests each, counted with
  * EXACTDRAW_COUNT_CHECKS in the `npm test` runs of 2026-12-03 and -04, plus 6 direct
- * p-value checks) and 31 binomial rate checks at z = 4.4 (two-sided 1.1e-5
- * each; counted on 2026-12-02), so a correct implementation fails with
- * probability at most about 440·1e-4 + 31·1.1e-5 ≈ 4.4 % (union bound) for a
+ * p-value checks) and 32 binomial rate checks at z = 4.4 (two-sided 1.1e-5
+ * each; 31 counted on 2026-12-02, plus the certified uniform-count check of
+ * 2026-12-04), so a correct implementation fails with
+ * probability at most about 440·1e-4 + 32·1.1e-5 ≈ 4.4 % (union bound) for a
  * fresh choice of all seeds. With the fixed seeds a run is deterministic: a failure is
  * reproducible, and a seed is never changed to make a test pass.
  */
