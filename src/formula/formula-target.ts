@@ -23,7 +23,12 @@ export type { FormulaTarget, FormulaTargetOptions };
  * `tanh`, `sinh`, `cosh`, `lgamma`, `pow(a, b)`, `min(a, b, …)`,
  * `max(a, b, …)` and `logsumexp(a, b, …) = log(exp(a) + exp(b) + …)`,
  * which stays finite where the exponentials underflow (mixtures of narrow
- * components). `^` binds tighter than unary minus and is right-associative:
+ * components). Write a mixture with `logsumexp`, not as `log(a + b)`: on an
+ * infinite support the sum of exponentials underflows in the tails, its
+ * derivative enclosure there is [0, ∞], which proves no decay, so
+ * {@link certifiedSampler} refuses the tail ({@link ImproperDensityError})
+ * and {@link exactSampler} falls back to its scan (it says so in
+ * `choice.assumption`); the `logsumexp` form is certified on the whole line. `^` binds tighter than unary minus and is right-associative:
  * `-x^2` is `-(x^2)` and `2^3^2` is `2^9`. `lgamma` is defined for
  * arguments `>= 0` (`lgamma(0) = +Infinity`); a negative argument is NaN.
  *
