@@ -3,9 +3,10 @@
 // which stays under ten minutes): N draws binned into 4,000 equal bins over a range, a Pearson
 // chi-square against the @stdlib cdf, bins with fewer than 20 expected counts left out.
 //   npm run build && node scripts/power-check.mjs CASE [N = 2e8]
-// CASE: hullNormal, hullGamma, hullNormalSecant, piecewiseNormal, or the twin hullNormalVsWide (the
+// CASE: hullNormal, hullGamma, hullNormalSecant, piecewiseNormal, certifiedNormal (a formula normal), or
+// the twin hullNormalVsWide (the
 // hull's normal draws against N(0, 1.001): it must be rejected, which shows what N can see).
-// Measured 2026-12-04 (two-uniform candidate), N = 2e8: p = 0.20, 0.49, 0.57, 0.50; twin p = 1.6e-8.
+// Measured 2026-12-04 (two-uniform candidate), N = 2e8: p = 0.20, 0.49, 0.57, 0.50, certified 0.76; twin p = 1.6e-8.
 import { createRequire } from 'node:module';
 
 const require = createRequire(import.meta.url);
@@ -19,6 +20,7 @@ const CASES = {
   hullGamma: [() => ed.adaptiveRejectionSampler(ed.gammaTarget(2.5, 1), { seed: 778 }), (x) => gcdf(x, 2.5, 1), 0, 20],
   hullNormalSecant: [() => ed.adaptiveRejectionSampler(ed.normalTarget(0, 1), { seed: 779, derivativeFree: true }), (x) => ncdf(x, 0, 1), -6, 6],
   piecewiseNormal: [() => ed.piecewiseSampler(ed.normalTarget(0, 1), { seed: 780 }), (x) => ncdf(x, 0, 1), -6, 6],
+  certifiedNormal: [() => ed.certifiedSampler(ed.formulaTarget('-x^2/2', { support: [-Infinity, Infinity] }), { seed: 781 }), (x) => ncdf(x, 0, 1), -6, 6],
   hullNormalVsWide: [() => ed.adaptiveRejectionSampler(ed.normalTarget(0, 1), { seed: 777 }), (x) => ncdf(x, 0, 1.001), -6, 6],
 };
 const which = process.argv[2];
