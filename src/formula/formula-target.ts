@@ -23,12 +23,14 @@ export type { FormulaTarget, FormulaTargetOptions };
  * `tanh`, `sinh`, `cosh`, `lgamma`, `pow(a, b)`, `min(a, b, …)`,
  * `max(a, b, …)` and `logsumexp(a, b, …) = log(exp(a) + exp(b) + …)`,
  * which stays finite where the exponentials underflow (mixtures of narrow
- * components). Write a mixture with `logsumexp`, not as `log(a + b)`: on an
- * infinite support the sum of exponentials underflows in the tails, its
- * derivative enclosure there is [0, ∞], which proves no decay, so
- * {@link certifiedSampler} refuses the tail ({@link ImproperDensityError})
- * and {@link exactSampler} falls back to its scan (it says so in
- * `choice.assumption`); the `logsumexp` form is certified on the whole line. `^` binds tighter than unary minus and is right-associative:
+ * components). A `log` of a sum whose terms are products or quotients of
+ * `exp(…)` and positive constants (such as `log(0.7*exp(-x^2/2) +
+ * 0.3*exp(-(x-6)^2/(2*s^2))/s)`) is compiled as the equivalent `logsumexp`
+ * (values equal up to rounding), so that a mixture written either way stays
+ * finite in its tails and {@link certifiedSampler} can prove that they
+ * decay; a `log` of any other sum is evaluated as written, and where its
+ * terms underflow on an infinite support the tails cannot be proven (an
+ * {@link ImproperDensityError} naming the cell). `^` binds tighter than unary minus and is right-associative:
  * `-x^2` is `-(x^2)` and `2^3^2` is `2^9`. `lgamma` is defined for
  * arguments `>= 0` (`lgamma(0) = +Infinity`); a negative argument is NaN.
  *

@@ -23,7 +23,8 @@
  * 2026-12-04 (second session): the two-uniform candidate and the one-pass MT19937 block generator
  * (twist and tempering in one loop, 20 % faster per uniform) brought the table case to 24,999 B (the goal
  * holds, with 1 B to spare, after trimming the block reader and two piece builders) and everything to
- * 109,028 B; the everything cap moved to 109.1 KB.
+ * 109,028 B; the everything cap moved to 109.1 KB. The formula rewrite of logs of sums of exponentials
+ * (src/formula/_internals/rewrite.ts, 1.3 KB minified) brought everything to 109,461 B: cap 109.5 KB.
  */
 import { describe, expect, it } from 'vitest';
 import { resolve } from 'node:path';
@@ -73,7 +74,7 @@ const POW_MARK = '.9617966939259756';
 const CASES: [string, string, number, number][] = [
   ['{ substream }', "import { substream } from 'exactdraw'; globalThis.r = substream(1, 2)();", 8_000, 8_000],
   ['{ normalTarget, tableSampler }', "import { normalTarget, tableSampler } from 'exactdraw'; globalThis.r = tableSampler(normalTarget(0, 1), { seed: 1 }).sample();", 25_000, 25_000], // the goal (24,986 B measured 2026-12-03, issue 14)
-  ['everything', "import * as all from 'exactdraw'; globalThis.r = all;", 109_100, 60_000], // cap: regression guard (107,943 B measured 2026-12-03, issue 14; 109,028 B on 2026-12-04 with the one-pass block generator)
+  ['everything', "import * as all from 'exactdraw'; globalThis.r = all;", 109_500, 60_000], // cap: regression guard (107,943 B measured 2026-12-03, issue 14; 109,028 B on 2026-12-04 with the one-pass block generator, 109,461 B with the formula rewrite of logs of sums)
 ];
 
 describe('size budget of the ESM build (esbuild, minified, gzip)', () => {

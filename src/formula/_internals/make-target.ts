@@ -10,6 +10,7 @@ import { checkOptionKeys, checkSupport } from '../../core/validate.js';
 import { printNode, type Node } from './ast.js';
 import { IntervalEvaluator } from './interval-program.js';
 import { compile, PointEvaluator } from './program.js';
+import { logsOfSums } from './rewrite.js';
 
 /**
  * A {@link Target} defined by a formula: point values, exact derivatives
@@ -108,7 +109,8 @@ export function makeFormulaTarget(
   support: [number, number],
   parameters: Readonly<Record<string, number>>,
 ): FormulaTarget {
-  const program = compile(tree, parameters);
+  // a log of a sum of exponentials is evaluated as a logsumexp (rewrite.ts): finite, and provable, in the tails
+  const program = compile(logsOfSums(tree, parameters), parameters);
   const point = new PointEvaluator(program);
   const box = new IntervalEvaluator(program);
   const canonical = printNode(tree);

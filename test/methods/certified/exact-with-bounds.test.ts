@@ -4,7 +4,7 @@
  * AD at ALPHA, each with a biased twin) through the shared method suite.
  */
 import { describe, expect, it } from 'vitest';
-import { ImproperDensityError, certifiedSampler, exactSampler, formulaTarget, piecewiseSampler } from '../../../src/index.js';
+import { certifiedSampler, exactSampler, piecewiseSampler } from '../../../src/index.js';
 import type { ExactSampler, Target } from '../../../src/index.js';
 import { methodSuite, methodSuites } from '../../helpers/method-suite.js';
 import { draw, expectRate } from '../../helpers/statistical.js';
@@ -122,28 +122,6 @@ methodSuites<ExactSampler>('exactSampler proves the shape of targets with interv
     seed: 6,
   },
 ]);
-
-describe('formula mixtures on the whole line: logsumexp is certified, log(a + b) is not (documented limitation)', () => {
-  // invented mixture 0.7·N(0, 1) + 0.3·N(2, 0.3²), written two ways
-  const lse = formulaTarget('logsumexp(log(0.7) - x^2/2, log(0.3) - log(0.3) - (x - 2)^2 / (2*0.3^2))', { support: [-Infinity, Infinity] });
-  const naive = formulaTarget('log(0.7 * exp(-0.5 * x^2) + 0.3 * exp(-0.5 * ((x - 2) / 0.3)^2) / 0.3)', { support: [-Infinity, Infinity] });
-
-  it('the logsumexp form: certifiedSampler builds its cells and exactSampler picks it', () => {
-    expect(certifiedSampler(lse, { seed: 1 }).stats.cells).toBeGreaterThan(0);
-    expect(exactSampler(lse, { seed: 1 }).choice.method).toBe('certified');
-  });
-
-  it('the log(a + b) form: the tails underflow, no decay is proven, certifiedSampler refuses and exactSampler falls back to its scan and says so', () => {
-    expect(() => certifiedSampler(naive, { seed: 1 })).toThrow(ImproperDensityError);
-    expect(() => certifiedSampler(naive, { seed: 1 })).toThrow(/infinite cell/);
-    const s = exactSampler(naive, { seed: 1 });
-    expect(s.choice.method).not.toBe('certified');
-    expect(s.choice.assumption).toMatch(/logDensityBounds could not cover it/);
-    // on a finite support the same formula is certified
-    const finite = formulaTarget('log(0.7 * exp(-0.5 * x^2) + 0.3 * exp(-0.5 * ((x - 2) / 0.3)^2) / 0.3)', { support: [-50, 50] });
-    expect(certifiedSampler(finite, { seed: 1 }).stats.cells).toBeGreaterThan(0);
-  });
-});
 
 describe('exactSampler with bounds: options', () => {
   it('exactSampler(target with bounds) is reproducible per seed and passes seed/stream to the chosen sampler', () => {
