@@ -13,7 +13,6 @@ import { hullFill } from './hull/kernel.js';
 import { setupHull } from './hull/setup.js';
 import type { TransformName } from './envelope/transforms.js';
 import { createTableSampler } from './table-sampler.js';
-import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { UniformBlock } from '../random/uniform-block.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
 import { HULL_FORWARD } from './standardised-forward.js';
@@ -194,7 +193,7 @@ export function adaptiveRejectionSampler(target: Target, options?: AdaptiveRejec
   if (fast) return createTableSampler(api, setup, options);
   const { hull, counters, uniform, maxRejections } = setup;
   // an owned stream is read in blocks (the same values as calling it; see UniformBlock)
-  const blk = setup.ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const blk = UniformBlock.of(uniform, setup.ownsUniform);
   const draws = wrapDraws(api, (out, n) => hullFill(hull, out, n, counters, blk, maxRejections));
   return {
     sample: draws.sample,

@@ -21,7 +21,6 @@ import { SetupProbes } from './hull/setup-probes.js';
 import type { HullReuse, ResolvedHullOptions } from './hull/setup.js';
 import { ProbePool, hullCentre, warmStartPoints } from './hull/warm-start.js';
 import type { WarmCentre } from './hull/warm-start.js';
-import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { resolveUniform } from '../random/resolve.js';
 import { UniformBlock } from '../random/uniform-block.js';
 
@@ -157,7 +156,7 @@ export function conditionalSampler(options?: ConditionalSamplerOptions): Conditi
   const maxRejections = resolveMaxRejections(API, opts.maxRejections);
   const uniform = resolveUniform(API, opts);
   const ownsUniform = opts.uniform === undefined;
-  const blk = ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const blk = UniformBlock.of(uniform, ownsUniform);
   const kind = transform === 'log' ? T_LOG : T_INV_SQRT;
   const counters = new Counters();
   const nothing = (): number => NaN;

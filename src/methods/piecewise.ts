@@ -12,7 +12,6 @@ import { checkInteger, checkOptionKeys, checkTarget, resolveBoolean, resolveMaxR
 import type { CheckedTarget } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
 import { UniformBlock } from '../random/uniform-block.js';
-import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { GuideTable } from './envelope/guide-table.js';
 import { T_LOG } from './envelope/transforms.js';
 import { CLASS_NAMES, PIECEWISE_NOISE, TAIL_INV_SQRT, TAIL_LOG, TAIL_NONE } from './piecewise/cells.js';
@@ -382,7 +381,7 @@ export function piecewiseSampler(target: Target, options?: PiecewiseOptions): Pi
   const counters = new Counters();
   counters.setupEvaluations = ev.evaluations;
   if (fast) return createPiecewiseTable(api, t, grid, ev, tables, counters, uniform, opts.uniform === undefined, maxRejections, ratio, strips, tailMass);
-  const blk = opts.uniform === undefined ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const blk = UniformBlock.of(uniform, opts.uniform === undefined);
   return new Piecewise(api, t, grid, ev, tables, counters, blk, maxRejections, adapt, ratio);
 }
 

@@ -11,7 +11,6 @@ import type { Sampler, SamplerOptions, SamplerStats, Target } from '../core/type
 import { wrapDraws } from '../core/draws.js';
 import { checkFinite, checkOptionKeys, checkPositive, checkTarget, resolveMaxRejections } from '../core/validate.js';
 import { resolveUniform } from '../random/resolve.js';
-import type { MersenneTwister } from '../random/mersenne-twister.js';
 import { UniformBlock, nextUniform } from '../random/uniform-block.js';
 import { checkMassBeyondDoubles, computeRectangle } from './ratio-of-uniforms/bounds.js';
 import { explainPole, readPoleOption, samplerAcrossPole } from './transform/sampler.js';
@@ -241,7 +240,7 @@ export function ratioOfUniformsSampler(target: Target, options: RatioOfUniformsO
   const source = sourceOf(target);
   rect.evaluations += map !== undefined && source !== undefined ? checkMassBeyondDoubles(api, source, rect, power, map, markFinal) : checkMassBeyondDoubles(api, t, rect, power);
   // an owned MT19937 is read in blocks (the same values in the same order as one call at a time)
-  const blk = options.uniform === undefined ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const blk = UniformBlock.of(uniform, options.uniform === undefined);
   return new RatioOfUniforms(api, t.logDensity, t.lower, t.upper, power, rect, squeeze, maxRejections, blk);
 }
 

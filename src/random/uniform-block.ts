@@ -59,9 +59,13 @@ export class UniformBlock {
     this.source = source;
   }
 
-  /** One value at a time from an injected source (no reading ahead). */
-  static fromUniform(u: Uniform): UniformBlock {
-    return new UniformBlock(1, null, 0, u);
+  /**
+   * The reader of a sampler's uniform source: blocks when the sampler owns it
+   * (an MT19937 it made from `seed` or `stream`), one value at a time, with
+   * no reading ahead, when it was injected.
+   */
+  static of(u: Uniform, owned: boolean): UniformBlock {
+    return owned ? UniformBlock.fromOwnedMersenneTwister(u as MersenneTwister) : new UniformBlock(1, null, 0, u);
   }
 
   /** Blocks generated from the current state of an MT19937 source that the caller owns (nothing else may draw from it afterwards). */

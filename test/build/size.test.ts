@@ -25,6 +25,8 @@
  * holds, with 1 B to spare, after trimming the block reader and two piece builders) and everything to
  * 109,028 B; the everything cap moved to 109.1 KB. The formula rewrite of logs of sums of exponentials
  * (src/formula/_internals/rewrite.ts, 1.3 KB minified) brought everything to 109,461 B: cap 109.5 KB.
+ * One reader constructor for the five samplers that read blocks (`UniformBlock.of`) took the table case to
+ * 24,986 B and everything to 109,400 B.
  */
 import { describe, expect, it } from 'vitest';
 import { resolve } from 'node:path';

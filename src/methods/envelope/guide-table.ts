@@ -90,8 +90,10 @@ export const SHARE_FLOOR = 0.000244140625;
  * with `v = u1·total` and `cum[j−1] ≤ v < cum[j]`, (v − cum[j−1]) / area
  * is uniform on [0, 1) given j (clamped there against rounding). Returns
  * −1 when the piece holds less than {@link SHARE_FLOOR} of `total` (the
- * caller then reads a fresh uniform). Used by the hull and piecewise
- * kernels; small enough for the engine to inline.
+ * caller then reads a fresh uniform). Used by the hull, piecewise and
+ * certified kernels; small enough for the engine to inline. The floor is
+ * written as a literal here (a module constant becomes a `var` in the
+ * bundle, which the engine reloads on every use).
  * @internal
  */
 export function restOfUniform(cum: Float64Array, j: number, area: number, v: number, total: number): number {

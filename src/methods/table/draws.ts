@@ -7,7 +7,6 @@ import type { Counters } from '../../core/counters.js';
 import { wrapDraws } from '../../core/draws.js';
 import type { Draws } from '../../core/draws.js';
 import type { Uniform } from '../../core/types.js';
-import type { MersenneTwister } from '../../random/mersenne-twister.js';
 import { UniformBlock } from '../../random/uniform-block.js';
 import type { AliasCells } from './alias.js';
 import { tableFill } from './kernel.js';
@@ -30,7 +29,7 @@ export function tableDraws(
   ownsUniform: boolean,
   maxRejections: number,
 ): Draws {
-  const blk = ownsUniform ? UniformBlock.fromOwnedMersenneTwister(uniform as MersenneTwister) : UniformBlock.fromUniform(uniform);
+  const blk = UniformBlock.of(uniform, ownsUniform);
   const st: TableState = { table, cells, logDensity, accepted: false };
   return wrapDraws(api, (out, n) => tableFill(st, out, n, counters, blk, maxRejections));
 }
